@@ -1,0 +1,31 @@
+import data from '../../../line-lists/lines.json';
+
+/** What a feature looks like in a spectrum. */
+export type LineKind = 'emission' | 'absorption' | 'band' | 'break';
+
+/** One rest-frame feature from line-lists/lines.json. */
+export interface SpectralLine {
+  name: string;
+  species: string;
+  /** Rest-frame vacuum wavelength, Å. */
+  rest: number;
+  kind: LineKind;
+  /** Relative flux (emission) or fractional depth (absorption, band), keyed by template recipe id. */
+  strength: Readonly<Record<string, number>>;
+  /** Where the wavelength comes from. */
+  source: string;
+  /** Rest-frame extent of a broad feature, Å. */
+  widthA?: number;
+  /** Band shape: a sharp head with absorption to the red, or a symmetric broad trough. */
+  profile?: 'head-red' | 'broad';
+}
+
+/** All features, sorted by rest wavelength. The JSON is the single source of truth. */
+export const LINES: readonly SpectralLine[] = (data.lines as SpectralLine[]).slice().sort((a, b) => a.rest - b.rest);
+
+/** Looks a feature up by its exact name; throws a RangeError naming it when absent. */
+export function lineByName(name: string): SpectralLine {
+  const line = LINES.find((l) => l.name === name);
+  if (!line) throw new RangeError(`No line named "${name}" in line-lists/lines.json.`);
+  return line;
+}

@@ -1,0 +1,45 @@
+/** Template classes the engine can propose; 'unknown' means no decision. */
+export type TemplateClass = 'galaxy' | 'quasar' | 'star' | 'lyman-break';
+export type SpectrumClass = TemplateClass | 'unknown';
+
+/** Whether wavelengths are in vacuum or in standard air. */
+export type Medium = 'vacuum' | 'air';
+
+/** Descriptive metadata carried alongside the arrays. Every field is optional: files differ. */
+export interface SpectrumMeta {
+  /** Which reader produced the spectrum and from which part of the file (e.g. "FITS HDU 1 binary table"). */
+  source: string;
+  objectName?: string;
+  /** Right ascension and declination in degrees. */
+  ra?: number;
+  dec?: number;
+  instrument?: string;
+  /** Exposure time in seconds. */
+  exposureS?: number;
+  dateObs?: string;
+  /** Medium of the wavelength column as read, before any conversion. */
+  medium: Medium;
+  /** How the medium was decided: header keyword, a default, or a caller override. */
+  mediumFrom: 'header' | 'default' | 'override';
+  fluxUnit?: string;
+  /** True when the file had no uncertainties and ivar was estimated from local scatter. */
+  errorsEstimated: boolean;
+  /** Column or row names used for each role, for display ("flux <- FLUX", ...). */
+  columns: Record<string, string>;
+  /** Non-fatal remarks about the file (ignored columns, odd units...). */
+  warnings: string[];
+}
+
+/**
+ * A columnar 1D spectrum. Wavelength in Å (as read: air or vacuum per meta.medium), strictly
+ * increasing; flux in the file's unit; ivar = 1/σ² in flux units⁻² (0 = no information); mask
+ * 1 = bad pixel; sky in flux units when the file has one.
+ */
+export interface Spectrum {
+  wavelength: Float64Array;
+  flux: Float64Array;
+  ivar: Float64Array;
+  mask: Uint8Array;
+  sky?: Float64Array;
+  meta: SpectrumMeta;
+}
