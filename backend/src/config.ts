@@ -1,0 +1,82 @@
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+const flag = z
+  .enum(['0', '1', 'true', 'false', 'yes', 'no'])
+  .transform((v) => v === '1' || v === 'true' || v === 'yes');
+
+const envSchema = z.object({
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  HOST: z.string().default('0.0.0.0'),
+  DATA_DIR: z.string().default('./data'),
+  /** Public address used in links inside e-mails; defaults to http://localhost:PORT. */
+  PUBLIC_URL: z.url().optional(),
+  /** At least 32 characters; when absent one is generated once and kept in DATA_DIR. */
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters.').optional(),
+  SMTP_URL: z.string().optional(),
+  MAIL_FROM: z.string().default('Redward <redward@localhost>'),
+  MAIL_CATCHER_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
+  /** Run the local mail catcher; on by default unless SMTP_URL points elsewhere. */
+  MAIL_CATCHER: flag.optional(),
+  REDWARD_DEMO: flag.default(true),
+  INVITATION_TTL_HOURS: z.coerce.number().positive().max(24 * 90).default(72),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** Set when a reverse proxy terminates TLS in front of Redward (Express `trust proxy`). */
+  TRUST_PROXY: flag.default(false),
+});
+
+export interface Config {
+  port: number;
+  host: string;
+  dataDir: string;
+  databasePath: string;
+  uploadsDir: string;
+  publicUrl: string | undefined;
+  sessionSecret: string | undefined;
+  smtpUrl: string;
+  mailFrom: string;
+  mailCatcher: { enabled: boolean; port: number };
+  demo: boolean;
+  invitationTtlHours: number;
+  logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
+  trustProxy: boolean;
+  version: string;
+}
+
+function readVersion(): string {
+  const pkgPath = new URL('../../package.json', import.meta.url);
+  return (JSON.parse(readFileSync(pkgPath, 'utf8')) as { version: string }).version;
+}
+
+/**
+ * The only reader of the environment. Parsed once at boot; a bad value stops the start with
+ * a sentence naming the variable.
+ */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = envSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  const e = parsed.data;
+  const dataDir = path.resolve(e.DATA_DIR);
+  const catcherEnabled = e.MAIL_CATCHER ?? e.SMTP_URL === undefined;
+  return {
+    port: e.PORT,
+    host: e.HOST,
+    dataDir,
+    databasePath: path.join(dataDir, 'redward.sqlite'),
+    uploadsDir: path.join(dataDir, 'uploads'),
+    publicUrl: e.PUBLIC_URL?.replace(/\/$/, ''),
+    sessionSecret: e.SESSION_SECRET,
+    smtpUrl: e.SMTP_URL ?? `smtp://127.0.0.1:${e.MAIL_CATCHER_PORT}`,
+    mailFrom: e.MAIL_FROM,
+    mailCatcher: { enabled: catcherEnabled, port: e.MAIL_CATCHER_PORT },
+    demo: e.REDWARD_DEMO,
+    invitationTtlHours: e.INVITATION_TTL_HOURS,
+    logLevel: e.LOG_LEVEL,
+    trustProxy: e.TRUST_PROXY,
+    version: readVersion(),
+  };
+}

@@ -1,0 +1,57 @@
+import { count } from 'drizzle-orm';
+import type { CampaignRole } from '../contracts/campaigns';
+import type { NewCampaign } from '../services/create-campaign';
+import { memberships, users } from '../db/schema';
+import type { ServiceContext } from '../services/context';
+import { createCampaign } from '../services/create-campaign';
+import { hashPassword } from '../services/passwords';
+import { recordAudit } from '../services/record-audit';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+
+// An invented scenario: the cluster, field and programme names below do not exist.
+const DEMO_CAMPAIGNS = [
+  {
+    name: 'Lantern Cluster arcs',
+    description:
+      'Spectroscopic follow-up of lensed arcs and multiple-image families behind the (fictional) galaxy cluster ' +
+      'Lantern, LNT J1042−1138, at z = 0.41. Goals: redshifts for the arc candidates, confirmation that the ' +
+      'image families agree, and a census of foreground interlopers on the arcs.',
+    zMin: 0,
+    zMax: 9,
+    tolerance: 0.003,
+    members: { 'lead@demo.test': 'lead', 'reader1@demo.test': 'reader', 'reader2@demo.test': 'reader', 'observer@demo.test': 'observer' },
+  },
+  {
+    name: 'Tidewater Deep Field dropouts',
+    description:
+      'Wide-field follow-up of i-band dropout candidates in the (fictional) Tidewater Deep Field. Expect Lyman-break ' +
+      'sources at 5.5 < z < 7, low-redshift Balmer-break interlopers and cool-dwarf contaminants.',
+    zMin: 0,
+    zMax: 9,
+    tolerance: 0.005,
+    members: { 'lead@demo.test': 'lead', 'reader1@demo.test': 'reader', 'reader2@demo.test': 'reader' },
+  },
+] satisfies (NewCampaign & { members: Record<string, CampaignRole> })[];
+
+/** Seeds the demo accounts and campaigns, once, into an empty database. Returns whether it did. */
+export async function seedDemoIfEmpty(ctx: ServiceContext): Promise<boolean> {
+  const existing = ctx.db.select({ n: count() }).from(users).get()!.n;
+  if (existing > 0) return false;
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  const userIds = new Map<string, number>();
+  ctx.db.transaction((tx) => {
+    for (const account of DEMO_ACCOUNTS) {
+      const row = tx.insert(users).values({ ...account, passwordHash }).returning({ id: users.id }).get();
+      userIds.set(account.email, row.id);
+    }
+    recordAudit(tx, { actorId: null, action: 'demo.seeded', subjectType: 'installation', after: { accounts: DEMO_ACCOUNTS.length } });
+  });
+  for (const { members, ...fields } of DEMO_CAMPAIGNS) {
+    const campaign = createCampaign(ctx, null, fields);
+    ctx.db
+      .insert(memberships)
+      .values(Object.entries(members).map(([email, role]) => ({ userId: userIds.get(email)!, campaignId: campaign.id, role })))
+      .run();
+  }
+  return true;
+}

@@ -1,0 +1,61 @@
+import type { Request } from 'express';
+import type { CampaignRole } from '../contracts/campaigns';
+import type { Actor, ServiceContext } from '../services/context';
+import { findCampaignRole } from '../services/find-campaign-role';
+import { forbidden, notFound, unauthenticated } from './errors';
+
+/**
+ * Who may call a route. Every route declares one; `authorize` is the single place that
+ * enforces them, so the browser never decides access.
+ *
+ * - public: anyone, signed in or not
+ * - signedIn: any signed-in account
+ * - admin: installation admins
+ * - campaign: members of the campaign in `:id` holding one of the roles. Admins may read
+ *   every campaign as if observers (they run the installation), but hold no other role
+ *   unless they are members.
+ */
+export type Access =
+  | { kind: 'public' }
+  | { kind: 'signedIn' }
+  | { kind: 'admin' }
+  | { kind: 'campaign'; roles: readonly CampaignRole[] };
+
+export const access = {
+  public: { kind: 'public' } as Access,
+  signedIn: { kind: 'signedIn' } as Access,
+  admin: { kind: 'admin' } as Access,
+  campaign: (...roles: CampaignRole[]): Access => ({ kind: 'campaign', roles }),
+  /** Anyone who can see the campaign: all members, and admins. */
+  campaignViewer: { kind: 'campaign', roles: ['lead', 'reader', 'observer'] } as Access,
+};
+
+export interface Authorization {
+  user: Actor | null;
+  campaign: { id: number; role: CampaignRole | null } | null;
+}
+
+const roleWords: Record<CampaignRole, string> = { lead: 'a lead', reader: 'a reader', observer: 'an observer' };
+
+export function authorize(ctx: ServiceContext, req: Request, rule: Access): Authorization {
+  if (rule.kind === 'public') return { user: req.user, campaign: null };
+  const user = req.user;
+  if (!user) throw unauthenticated();
+  if (rule.kind === 'signedIn') return { user, campaign: null };
+  if (rule.kind === 'admin') {
+    if (!user.isAdmin) throw forbidden('Only administrators can do this.');
+    return { user, campaign: null };
+  }
+  const campaignId = Number(req.params.id);
+  if (!Number.isSafeInteger(campaignId) || campaignId <= 0) throw notFound('No such campaign.', 'campaign_not_found');
+  const { exists, role } = findCampaignRole(ctx, user.id, campaignId);
+  if (!exists) throw notFound('No such campaign.', 'campaign_not_found');
+  const allowed =
+    (role !== null && rule.roles.includes(role)) || (role === null && user.isAdmin && rule.roles.includes('observer'));
+  if (!allowed) {
+    if (role === null && !user.isAdmin) throw notFound('No such campaign.', 'campaign_not_found');
+    const needed = rule.roles.map((r) => roleWords[r]).join(' or ');
+    throw forbidden(`Only ${needed} of this campaign can do this.`);
+  }
+  return { user, campaign: { id: campaignId, role } };
+}

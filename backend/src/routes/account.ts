@@ -1,0 +1,35 @@
+import { Router } from 'express';
+import { changePasswordRequestSchema, updateAccountRequestSchema } from '../contracts/auth';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import { changePassword } from '../services/change-password';
+import type { ServiceContext } from '../services/context';
+import { updateAccount } from '../services/update-account';
+
+export function accountRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+
+  defineRoute(ctx, router, {
+    method: 'patch',
+    path: '/account',
+    access: access.signedIn,
+    body: updateAccountRequestSchema,
+    handle: ({ user, body }) => ({ user: updateAccount(ctx, user!, body.name) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/account/password',
+    access: access.signedIn,
+    body: changePasswordRequestSchema,
+    handle: async ({ req, user, body }) => {
+      const epoch = await changePassword(ctx, user!, body.currentPassword, body.newPassword);
+      // This browser stays signed in; every other session of the account ends.
+      req.session.epoch = epoch;
+      await req.session.save();
+      return undefined;
+    },
+  });
+
+  return router;
+}

@@ -1,0 +1,50 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { updateUserRequestSchema } from '../contracts/admin';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import { notFound } from '../http/errors';
+import { listUsers, updateUser } from '../services/admin-users';
+import { getCaughtMail, listCaughtMail } from '../services/caught-mail';
+import type { ServiceContext } from '../services/context';
+
+const numericId = (raw: unknown, what: string) => {
+  const parsed = z.coerce.number().int().positive().safeParse(raw);
+  if (!parsed.success) throw notFound(`No such ${what}.`);
+  return parsed.data;
+};
+
+export function adminRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/admin/users',
+    access: access.admin,
+    handle: () => ({ users: listUsers(ctx) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'patch',
+    path: '/admin/users/:userId',
+    access: access.admin,
+    body: updateUserRequestSchema,
+    handle: ({ req, user, body }) => ({ user: updateUser(ctx, user!, numericId(req.params.userId, 'user'), body) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/admin/mail',
+    access: access.admin,
+    handle: () => ({ messages: listCaughtMail(ctx) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/admin/mail/:mailId',
+    access: access.admin,
+    handle: ({ req }) => ({ message: getCaughtMail(ctx, numericId(req.params.mailId, 'message')) }),
+  });
+
+  return router;
+}

@@ -1,0 +1,45 @@
+import { Router } from 'express';
+import { loginRequestSchema } from '../contracts/auth';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import { loginRateLimits } from '../http/rate-limits';
+import type { ServiceContext } from '../services/context';
+import { signIn } from '../services/sign-in';
+
+export function authRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/auth/login',
+    access: access.public,
+    before: loginRateLimits(),
+    body: loginRequestSchema,
+    handle: async ({ req, body }) => {
+      const { user, epoch } = await signIn(ctx, body.email, body.password);
+      req.session.userId = user.id;
+      req.session.epoch = epoch;
+      await req.session.save();
+      return { user };
+    },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/auth/logout',
+    access: access.public,
+    handle: ({ req }) => {
+      req.session.destroy();
+      return undefined;
+    },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/auth/me',
+    access: access.signedIn,
+    handle: ({ user }) => ({ user }),
+  });
+
+  return router;
+}
