@@ -1,0 +1,51 @@
+import { createBrowserRouter, Navigate } from 'react-router-dom';
+import { RequireAdmin } from './guards/require-admin';
+import { RequireAuth } from './guards/require-auth';
+import { RootLayout } from './layout/root-layout';
+import { AccountRoute } from './routes/account';
+import { AdminMailMessageRoute, AdminMailRoute, NoMessageSelected } from './routes/admin-mail';
+import { AdminUsersRoute } from './routes/admin-users';
+import { CampaignRoute } from './routes/campaign';
+import { CampaignsRoute } from './routes/campaigns';
+import { InvitationRoute } from './routes/invitation';
+import { NotFoundRoute } from './routes/not-found';
+import { RouteError } from './routes/route-error';
+import { SignInRoute } from './routes/sign-in';
+
+export const createRouter = () =>
+  createBrowserRouter([
+    {
+      element: <RootLayout />,
+      errorElement: <RouteError />,
+      children: [
+        { path: '/sign-in', element: <SignInRoute /> },
+        { path: '/invitations/:token', element: <InvitationRoute /> },
+        {
+          element: <RequireAuth />,
+          children: [
+            { path: '/', element: <Navigate to="/campaigns" replace /> },
+            { path: '/campaigns', element: <CampaignsRoute /> },
+            { path: '/campaigns/:campaignId', element: <CampaignRoute /> },
+            { path: '/account', element: <AccountRoute /> },
+            {
+              path: '/admin',
+              element: <RequireAdmin />,
+              children: [
+                { index: true, element: <Navigate to="/admin/users" replace /> },
+                { path: 'users', element: <AdminUsersRoute /> },
+                {
+                  path: 'mail',
+                  element: <AdminMailRoute />,
+                  children: [
+                    { index: true, element: <NoMessageSelected /> },
+                    { path: ':messageId', element: <AdminMailMessageRoute /> },
+                  ],
+                },
+              ],
+            },
+          ],
+        },
+        { path: '*', element: <NotFoundRoute /> },
+      ],
+    },
+  ]);

@@ -1,0 +1,60 @@
+import { Link, useParams } from 'react-router-dom';
+import { Page } from '@/components/layout/page';
+import { Loading } from '@/components/ui/loading';
+import { ErrorNotice } from '@/components/ui/notice';
+import { Panel } from '@/components/ui/panel';
+import { RoleBadge } from '@/components/ui/role-badge';
+import { useCampaign } from '@/features/campaigns/api/get-campaign';
+import { CampaignFacts } from '@/features/campaigns/components/campaign-facts';
+import { CampaignSettingsForm } from '@/features/campaigns/components/campaign-settings-form';
+import { GradeSchemeTable } from '@/features/campaigns/components/grade-scheme-table';
+import { CampaignMembers } from '@/features/members/components/campaign-members';
+import { NotFoundRoute } from './not-found';
+
+const backLink = (
+  <Link to="/campaigns" className="hover:underline">
+    Campaigns
+  </Link>
+);
+
+export function CampaignRoute() {
+  const id = Number(useParams().campaignId);
+  if (!Number.isInteger(id) || id <= 0) return <NotFoundRoute />;
+  return <CampaignOverview id={id} />;
+}
+
+function CampaignOverview({ id }: { id: number }) {
+  const campaign = useCampaign(id);
+
+  if (campaign.isPending) return <Loading label="Loading campaign…" />;
+  if (campaign.isError) {
+    return (
+      <Page title="Campaign unavailable" eyebrow={backLink}>
+        <ErrorNotice error={campaign.error} />
+      </Page>
+    );
+  }
+
+  const c = campaign.data;
+  const isLead = c.myRole === 'lead';
+  return (
+    <Page title={c.name} eyebrow={backLink} actions={c.myRole ? <RoleBadge role={c.myRole} /> : null}>
+      <Panel>
+        <CampaignFacts campaign={c} />
+      </Panel>
+      <div className="grid grid-cols-1 gap-5 xl:grid-cols-2">
+        <Panel>
+          <CampaignMembers campaignId={c.id} isLead={isLead} />
+        </Panel>
+        <Panel>
+          <GradeSchemeTable scheme={c.gradeScheme} />
+        </Panel>
+      </div>
+      {isLead ? (
+        <Panel title="Settings">
+          <CampaignSettingsForm key={c.id} campaign={c} />
+        </Panel>
+      ) : null}
+    </Page>
+  );
+}

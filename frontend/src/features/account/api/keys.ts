@@ -1,0 +1,6 @@
+import { sessionKeys } from '@/lib/session';
+
+/** The account is the signed-in person, so its cache entry is the shared session one. */
+export const accountKeys = {
+  me: sessionKeys.me,
+};

@@ -1,0 +1,5 @@
+import { sessionKeys } from '@/lib/session';
+
+export const authKeys = {
+  me: sessionKeys.me,
+};

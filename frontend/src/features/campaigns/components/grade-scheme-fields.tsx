@@ -1,0 +1,80 @@
+import { useFieldArray } from 'react-hook-form';
+import type { Control, FieldErrors, UseFormRegister } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { controlClass } from '@/components/ui/field';
+import type { SettingsFormValues } from './settings-schema';
+
+interface Props {
+  control: Control<SettingsFormValues, unknown, unknown>;
+  register: UseFormRegister<SettingsFormValues>;
+  errors: FieldErrors<SettingsFormValues>;
+}
+
+/** Editable rows of the grade scheme; exports carry both code and label, so both stay editable. */
+export function GradeSchemeFields({ control, register, errors }: Props) {
+  const { fields, append, remove } = useFieldArray({ control, name: 'gradeScheme' });
+  const schemeError = errors.gradeScheme?.message ?? errors.gradeScheme?.root?.message;
+
+  const addGrade = () => {
+    const codes = fields.map((f) => f.code).filter((c) => Number.isFinite(c));
+    append({ code: codes.length ? Math.max(...codes) + 1 : 0, label: '', meaning: '' }, { shouldFocus: true });
+  };
+
+  return (
+    <fieldset className="flex flex-col gap-2">
+      <legend className="mb-1 text-sm font-medium text-ink-800">Grade scheme</legend>
+      <p className="text-sm text-ink-500">Highest confidence first. Codes and labels must be unique.</p>
+      <div className="grid grid-cols-[5rem_10rem_1fr_auto] gap-x-2 gap-y-1.5" role="group" aria-label="Grades">
+        <span aria-hidden="true" className="text-xs font-semibold uppercase tracking-wide text-ink-500">Code</span>
+        <span aria-hidden="true" className="text-xs font-semibold uppercase tracking-wide text-ink-500">Label</span>
+        <span aria-hidden="true" className="col-span-2 text-xs font-semibold uppercase tracking-wide text-ink-500">Meaning</span>
+        {fields.map((field, i) => {
+          const rowErrors = errors.gradeScheme?.[i];
+          const rowMessage = rowErrors?.code?.message ?? rowErrors?.label?.message ?? rowErrors?.meaning?.message;
+          return (
+            <div key={field.id} className="contents">
+              <input
+                type="number"
+                step={1}
+                aria-label={`Code of grade ${i + 1}`}
+                aria-invalid={rowErrors?.code ? true : undefined}
+                className={`${controlClass} num`}
+                {...register(`gradeScheme.${i}.code`, { valueAsNumber: true })}
+              />
+              <input
+                aria-label={`Label of grade ${i + 1}`}
+                aria-invalid={rowErrors?.label ? true : undefined}
+                className={controlClass}
+                {...register(`gradeScheme.${i}.label`)}
+              />
+              <input
+                aria-label={`Meaning of grade ${i + 1}`}
+                aria-invalid={rowErrors?.meaning ? true : undefined}
+                className={controlClass}
+                {...register(`gradeScheme.${i}.meaning`)}
+              />
+              <Button variant="quiet" size="sm" aria-label={`Remove grade ${i + 1}`} onClick={() => remove(i)}>
+                Remove
+              </Button>
+              {rowMessage ? (
+                <p className="col-span-4 text-sm text-danger-700">
+                  Grade {i + 1}: {rowMessage}
+                </p>
+              ) : null}
+            </div>
+          );
+        })}
+      </div>
+      {schemeError ? (
+        <p role="alert" className="text-sm text-danger-700">
+          {schemeError}
+        </p>
+      ) : null}
+      <div>
+        <Button variant="secondary" size="sm" onClick={addGrade}>
+          Add grade
+        </Button>
+      </div>
+    </fieldset>
+  );
+}

@@ -1,0 +1,4 @@
+export const invitationKeys = {
+  all: () => ['invitations'] as const,
+  detail: (token: string) => [...invitationKeys.all(), token] as const,
+};
