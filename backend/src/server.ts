@@ -1,4 +1,5 @@
 import type { Server } from 'node:http';
+import type { Express } from 'express';
 import type { AddressInfo } from 'node:net';
 import { pino } from 'pino';
 import { createApp } from './app';
@@ -10,20 +11,20 @@ import { createSmtpMailer } from './mail/mailer';
 import type { ServiceContext } from './services/context';
 import { loadSessionSecret } from './session-secret';
 
-export interface RunningServer {
-  url: string;
-  port: number;
+export interface Redward {
+  app: Express;
   ctx: ServiceContext;
   mailCatcher: MailCatcher | null;
   seeded: boolean;
+  /** Stops the mail catcher and closes the mailer and database. */
   close(): Promise<void>;
 }
 
 /**
- * Boots Redward: migrations, demo seed on a new database, the local mail catcher, then the
- * HTTP server. Used by `npm start`, `npm run dev` and the browser tests.
+ * Assembles Redward without listening: migrations, demo seed on a new database, the local
+ * mail catcher and the HTTP application. API tests drive `app` directly.
  */
-export async function startServer(config: Config, now: () => Date = () => new Date()): Promise<RunningServer> {
+export async function createRedward(config: Config, now: () => Date = () => new Date()): Promise<Redward> {
   const logger = pino({ level: config.logLevel });
   const db = openDatabase(config.databasePath);
   const mailCatcher = config.mailCatcher.enabled ? await startMailCatcher(db, config.mailCatcher.port) : null;
@@ -33,26 +34,44 @@ export async function startServer(config: Config, now: () => Date = () => new Da
   const ctx: ServiceContext = { config, db, mailer, logger, now };
   const seeded = config.demo ? await seedDemoIfEmpty(ctx) : false;
   const app = createApp(ctx, loadSessionSecret(config.dataDir, config.sessionSecret));
+  return {
+    app,
+    ctx,
+    mailCatcher,
+    seeded,
+    async close() {
+      await mailCatcher?.close();
+      mailer.close();
+      db.$client.close();
+    },
+  };
+}
 
+export interface RunningServer extends Redward {
+  url: string;
+  port: number;
+}
+
+/** Boots Redward and listens on PORT. Used by `npm start`, `npm run dev` and the browser tests. */
+export async function startServer(config: Config, now: () => Date = () => new Date()): Promise<RunningServer> {
+  const redward = await createRedward(config, now);
   const server: Server = await new Promise((resolve, reject) => {
-    const s = app.listen(config.port, config.host, () => resolve(s));
+    const s = redward.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', (err: NodeJS.ErrnoException) =>
       reject(err.code === 'EADDRINUSE' ? new Error(`Port ${config.port} is in use. Set PORT to a free port.`) : err),
     );
   });
   const port = (server.address() as AddressInfo).port;
   return {
+    ...redward,
     url: `http://localhost:${port}`,
     port,
-    ctx,
-    mailCatcher,
-    seeded,
     async close() {
-      await new Promise<void>((resolve) => server.close(() => resolve()));
-      server.closeAllConnections();
-      await mailCatcher?.close();
-      mailer.close();
-      db.$client.close();
+      await new Promise<void>((resolve) => {
+        server.close(() => resolve());
+        server.closeAllConnections();
+      });
+      await redward.close();
     },
   };
 }

@@ -1,0 +1,55 @@
+import { SpectrumReadError } from '../errors';
+import { angstromsPer, guessAngstromsPer } from '../columnRoles';
+import { num, str, type FitsHeader } from './parseHeader';
+
+/**
+ * Wavelength (Å, as written: air or vacuum) of each pixel along axis 1 of an image HDU, from:
+ * - FITS WCS (Greisen et al. 2006, Paper III): CRVAL1, CDELT1 or CD1_1, CRPIX1, CTYPE1 WAVE/AWAV
+ *   (linear) or WAVE-LOG/AWAV-LOG (λ = CRVAL1·exp(CDELT1·(p − CRPIX1)/CRVAL1)), CUNIT1;
+ * - the older log-linear conventions: DC-FLAG = 1 (CRVAL1/CDELT1 are log10 Å) and COEFF0/COEFF1
+ *   (log10 Å of pixel 0 and step).
+ * Returns undefined when the header carries no dispersion keywords at all.
+ */
+export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number, fallback?: FitsHeader): Float64Array | undefined {
+  const get = (k: string) => num(header, k) ?? (fallback ? num(fallback, k) : undefined);
+  const gets = (k: string) => str(header, k) ?? (fallback ? str(fallback, k) : undefined);
+  const out = new Float64Array(n);
+  const coeff0 = get('COEFF0');
+  const coeff1 = get('COEFF1');
+  if (coeff0 !== undefined && coeff1 !== undefined) {
+    for (let i = 0; i < n; i++) out[i] = 10 ** (coeff0 + coeff1 * i);
+    return out;
+  }
+  const crval = get('CRVAL1');
+  const cdelt = get('CDELT1') ?? get('CD1_1');
+  if (crval === undefined || cdelt === undefined) return undefined;
+  if (cdelt === 0) throw new SpectrumReadError('fits-wcs', `HDU ${hduIndex}: CDELT1/CD1_1 is zero, so pixels have no wavelength step.`);
+  const crpix = get('CRPIX1') ?? 1;
+  const ctype = (gets('CTYPE1') ?? '').trim().toUpperCase();
+  const dcFlag = get('DC-FLAG');
+  const isLog10 = dcFlag === 1 || (ctype === 'LINEAR' && dcFlag === 1);
+  const isWaveLog = ctype.endsWith('-LOG');
+  for (let p = 1; p <= n; p++) {
+    const x = cdelt * (p - crpix);
+    out[p - 1] = isLog10 ? 10 ** (crval + x) : isWaveLog ? crval * Math.exp(x / crval) : crval + x;
+  }
+  const factor = unitFactor(gets('CUNIT1'), gets('WAT1_001'), ctype, out[n >> 1]!);
+  if (factor !== 1) for (let i = 0; i < n; i++) out[i]! *= factor;
+  return out;
+}
+
+function unitFactor(cunit: string | undefined, wat: string | undefined, ctype: string, median: number): number {
+  if (cunit) {
+    const f = angstromsPer(cunit);
+    if (f !== undefined) return f;
+  }
+  const watUnits = wat ? /units=(\S+)/i.exec(wat) : null;
+  if (watUnits) {
+    const f = angstromsPer(watUnits[1]!);
+    if (f !== undefined) return f;
+  }
+  // Paper III makes metres the default unit of WAVE/AWAV, but many writers omit CUNIT1 and
+  // mean Å; trust the magnitude of the numbers instead of the letter of the standard.
+  void ctype;
+  return guessAngstromsPer(Math.abs(median));
+}

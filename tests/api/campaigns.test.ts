@@ -1,0 +1,85 @@
+import { and, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEFAULT_GRADE_SCHEME } from '../../backend/src/contracts/grades';
+import { auditEvents } from '../../backend/src/db/schema';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(() => t.cleanup());
+
+describe('campaigns', () => {
+  it('seeds the demo campaigns with the members each demo account should see', async () => {
+    const observer = await t.signIn('observer@demo.test');
+    const admin = await t.signIn('admin@demo.test');
+    const forObserver = (await observer.get('/api/campaigns')).body.campaigns;
+    const forAdmin = (await admin.get('/api/campaigns')).body.campaigns;
+    expect(forObserver.map((c: { name: string }) => c.name)).toEqual(['Lantern Cluster arcs']);
+    expect(forAdmin.map((c: { name: string; myRole: null }) => [c.name, c.myRole])).toEqual([
+      ['Lantern Cluster arcs', null],
+      ['Tidewater Deep Field dropouts', null],
+    ]);
+    expect(forObserver[0]).toMatchObject({ zMin: 0, zMax: 9, tolerance: 0.003, memberCount: 4, myRole: 'observer' });
+  });
+
+  it('creates a campaign with the PRODUCT.md defaults and makes the creator its lead', async () => {
+    const reader = await t.signIn('reader2@demo.test');
+    const res = await reader.post('/api/campaigns').send({ name: 'Quasar pairs pilot' });
+    expect(res.status).toBe(201);
+    expect(res.body.campaign).toMatchObject({
+      name: 'Quasar pairs pilot',
+      description: '',
+      zMin: 0,
+      zMax: 9,
+      tolerance: 0.003,
+      myRole: 'lead',
+      memberCount: 1,
+      gradeScheme: DEFAULT_GRADE_SCHEME,
+    });
+    expect(res.body.campaign.gradeScheme.map((g: { code: number; label: string }) => `${g.code}:${g.label}`)).toEqual([
+      '4:firm',
+      '3:probable',
+      '2:tentative',
+      '1:undetermined',
+      '0:unusable',
+    ]);
+  });
+
+  it('records each settings change with the values before and after', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.patch('/api/campaigns/2').send({ zMin: 3.5, tolerance: 0.002 });
+    expect(res.status).toBe(200);
+    expect(res.body.campaign).toMatchObject({ zMin: 3.5, zMax: 9, tolerance: 0.002 });
+    const event = t.ctx.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.campaignId, 2), eq(auditEvents.action, 'campaign.updated')))
+      .get()!;
+    expect(event.before).toEqual({ zMin: 0, tolerance: 0.005 });
+    expect(event.after).toEqual({ zMin: 3.5, tolerance: 0.002 });
+  });
+
+  it('refuses a change that would invert the stored redshift range', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.patch('/api/campaigns/2').send({ zMax: 2 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toBe('The lowest redshift (3.5) must be below the highest (2).');
+  });
+
+  it('lets a lead rename and extend the grade scheme', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const scheme = [...DEFAULT_GRADE_SCHEME, { code: 9, label: 'star contaminant', meaning: 'A Milky Way cool dwarf.' }];
+    const res = await lead.patch('/api/campaigns/1').send({ gradeScheme: scheme });
+    expect(res.status).toBe(200);
+    expect(res.body.campaign.gradeScheme).toHaveLength(6);
+  });
+
+  it('answers 404 for a campaign that does not exist', async () => {
+    const admin = await t.signIn('admin@demo.test');
+    const res = await admin.get('/api/campaigns/999');
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('campaign_not_found');
+  });
+});

@@ -1,0 +1,143 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Router } from 'express';
+import request from 'supertest';
+import { createTestApp, TEST_ORIGIN, type TestApp } from '../helpers/test-app';
+
+type Who = 'anonymous' | 'observer' | 'reader' | 'lead' | 'admin';
+const WHO: Who[] = ['anonymous', 'observer', 'reader', 'lead', 'admin'];
+const EMAIL: Record<Exclude<Who, 'anonymous'>, string> = {
+  observer: 'observer@demo.test',
+  reader: 'reader1@demo.test',
+  lead: 'lead@demo.test',
+  admin: 'admin@demo.test',
+};
+
+interface Case {
+  method: 'get' | 'post' | 'patch';
+  /** The route pattern as registered; `url` fills in the parameters. */
+  route: string;
+  url: string;
+  body?: () => object;
+  expect: Record<Who, number>;
+}
+
+const all = (status: number) => ({ anonymous: status, observer: status, reader: status, lead: status, admin: status });
+const signedIn = (status: number) => ({ ...all(status), anonymous: 401 });
+const leadOnly = (ok: number) => ({ anonymous: 401, observer: 403, reader: 403, lead: ok, admin: 403 });
+const adminOnly = (ok: number) => ({ anonymous: 401, observer: 403, reader: 403, lead: 403, admin: ok });
+let unique = 0;
+
+// Campaign 1 (Lantern Cluster arcs) has all four demo members; campaign 2 has no observer.
+const CASES: Case[] = [
+  { method: 'get', route: '/health', url: '/api/health', expect: all(200) },
+  { method: 'post', route: '/auth/login', url: '/api/auth/login', body: () => ({ email: 'nobody@demo.test', password: 'wrong' }), expect: all(401) },
+  { method: 'get', route: '/auth/me', url: '/api/auth/me', expect: signedIn(200) },
+  { method: 'patch', route: '/account', url: '/api/account', body: () => ({ name: 'Renamed Person' }), expect: signedIn(200) },
+  // A wrong current password: the route is reachable (400), never silently accepted.
+  { method: 'post', route: '/account/password', url: '/api/account/password', body: () => ({ currentPassword: 'not-it', newPassword: 'a-brand-new-passphrase' }), expect: signedIn(400) },
+  { method: 'get', route: '/campaigns', url: '/api/campaigns', expect: signedIn(200) },
+  { method: 'post', route: '/campaigns', url: '/api/campaigns', body: () => ({ name: `Matrix campaign ${++unique}` }), expect: signedIn(201) },
+  { method: 'get', route: '/campaigns/:id', url: '/api/campaigns/1', expect: signedIn(200) },
+  { method: 'get', route: '/campaigns/:id', url: '/api/campaigns/2', expect: { anonymous: 401, observer: 404, reader: 200, lead: 200, admin: 200 } },
+  // A reader (and an observer) trying to change campaign settings.
+  { method: 'patch', route: '/campaigns/:id', url: '/api/campaigns/1', body: () => ({ tolerance: 0.004 }), expect: leadOnly(200) },
+  { method: 'get', route: '/campaigns/:id/members', url: '/api/campaigns/1/members', expect: signedIn(200) },
+  // An observer (and a reader) trying to invite.
+  { method: 'post', route: '/campaigns/:id/members', url: '/api/campaigns/1/members', body: () => ({ email: `matrix${++unique}@example.org`, role: 'reader' }), expect: leadOnly(201) },
+  { method: 'get', route: '/invitations/:token', url: '/api/invitations/not-a-real-token', expect: all(404) },
+  { method: 'post', route: '/invitations/:token/accept', url: '/api/invitations/not-a-real-token/accept', body: () => ({}), expect: all(404) },
+  { method: 'get', route: '/admin/users', url: '/api/admin/users', expect: adminOnly(200) },
+  { method: 'patch', route: '/admin/users/:userId', url: '/api/admin/users/5', body: () => ({ disabled: false }), expect: adminOnly(200) },
+  { method: 'get', route: '/admin/mail', url: '/api/admin/mail', expect: adminOnly(200) },
+  { method: 'get', route: '/admin/mail/:mailId', url: '/api/admin/mail/999', expect: adminOnly(404) },
+  { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
+];
+
+let t: TestApp;
+const agents = new Map<Who, ReturnType<TestApp['agent']>>();
+
+beforeAll(async () => {
+  t = await createTestApp();
+  agents.set('anonymous', t.agent());
+  for (const who of WHO) if (who !== 'anonymous') agents.set(who, await t.signIn(EMAIL[who]));
+});
+afterAll(() => t.cleanup());
+
+describe('role matrix: every route × every role', () => {
+  for (const c of CASES) {
+    for (const who of WHO) {
+      it(`${c.method.toUpperCase()} ${c.url} as ${who} → ${c.expect[who]}`, async () => {
+        // Logging out ends the agent's session, so use a fresh sign-in for that case.
+        const agent = c.route === '/auth/logout' && who !== 'anonymous' ? await t.signIn(EMAIL[who]) : agents.get(who)!;
+        let req = agent[c.method](c.url);
+        if (c.body) req = req.send(c.body());
+        const res = await req;
+        expect(res.status, JSON.stringify(res.body)).toBe(c.expect[who]);
+        if (res.status >= 400) {
+          expect(res.body.error.code).toMatch(/^[a-z_]+$/);
+          expect(res.body.error.message.length).toBeGreaterThan(5);
+        }
+      });
+    }
+  }
+
+  it('covers every API route the application registers', () => {
+    const registered = collectRoutes(apiRouter(t)).map((r) => `${r.method} ${r.path}`);
+    const covered = new Set(CASES.map((c) => `${c.method} ${c.route}`));
+    expect(registered.length).toBeGreaterThan(10);
+    expect(registered.filter((r) => !covered.has(r))).toEqual([]);
+  });
+
+  it('hides a campaign from a signed-in non-member (404, not 403)', async () => {
+    const res = await agents.get('observer')!.get('/api/campaigns/2/members');
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('campaign_not_found');
+  });
+});
+
+describe('cross-site requests', () => {
+  it('refuses a cookie-authenticated change from another origin', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.patch('/api/campaigns/1').set('Origin', 'https://evil.example').send({ tolerance: 0.01 });
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('csrf_rejected');
+    const unchanged = await lead.get('/api/campaigns/1');
+    expect(unchanged.body.campaign.tolerance).not.toBe(0.01);
+  });
+
+  it('accepts our own origin', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.patch('/api/campaigns/1').set('Origin', TEST_ORIGIN).send({ description: 'Updated by the lead.' });
+    expect(res.status).toBe(200);
+    expect(res.body.campaign.description).toBe('Updated by the lead.');
+  });
+
+  it('does not need an Origin for requests without a session cookie', async () => {
+    const res = await request(t.app).post('/api/auth/login').send({ email: 'lead@demo.test', password: 'redward-demo' });
+    expect(res.status).toBe(200);
+  });
+});
+
+interface Layer {
+  route?: { path: string; methods: Record<string, boolean> };
+  handle: { stack?: Layer[] };
+  name?: string;
+}
+
+function apiRouter(app: TestApp): Router {
+  const stack = (app.app as unknown as { router: { stack: Layer[] } }).router.stack;
+  const layer = stack.find((l) => l.handle.stack && l.handle.stack.some((s) => s.handle.stack));
+  return layer!.handle as unknown as Router;
+}
+
+function collectRoutes(router: Router): { method: string; path: string }[] {
+  const out: { method: string; path: string }[] = [];
+  for (const layer of (router as unknown as { stack: Layer[] }).stack) {
+    if (layer.route) {
+      for (const m of Object.keys(layer.route.methods)) out.push({ method: m, path: layer.route.path });
+    } else if (layer.handle.stack) {
+      out.push(...collectRoutes(layer.handle as unknown as Router));
+    }
+  }
+  return out;
+}
