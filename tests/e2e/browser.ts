@@ -1,0 +1,59 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { chromium, type Browser } from 'playwright-core';
+import { loadConfig } from '../../backend/src/config';
+import { startServer, type RunningServer } from '../../backend/src/server';
+
+export const CHROMIUM_PATH = '/usr/bin/chromium';
+
+/** Debian's Chromium, headless; the flags keep it from reaching out to the (closed) network. */
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update'],
+  });
+}
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const { port } = probe.address() as { port: number };
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
+export interface E2eServer extends RunningServer {
+  cleanup(): Promise<void>;
+}
+
+/**
+ * A real Redward on a free port with a fresh data folder and demo data. PUBLIC_URL must be
+ * known before boot so the links in invitation e-mails point at this server.
+ */
+export async function startE2eServer(): Promise<E2eServer> {
+  const dataDir = mkdtempSync(path.join(tmpdir(), 'redward-e2e-'));
+  const port = await freePort();
+  const server = await startServer(
+    loadConfig({
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      PUBLIC_URL: `http://localhost:${port}`,
+      MAIL_CATCHER_PORT: '0',
+      LOG_LEVEL: 'silent',
+    }),
+  );
+  return {
+    ...server,
+    async cleanup() {
+      await server.close();
+      rmSync(dataDir, { recursive: true, force: true });
+    },
+  };
+}
