@@ -1,3 +1,4 @@
+import { mkdirSync } from 'node:fs';
 import type { Server } from 'node:http';
 import type { Express } from 'express';
 import type { AddressInfo } from 'node:net';
@@ -26,6 +27,7 @@ export interface Redward {
  */
 export async function createRedward(config: Config, now: () => Date = () => new Date()): Promise<Redward> {
   const logger = pino({ level: config.logLevel });
+  mkdirSync(config.uploadsDir, { recursive: true });
   const db = openDatabase(config.databasePath);
   const mailCatcher = config.mailCatcher.enabled ? await startMailCatcher(db, config.mailCatcher.port) : null;
   // When the catcher took an ephemeral port (MAIL_CATCHER_PORT=0), send to where it listens.
