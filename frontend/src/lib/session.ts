@@ -13,5 +13,5 @@ export function safeNextPath(next: string | null | undefined, fallback = '/campa
 }
 
 export function signInPath(next: string): string {
-  return `/sign-in?next=${encodeURIComponent(next)}`;
+  return next === '/' ? '/sign-in' : `/sign-in?next=${encodeURIComponent(next)}`;
 }

@@ -3,6 +3,7 @@ import { Button } from '@/components/ui/button';
 import { ErrorNotice } from '@/components/ui/notice';
 import { useMe } from '@/features/auth/api/get-me';
 import { useSignOut } from '@/features/auth/api/sign-out';
+import { signInPath } from '@/lib/session';
 import { Brand } from './brand';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
@@ -53,7 +54,7 @@ export function TopBar() {
               </Button>
             </>
           ) : location.pathname !== '/sign-in' && !me.isPending ? (
-            <Link to="/sign-in" className="text-base text-paper-100 hover:underline">
+            <Link to={signInPath(location.pathname + location.search)} className="text-base text-paper-100 hover:underline">
               Sign in
             </Link>
           ) : null}

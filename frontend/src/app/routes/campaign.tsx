@@ -42,14 +42,12 @@ function CampaignOverview({ id }: { id: number }) {
       <Panel>
         <CampaignFacts campaign={c} />
       </Panel>
-      <div className="grid grid-cols-1 gap-5 xl:grid-cols-2">
-        <Panel>
-          <CampaignMembers campaignId={c.id} isLead={isLead} />
-        </Panel>
-        <Panel>
-          <GradeSchemeTable scheme={c.gradeScheme} />
-        </Panel>
-      </div>
+      <Panel>
+        <CampaignMembers campaignId={c.id} isLead={isLead} />
+      </Panel>
+      <Panel>
+        <GradeSchemeTable scheme={c.gradeScheme} />
+      </Panel>
       {isLead ? (
         <Panel title="Settings">
           <CampaignSettingsForm key={c.id} campaign={c} />

@@ -5,7 +5,7 @@ import { z } from 'zod';
 import { api } from '@/lib/api-client';
 import { adminKeys } from './keys';
 
-const updateUserResponseSchema = z.object({ user: adminUserSchema.partial().extend({ id: z.number().int() }) });
+const updateUserResponseSchema = z.object({ user: adminUserSchema });
 
 export const updateUser = (id: number, body: UpdateUserRequest) =>
   api.patch(`/api/admin/users/${id}`, body, updateUserResponseSchema);

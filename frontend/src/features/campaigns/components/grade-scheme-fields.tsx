@@ -12,7 +12,7 @@ interface Props {
 
 /** Editable rows of the grade scheme; exports carry both code and label, so both stay editable. */
 export function GradeSchemeFields({ control, register, errors }: Props) {
-  const { fields, append, remove } = useFieldArray({ control, name: 'gradeScheme' });
+  const { fields, append, remove, move } = useFieldArray({ control, name: 'gradeScheme' });
   const schemeError = errors.gradeScheme?.message ?? errors.gradeScheme?.root?.message;
 
   const addGrade = () => {
@@ -53,9 +53,18 @@ export function GradeSchemeFields({ control, register, errors }: Props) {
                 className={controlClass}
                 {...register(`gradeScheme.${i}.meaning`)}
               />
-              <Button variant="quiet" size="sm" aria-label={`Remove grade ${i + 1}`} onClick={() => remove(i)}>
-                Remove
-              </Button>
+              {/* Order is meaningful: "one step apart" in a disagreement is counted along this list. */}
+              <div className="flex items-center gap-0.5">
+                <Button variant="quiet" size="sm" aria-label={`Move grade ${i + 1} up`} disabled={i === 0} onClick={() => move(i, i - 1)}>
+                  ↑
+                </Button>
+                <Button variant="quiet" size="sm" aria-label={`Move grade ${i + 1} down`} disabled={i === fields.length - 1} onClick={() => move(i, i + 1)}>
+                  ↓
+                </Button>
+                <Button variant="quiet" size="sm" aria-label={`Remove grade ${i + 1}`} onClick={() => remove(i)}>
+                  Remove
+                </Button>
+              </div>
               {rowMessage ? (
                 <p className="col-span-4 text-sm text-danger-700">
                   Grade {i + 1}: {rowMessage}

@@ -16,7 +16,8 @@ export const settingsFormSchema = z
     zMin: number(),
     zMax: number(),
     tolerance: number(),
-    gradeScheme: z.array(z.object({ code: number(), label: z.string(), meaning: z.string() })),
+    // Friendlier wording than the contract's generic length message for the common slip.
+    gradeScheme: z.array(z.object({ code: number(), label: z.string().trim().min(1, 'Give the grade a label.'), meaning: z.string() })),
   })
   .transform((values, ctx) => {
     const checked = updateCampaignRequestSchema.safeParse(values);

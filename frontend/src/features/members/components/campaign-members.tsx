@@ -19,15 +19,15 @@ export function CampaignMembers({ campaignId, isLead }: { campaignId: number; is
         <MembersTable members={members.data.members} />
       )}
       {isLead ? (
-        <>
-          <section aria-labelledby="invite-heading" className="flex flex-col gap-2 border-t border-paper-200 pt-4">
+        <div className="grid grid-cols-1 gap-5 border-t border-paper-200 pt-4 lg:grid-cols-2">
+          <section aria-labelledby="invite-heading" className="flex flex-col gap-2">
             <h3 id="invite-heading" className="text-md font-semibold">
               Invite a colleague
             </h3>
             <InviteForm campaignId={campaignId} />
           </section>
-          {members.data ? <PendingInvitations invitations={members.data.invitations} /> : null}
-        </>
+          <div className="min-w-0">{members.data ? <PendingInvitations invitations={members.data.invitations} /> : null}</div>
+        </div>
       ) : null}
     </div>
   );

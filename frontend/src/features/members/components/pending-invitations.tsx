@@ -5,7 +5,12 @@ import { formatDateTime } from '@/lib/format';
 
 export function PendingInvitations({ invitations }: { invitations: PendingInvitation[] }) {
   if (invitations.length === 0) {
-    return <p className="text-ink-500">No pending invitations.</p>;
+    return (
+      <div>
+        <h3 className="mb-2 text-md font-semibold text-ink-900">Pending invitations</h3>
+        <p className="text-ink-500">None. An invitation waits here until it is accepted or expires.</p>
+      </div>
+    );
   }
   return (
     <Table caption="Pending invitations">
