@@ -1,4 +1,5 @@
 import { Outlet } from 'react-router-dom';
+import { Footer } from './footer';
 import { TopBar } from './top-bar';
 
 export function RootLayout() {
@@ -11,6 +12,7 @@ export function RootLayout() {
       <main id="main" tabIndex={-1} className="flex-1 outline-none">
         <Outlet />
       </main>
+      <Footer />
     </div>
   );
 }

@@ -12,6 +12,7 @@ export function SignInRoute() {
 
   return (
     <div className="mx-auto flex w-full max-w-sm flex-col gap-5 px-5 py-12">
+      <title>Sign in · Redward</title>
       <div>
         <h1 className="text-xl font-semibold text-ink-950">Sign in to Redward</h1>
         <p className="mt-1 text-ink-600">From reduced spectra to confirmed redshifts, read twice.</p>

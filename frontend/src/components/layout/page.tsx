@@ -16,6 +16,8 @@ export function Page({
 }) {
   return (
     <div className="mx-auto flex w-full max-w-6xl flex-col gap-5 px-5 py-6">
+      {/* React hoists <title> into <head>; tabs and history entries then say which page they are. */}
+      {typeof title === 'string' ? <title>{`${title} · Redward`}</title> : null}
       <header className="flex flex-wrap items-end justify-between gap-3 border-b border-paper-300 pb-3">
         <div className="min-w-0">
           {eyebrow ? <div className="mb-0.5 text-sm text-ink-500">{eyebrow}</div> : null}
