@@ -7,7 +7,7 @@ import { signInPath } from '@/lib/session';
 import { Brand } from './brand';
 
 const navClass = ({ isActive }: { isActive: boolean }) =>
-  `rounded-control px-2.5 py-1 text-base ${isActive ? 'bg-ink-800 text-paper-50 shadow-[inset_0_-2px_0_var(--color-ember-500)]' : 'text-ink-300 hover:bg-ink-800 hover:text-paper-50'}`;
+  `whitespace-nowrap rounded-control px-2.5 py-1 text-base ${isActive ? 'bg-ink-800 text-paper-50 shadow-[inset_0_-2px_0_var(--color-ember-500)]' : 'text-ink-300 hover:bg-ink-800 hover:text-paper-50'}`;
 
 export function TopBar() {
   const me = useMe();
@@ -23,7 +23,7 @@ export function TopBar() {
 
   return (
     <header className="bg-ink-950 text-paper-100">
-      <div className="mx-auto flex h-12 max-w-6xl items-center gap-6 px-5">
+      <div className="mx-auto flex min-h-12 max-w-6xl flex-wrap items-center gap-x-6 gap-y-1 px-5 py-1.5">
         <Brand />
         {user ? (
           <nav aria-label="Main" className="flex items-center gap-1">
@@ -45,7 +45,7 @@ export function TopBar() {
         <div className="ml-auto flex items-center gap-3">
           {user ? (
             <>
-              <Link to="/account" className="rounded-control px-1 text-base text-paper-100 hover:underline" title={user.email}>
+              <Link to="/account" className="whitespace-nowrap rounded-control px-1 text-base text-paper-100 hover:underline" title={user.email}>
                 {user.name}
                 {user.isAdmin ? <span className="ml-1.5 text-xs uppercase tracking-wide text-ember-400">admin</span> : null}
               </Link>

@@ -16,11 +16,11 @@ export function CampaignFacts({ campaign }: { campaign: Campaign }) {
       ) : (
         <p className="text-ink-500">No description.</p>
       )}
-      <dl className="grid grid-cols-2 gap-x-6 gap-y-2 sm:grid-cols-4">
+      <dl className="grid grid-cols-1 gap-x-6 gap-y-2 min-[480px]:grid-cols-2 md:grid-cols-4">
         {facts.map((f) => (
           <div key={f.term} className="flex flex-col">
             <dt className="text-xs font-semibold uppercase tracking-wide text-ink-500">{f.term}</dt>
-            <dd className={`text-md text-ink-900 ${f.mono ? 'num' : ''}`}>{f.value}</dd>
+            <dd className={`text-md whitespace-nowrap text-ink-900 ${f.mono ? 'num' : ''}`}>{f.value}</dd>
           </div>
         ))}
       </dl>
