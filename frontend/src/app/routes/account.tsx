@@ -8,7 +8,7 @@ export function AccountRoute() {
   const user = useCurrentUser();
   return (
     <Page title="Account" subtitle={<>Signed in as <span className="font-medium text-ink-900">{user.email}</span></>}>
-      <div className="grid max-w-4xl grid-cols-1 gap-5 md:grid-cols-2">
+      <div className="grid max-w-4xl grid-cols-1 items-start gap-5 md:grid-cols-2">
         <Panel title="Name">
           <p className="mb-3 text-sm text-ink-500">Shown to your collaborators on readings and in invitations.</p>
           <NameForm currentName={user.name} />

@@ -8,7 +8,7 @@ export function CampaignsRoute() {
   const navigate = useNavigate();
   return (
     <Page title="Campaigns" subtitle="Follow-up programmes you lead, read for or observe.">
-      <div className="grid grid-cols-1 gap-5 lg:grid-cols-[1fr_22rem]">
+      <div className="grid grid-cols-1 items-start gap-5 lg:grid-cols-[1fr_22rem]">
         <div className="min-w-0">
           <CampaignList />
         </div>
