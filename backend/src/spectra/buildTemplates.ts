@@ -1,0 +1,222 @@
+import { highPass } from './highPass';
+import { igmTransmission } from './igmTransmission';
+import { LINES, type SpectralLine } from './lineList';
+import { C_KMS } from './logGrid';
+import { TEMPLATE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type TemplateRecipe } from './templateRecipes';
+import type { TemplateClass } from './types';
+
+/** Rest-frame range every template covers, Å: wide enough for 0 ≤ z ≤ 9 on optical–K-band data. */
+const REST_MIN_A = 300;
+const REST_MAX_A = 32000;
+const LY_ALPHA = 1215.67;
+/** Redshift bins inside which the Madau transmission is evaluated at one z (the bin centre). */
+const IGM_BIN_EDGES = [-0.01, 2.2, 3.2, 4.2, 5.2, 6.2, 7.2, 9.6];
+
+/** One basis vector of a template: a rest-frame array on the global log grid, continuum removed. */
+export interface TemplateBasis {
+  label: string;
+  values: Float64Array;
+}
+
+/** A redshift interval over which a fixed set of basis vectors is fitted. */
+export interface TemplateBin {
+  zLo: number;
+  zHi: number;
+  basis: number[];
+}
+
+export interface BuiltTemplate {
+  id: string;
+  class: TemplateClass;
+  zMin: number;
+  zMax: number;
+  basis: TemplateBasis[];
+  bins: TemplateBin[];
+  /** Lines the recipe uses, for reporting which features support a solution. */
+  lines: SpectralLine[];
+}
+
+/** All templates on one grid: global index of element 0 is `h0`. */
+export interface TemplateSet {
+  step: number;
+  h0: number;
+  length: number;
+  continuumWidthPx: number;
+  instrumentSigmaPx: number;
+  templates: BuiltTemplate[];
+  /** FFTs of template slices, reused across spectra with the same grid layout. */
+  fftCache: Map<string, Float64Array>;
+}
+
+/**
+ * Builds every template of line-lists/templates.json on the log grid of the given step, smoothed
+ * to the instrument σ (grid pixels) and filtered with the same continuum-removing running mean as
+ * the data. Call once per (step, resolution, filter width) and reuse.
+ */
+export function buildTemplates(step: number, instrumentSigmaPx: number, continuumWidthPx: number): TemplateSet {
+  const h0 = Math.floor(Math.log10(REST_MIN_A) / step);
+  const length = Math.ceil(Math.log10(REST_MAX_A) / step) - h0 + 1;
+  const lambda = new Float64Array(length);
+  for (let j = 0; j < length; j++) lambda[j] = 10 ** ((h0 + j) * step);
+  const templates = TEMPLATE_RECIPES.map((r) => buildOne(r, lambda, step, instrumentSigmaPx, continuumWidthPx));
+  return { step, h0, length, continuumWidthPx, instrumentSigmaPx, templates, fftCache: new Map() };
+}
+
+function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, sigmaPx: number, widthPx: number): BuiltTemplate {
+  const staticBasis: TemplateBasis[] = [];
+  const binned: Array<{ label: string; rest: Float64Array }> = [];
+  const used = new Set<SpectralLine>();
+  for (const comp of recipe.components) {
+    const lines = selectLines(recipe.strengthKey ?? recipe.id, comp);
+    lines.forEach((l) => used.add(l));
+    const rest = componentSpectrum(recipe, comp, lines, lambda, step);
+    if (comp.igm === 'red-only') {
+      staticBasis.push({ label: `${comp.name} (red of Lyα)`, values: finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
+    } else if (comp.igm === 'madau1995') {
+      // The attenuated blue side stays tied to the red side (one amplitude): fitted separately it
+      // would become a free narrow feature at Lyα at high z, where the forest is nearly black.
+      binned.push({ label: comp.name, rest });
+    } else {
+      staticBasis.push({ label: comp.name, values: finish(rest, sigmaPx, widthPx) });
+    }
+  }
+  const basis = [...staticBasis];
+  const staticIdx = staticBasis.map((_, i) => i);
+  const bins: TemplateBin[] = [];
+  if (binned.length === 0) {
+    bins.push({ zLo: recipe.zMin, zHi: recipe.zMax, basis: staticIdx });
+  } else {
+    for (let b = 0; b + 1 < IGM_BIN_EDGES.length; b++) {
+      const zLo = Math.max(recipe.zMin, IGM_BIN_EDGES[b]!);
+      const zHi = Math.min(recipe.zMax, IGM_BIN_EDGES[b + 1]!);
+      if (zHi <= zLo) continue;
+      const zc = Math.sqrt((1 + zLo) * (1 + zHi)) - 1;
+      const idx = [...staticIdx];
+      for (const f of binned) {
+        const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * igmTransmission(lambda[j]! * (1 + zc), zc)));
+        idx.push(basis.length);
+        basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, values: finish(attenuated, sigmaPx, widthPx) });
+      }
+      bins.push({ zLo, zHi, basis: idx });
+    }
+  }
+  return {
+    id: recipe.id,
+    class: recipe.class,
+    zMin: recipe.zMin,
+    zMax: recipe.zMax,
+    basis,
+    bins,
+    lines: [...used].sort((a, b) => a.rest - b.rest),
+  };
+}
+
+function selectLines(recipeId: string, comp: ComponentRecipe): SpectralLine[] {
+  return LINES.filter(
+    (l) =>
+      (l.strength[recipeId] ?? 0) > 0 &&
+      comp.select.kind.includes(l.kind) &&
+      (!comp.select.species || comp.select.species.includes(l.species)) &&
+      (!comp.select.names || comp.select.names.includes(l.name)),
+  );
+}
+
+function continuumAt(c: ContinuumRecipe | undefined, lam: number): number {
+  if (!c) return 0;
+  switch (c.shape) {
+    case 'power-law':
+      return (lam / 1500) ** c.slope;
+    case 'blackbody':
+      return planck(lam, c.temperatureK) / planck(5000, c.temperatureK);
+    case 'old-stellar': {
+      // D4000 ≈ 1.8 break (Balogh et al. 1999 definition, from memory) and a steep UV fall-off.
+      const breakFactor = 0.55 + 0.45 / (1 + Math.exp(-(lam - 4000) / 25));
+      const uv = lam < 2900 ? (lam / 2900) ** 3 : 1;
+      return (planck(lam, 5200) / planck(5000, 5200)) * breakFactor * uv;
+    }
+  }
+}
+
+/** Planck f_λ shape (arbitrary scale), λ in Å. */
+function planck(lamA: number, tK: number): number {
+  const x = 1.4387769e8 / (lamA * tK);
+  return x > 700 ? 0 : 1 / (lamA ** 5 * Math.expm1(x));
+}
+
+function componentSpectrum(recipe: TemplateRecipe, comp: ComponentRecipe, lines: SpectralLine[], lambda: Float64Array, step: number): Float64Array {
+  const n = lambda.length;
+  const out = new Float64Array(n);
+  for (let j = 0; j < n; j++) out[j] = continuumAt(comp.continuum, lambda[j]!);
+  const sigmaLogLine = recipe.sigmaKms / C_KMS / Math.LN10;
+  const logStart = Math.log10(lambda[0]!);
+  const absorb = new Float64Array(n).fill(1);
+  for (const line of lines) {
+    const strength = line.strength[recipe.strengthKey ?? recipe.id]!;
+    const kind = comp.as ?? line.kind;
+    const logC = Math.log10(line.rest);
+    const centre = (logC - logStart) / step;
+    if (kind === 'band') {
+      const w = line.widthA ?? 100;
+      if (line.profile === 'broad') {
+        const sig = w / 2.355 / (line.rest * Math.LN10) / step;
+        applyGaussian(absorb, centre, sig, -strength, true);
+      } else {
+        for (let j = Math.max(0, Math.floor(centre)); j < n && lambda[j]! <= line.rest + w; j++) {
+          absorb[j]! *= 1 - strength * (1 - (lambda[j]! - line.rest) / w);
+        }
+      }
+    } else if (kind === 'absorption') {
+      const sigLog = Math.max(sigmaLogLine, (line.widthA ?? 0) / 2.355 / (line.rest * Math.LN10));
+      applyGaussian(absorb, centre, sigLog / step, -strength, true);
+    } else if (kind === 'emission') {
+      const sigPx = sigmaLogLine / step;
+      const sigA = sigmaLogLine * Math.LN10 * line.rest;
+      const area = comp.continuum ? strength * (recipe.emissionEwA ?? 50) * continuumAt(comp.continuum, line.rest) : strength;
+      applyGaussian(out, centre, sigPx, area / (sigA * Math.sqrt(2 * Math.PI)), false);
+    }
+  }
+  if (comp.continuum) for (let j = 0; j < n; j++) out[j]! *= absorb[j]!;
+  return out;
+}
+
+/** Adds (or, multiplicatively, applies 1 + peak·g) a Gaussian of σ pixels centred at `centre`. */
+function applyGaussian(arr: Float64Array, centre: number, sigmaPx: number, peak: number, multiplicative: boolean): void {
+  const s = Math.max(sigmaPx, 0.3);
+  const lo = Math.max(0, Math.floor(centre - 5 * s));
+  const hi = Math.min(arr.length - 1, Math.ceil(centre + 5 * s));
+  for (let j = lo; j <= hi; j++) {
+    const g = Math.exp(-0.5 * ((j - centre) / s) ** 2);
+    if (multiplicative) arr[j]! *= 1 + peak * g;
+    else arr[j]! += peak * g;
+  }
+}
+
+/** Instrument smoothing, continuum removal, and unit scale (max |value| = 1). */
+function finish(values: Float64Array, sigmaPx: number, widthPx: number): Float64Array {
+  const smoothed = gaussianSmooth(values, sigmaPx);
+  const filtered = highPass(smoothed, widthPx);
+  let max = 0;
+  for (const v of filtered) max = Math.max(max, Math.abs(v));
+  if (max > 0) for (let j = 0; j < filtered.length; j++) filtered[j]! /= max;
+  return filtered;
+}
+
+function gaussianSmooth(values: Float64Array, sigmaPx: number): Float64Array {
+  if (sigmaPx < 0.5) return values;
+  const half = Math.ceil(4 * sigmaPx);
+  const kernel = new Float64Array(2 * half + 1);
+  let sum = 0;
+  for (let k = -half; k <= half; k++) sum += kernel[k + half] = Math.exp(-0.5 * (k / sigmaPx) ** 2);
+  for (let k = 0; k < kernel.length; k++) kernel[k]! /= sum;
+  const n = values.length;
+  const out = new Float64Array(n);
+  for (let j = 0; j < n; j++) {
+    let acc = 0;
+    for (let k = -half; k <= half; k++) {
+      const idx = Math.min(n - 1, Math.max(0, j + k));
+      acc += kernel[k + half]! * values[idx]!;
+    }
+    out[j] = acc;
+  }
+  return out;
+}

@@ -1,0 +1,112 @@
+import { highPass } from './highPass';
+import { DEFAULT_LOG_STEP } from './logGrid';
+import { resampleToLogGrid } from './resampleToLogGrid';
+import { toVacuum } from './toVacuum';
+import type { Medium, Spectrum } from './types';
+
+/** How a spectrum is cleaned and put on the log grid before a scan. */
+export interface PrepareOptions {
+  /** log10 step of the grid, dex (default 1e-4 ≈ 69 km/s). */
+  step?: number;
+  /** Override of the file's air/vacuum statement. */
+  medium?: Medium;
+  /** Mask the brightest night-sky lines ([O I] 5577, 6300, 6364; Na D), default true. */
+  maskSkyLines?: boolean;
+  /** Mask the telluric O₂ A and B bands, default false. */
+  maskTelluric?: boolean;
+  /** Width of the continuum-removing running mean, dex (default 0.03 ≈ 21,000 km/s). */
+  continuumWidthDex?: number;
+}
+
+/** A spectrum ready for the scan: vacuum, masked, on the global log grid, continuum removed. */
+export interface PreparedSpectrum {
+  step: number;
+  /** Global grid index of pixel 0. */
+  g0: number;
+  n: number;
+  /** Continuum-removed flux. */
+  flux: Float64Array;
+  /** Flux on the grid before continuum removal. */
+  gridFlux: Float64Array;
+  /** Inverse variance per pixel (0 = unused). */
+  ivar: Float64Array;
+  /** Width of the continuum filter, pixels. */
+  continuumWidthPx: number;
+  /** Instrumental Gaussian σ in grid pixels, estimated from the native sampling. */
+  instrumentSigmaPx: number;
+  medium: Medium;
+  /** Vacuum wavelength range covered by usable pixels, Å. */
+  wavelengthMin: number;
+  wavelengthMax: number;
+  /** Median of |flux|·√ivar over usable pixels of the input. */
+  snrMedian: number;
+  /** Which masks were applied, for display. */
+  masks: string[];
+}
+
+/** Bright night-sky emission, vacuum Å (reference-values.md §6: [O I] 5577.339/6300.304/6363.776 air, Na D). */
+const SKY_LINES_VAC = [5578.887, 5891.583, 5897.558, 6302.046, 6365.536];
+const SKY_HALF_WIDTH_A = 5;
+/** Telluric O₂ bands (commonly masked ranges, reference-values.md §6, M), converted to vacuum. */
+const TELLURIC_AIR: ReadonlyArray<readonly [number, number]> = [[6860, 6925], [7590, 7700]];
+
+/**
+ * Cleans a spectrum for scanning: converts wavelengths to vacuum (IAU/Morton 2000) unless they
+ * already are, masks sky lines and telluric bands on request, resamples to the log10 grid
+ * conserving flux, and removes the continuum with a wide running mean.
+ */
+export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}): PreparedSpectrum {
+  const step = options.step ?? DEFAULT_LOG_STEP;
+  const medium = options.medium ?? spectrum.meta.medium;
+  const n = spectrum.wavelength.length;
+  const vac = medium === 'air' ? Float64Array.from(spectrum.wavelength, toVacuum) : spectrum.wavelength;
+  const ivar = Float64Array.from(spectrum.ivar);
+  const masks: string[] = [];
+  const maskRange = (lo: number, hi: number) => {
+    for (let i = 0; i < n; i++) if (vac[i]! >= lo && vac[i]! <= hi) ivar[i] = 0;
+  };
+  if (options.maskSkyLines ?? true) {
+    for (const l of SKY_LINES_VAC) maskRange(l - SKY_HALF_WIDTH_A, l + SKY_HALF_WIDTH_A);
+    masks.push('sky lines');
+  }
+  if (options.maskTelluric ?? false) {
+    for (const [a, b] of TELLURIC_AIR) maskRange(toVacuum(a), toVacuum(b));
+    masks.push('telluric O2 bands');
+  }
+  for (let i = 0; i < n; i++) if (spectrum.mask[i]) ivar[i] = 0;
+  const grid = resampleToLogGrid(vac, spectrum.flux, ivar, step);
+  const valid = new Uint8Array(grid.flux.length);
+  let first = -1;
+  let last = -1;
+  for (let i = 0; i < valid.length; i++) {
+    if (grid.ivar[i]! > 0) {
+      valid[i] = 1;
+      if (first < 0) first = i;
+      last = i;
+    }
+  }
+  const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? 0.03) / step)) | 1;
+  const flux = highPass(grid.flux, widthPx, valid);
+  const logSteps: number[] = [];
+  for (let i = 1; i < n; i += Math.max(1, Math.floor(n / 512))) logSteps.push(Math.log10(vac[i]! / vac[i - 1]!));
+  logSteps.sort((a, b) => a - b);
+  const nativePx = (logSteps[logSteps.length >> 1] ?? step) / step;
+  const snr: number[] = [];
+  for (let i = 0; i < n; i++) if (ivar[i]! > 0) snr.push(Math.abs(spectrum.flux[i]!) * Math.sqrt(ivar[i]!));
+  snr.sort((a, b) => a - b);
+  return {
+    step,
+    g0: grid.g0,
+    n: grid.flux.length,
+    flux,
+    gridFlux: grid.flux,
+    ivar: grid.ivar,
+    continuumWidthPx: widthPx,
+    instrumentSigmaPx: Math.max(0.85, nativePx * 0.85),
+    medium,
+    wavelengthMin: first >= 0 ? 10 ** ((grid.g0 + first) * step) : NaN,
+    wavelengthMax: last >= 0 ? 10 ** ((grid.g0 + last) * step) : NaN,
+    snrMedian: snr.length ? snr[snr.length >> 1]! : 0,
+    masks,
+  };
+}

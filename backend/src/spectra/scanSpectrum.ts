@@ -1,0 +1,190 @@
+import { buildTemplates, type TemplateSet } from './buildTemplates';
+import { findSolutions } from './findSolutions';
+import { shiftToZ } from './logGrid';
+import { matchEmissionLines, type LineMatchResult } from './matchEmissionLines';
+import { prepareSpectrum, type PrepareOptions, type PreparedSpectrum } from './prepareSpectrum';
+import { rankWithPhotoZ, type PhotoZPrior } from './rankWithPhotoZ';
+import { scanData, scanTemplate, type TemplateCurve } from './scanTemplate';
+import type { Spectrum, SpectrumClass, TemplateClass } from './types';
+import { ENGINE_VERSION } from './version';
+
+export interface ScanOptions extends PrepareOptions {
+  /** Redshift range searched (default 0 … 9). Star templates always stay near z = 0. */
+  zMin?: number;
+  zMax?: number;
+  /** Template classes to try (default all). */
+  classes?: TemplateClass[];
+  /** Number of distinct solutions returned (default 5). */
+  maxSolutions?: number;
+  /** Photometric redshift of the target: re-ranks, never removes, solutions. */
+  photoZ?: PhotoZPrior;
+  /** 'fft' (default) or 'direct' (loop over shifts; for benchmarks and checks). */
+  method?: 'fft' | 'direct';
+  /** Maximum points per χ²(z) curve kept for plotting (default 1500). */
+  curvePoints?: number;
+  /** Minimum χ² improvement over a zero model for any class decision (default 25). */
+  minDetectionChi2?: number;
+}
+
+/** A feature of the line list at a solution's redshift, inside the observed range. */
+export interface SolutionLine {
+  name: string;
+  /** Rest vacuum wavelength, Å. */
+  rest: number;
+  /** Observed vacuum wavelength, Å. */
+  observed: number;
+}
+
+/** One redshift proposed by the scan. */
+export interface Solution {
+  z: number;
+  /** 1σ from the χ² curvature (pixels are correlated by resampling: treat as a lower bound). */
+  zErr: number;
+  class: TemplateClass;
+  template: string;
+  chi2: number;
+  /** χ² of the next distinct solution minus this one's (null for the last). */
+  deltaChi2: number | null;
+  /** χ² improvement over a zero model. */
+  detectionChi2: number;
+  lines: SolutionLine[];
+  /** Prior weight when a photometric redshift was given (1 inside its range). */
+  priorWeight?: number;
+}
+
+/** χ²(z) of one template, decimated (minimum per block) for plotting. */
+export interface ScanCurve {
+  template: string;
+  class: TemplateClass;
+  z: Float64Array;
+  chi2: Float64Array;
+}
+
+export interface ScanResult {
+  engineVersion: string;
+  /** Class of the best solution, or 'unknown' when nothing beats a zero model clearly. */
+  class: SpectrumClass;
+  solutions: Solution[];
+  curves: ScanCurve[];
+  /** The second, independent route: emission peaks matched in pairs. */
+  lineMatches: LineMatchResult;
+  chi2Null: number;
+  meta: {
+    pixels: number;
+    step: number;
+    wavelengthMin: number;
+    wavelengthMax: number;
+    medium: 'air' | 'vacuum';
+    snrMedian: number;
+    masks: string[];
+    zMin: number;
+    zMax: number;
+    templates: string[];
+  };
+}
+
+const templateSets = new Map<string, TemplateSet>();
+
+/** Templates for a prepared spectrum's grid, built once per (step, resolution, filter) and reused. */
+export function templatesFor(prepared: PreparedSpectrum): TemplateSet {
+  const sigma = quantise(prepared.instrumentSigmaPx);
+  const key = `${prepared.step}|${sigma}|${prepared.continuumWidthPx}`;
+  let set = templateSets.get(key);
+  if (!set) {
+    set = buildTemplates(prepared.step, sigma, prepared.continuumWidthPx);
+    templateSets.set(key, set);
+  }
+  return set;
+}
+
+function quantise(sigmaPx: number): number {
+  const levels = [1, 1.5, 2, 3, 4, 6, 8, 12, 16, 24, 32];
+  return levels.reduce((best, l) => (Math.abs(Math.log(l / sigmaPx)) < Math.abs(Math.log(best / sigmaPx)) ? l : best), 1);
+}
+
+/**
+ * The scan: prepares the spectrum, computes χ²(z) for every template over the range with FFT
+ * correlations, and returns ranked distinct solutions with errors, Δχ², class and the lines that
+ * fall in the observed range, plus the decimated curves and the emission-line route.
+ *
+ * @example scanSpectrum(spectrum, { zMin: 0, zMax: 9 }).solutions[0].z
+ */
+export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): ScanResult {
+  const zMin = options.zMin ?? 0;
+  const zMax = options.zMax ?? 9;
+  if (!(zMax > zMin) || zMin < -0.01 || zMax > 12) throw new RangeError(`The redshift range must satisfy −0.01 ≤ zMin < zMax ≤ 12, got ${zMin} … ${zMax}.`);
+  const prepared = prepareSpectrum(spectrum, options);
+  const set = templatesFor(prepared);
+  const data = scanData(prepared);
+  const classes = options.classes;
+  const curves: TemplateCurve[] = [];
+  for (const t of set.templates) {
+    if (classes && !classes.includes(t.class)) continue;
+    // Stars are Galactic: their templates cover only |z| ≤ 0.002 regardless of the range asked.
+    const lo = t.class === 'star' ? t.zMin : zMin;
+    const hi = t.class === 'star' ? t.zMax : zMax;
+    if (t.class === 'star' && zMin > 0.002) continue;
+    const c = scanTemplate(data, set, t, lo, hi, options.method ?? 'fft');
+    if (c) curves.push(c);
+  }
+  const maxSolutions = options.maxSolutions ?? 5;
+  const raw = findSolutions(curves, set.step, maxSolutions);
+  const solutions: Solution[] = raw.map((s, k) => ({
+    z: s.z,
+    zErr: s.zErr,
+    class: s.class,
+    template: s.template,
+    chi2: s.chi2,
+    deltaChi2: k + 1 < raw.length ? raw[k + 1]!.chi2 - s.chi2 : null,
+    detectionChi2: data.chi2Null - s.chi2,
+    lines: linesInRange(set, s.template, s.z, prepared),
+  }));
+  const ranked = options.photoZ ? rankWithPhotoZ(solutions, options.photoZ) : solutions;
+  const best = ranked[0];
+  const minDet = options.minDetectionChi2 ?? 25;
+  return {
+    engineVersion: ENGINE_VERSION,
+    class: best && best.detectionChi2 >= minDet ? best.class : 'unknown',
+    solutions: ranked,
+    curves: curves.map((c) => decimate(c, set.step, options.curvePoints ?? 1500)),
+    lineMatches: matchEmissionLines(prepared, { zMin, zMax }),
+    chi2Null: data.chi2Null,
+    meta: {
+      pixels: prepared.n,
+      step: prepared.step,
+      wavelengthMin: prepared.wavelengthMin,
+      wavelengthMax: prepared.wavelengthMax,
+      medium: prepared.medium,
+      snrMedian: prepared.snrMedian,
+      masks: prepared.masks,
+      zMin,
+      zMax,
+      templates: curves.map((c) => c.template.id),
+    },
+  };
+}
+
+function linesInRange(set: TemplateSet, templateId: string, z: number, prepared: PreparedSpectrum): SolutionLine[] {
+  const t = set.templates.find((x) => x.id === templateId)!;
+  const out: SolutionLine[] = [];
+  for (const l of t.lines) {
+    const observed = l.rest * (1 + z);
+    if (observed >= prepared.wavelengthMin && observed <= prepared.wavelengthMax) out.push({ name: l.name, rest: l.rest, observed });
+  }
+  return out;
+}
+
+function decimate(c: TemplateCurve, step: number, points: number): ScanCurve {
+  const n = c.chi2.length;
+  const block = Math.max(1, Math.ceil(n / points));
+  const m = Math.ceil(n / block);
+  const z = new Float64Array(m);
+  const chi2 = new Float64Array(m);
+  for (let b = 0; b < m; b++) {
+    let best = b * block;
+    for (let i = b * block; i < Math.min(n, (b + 1) * block); i++) if (c.chi2[i]! < c.chi2[best]!) best = i;
+    z[b] = shiftToZ(c.sMin + best, step);
+    chi2[b] = c.chi2[best]!;
+  }
+  return { template: c.template.id, class: c.template.class, z, chi2 };
+}

@@ -1,0 +1,34 @@
+import data from '../../../line-lists/templates.json';
+import type { LineKind } from './lineList';
+import type { TemplateClass } from './types';
+
+/** Continuum shape of a template component (see line-lists/templates.json "about"). */
+export type ContinuumRecipe =
+  | { shape: 'power-law'; slope: number }
+  | { shape: 'blackbody'; temperatureK: number }
+  | { shape: 'old-stellar' };
+
+export interface ComponentRecipe {
+  name: string;
+  continuum?: ContinuumRecipe;
+  select: { kind: LineKind[]; species?: string[]; names?: string[] };
+  igm?: 'madau1995' | 'red-only';
+  as?: 'absorption';
+}
+
+export interface TemplateRecipe {
+  id: string;
+  class: TemplateClass;
+  zMin: number;
+  zMax: number;
+  /** Intrinsic Gaussian σ of lines, km/s. */
+  sigmaKms: number;
+  /** Rest equivalent width (Å) of an emission line of strength 1 on a continuum component. */
+  emissionEwA?: number;
+  /** Use the line strengths listed under this recipe id instead of its own. */
+  strengthKey?: string;
+  components: ComponentRecipe[];
+}
+
+/** Recipes from line-lists/templates.json; the JSON is the single source of truth. */
+export const TEMPLATE_RECIPES: readonly TemplateRecipe[] = data.templates as TemplateRecipe[];
