@@ -1,0 +1,59 @@
+import { describe, expect, it } from 'vitest';
+import { generateSyntheticSpectrum } from '../../../backend/src/spectra/generateSyntheticSpectrum';
+import { scanSpectrum } from '../../../backend/src/spectra/scanSpectrum';
+import { rankWithPhotoZ } from '../../../backend/src/spectra/rankWithPhotoZ';
+import { ENGINE_VERSION } from '../../../backend/src/spectra/version';
+
+describe('scanSpectrum on seeded synthetic spectra', () => {
+  it('FFT and direct evaluation give the same χ² curve', () => {
+    const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.7, snr: 8, seed: 1, pixels: 800 });
+    const fft = scanSpectrum(s, { zMax: 1.5, classes: ['galaxy'] });
+    const direct = scanSpectrum(s, { zMax: 1.5, classes: ['galaxy'], method: 'direct' });
+    expect(fft.solutions[0]!.z).toBeCloseTo(direct.solutions[0]!.z, 6);
+    for (let c = 0; c < fft.curves.length; c++) {
+      const a = fft.curves[c]!.chi2;
+      const b = direct.curves[c]!.chi2;
+      for (let i = 0; i < a.length; i += 37) expect(Math.abs(a[i]! - b[i]!)).toBeLessThan(1e-6 * Math.max(1, Math.abs(b[i]!)));
+    }
+  });
+
+  it.each([
+    ['galaxy', 0.35],
+    ['galaxy', 1.2],
+    ['quasar', 2.4],
+    ['lyman-break', 5.5],
+  ] as const)('recovers a %s at z = %s', (cls, z) => {
+    const s = generateSyntheticSpectrum({ class: cls, z, snr: 10, seed: 17 });
+    const r = scanSpectrum(s);
+    expect(r.engineVersion).toBe(ENGINE_VERSION);
+    expect(Math.abs(r.solutions[0]!.z - z) / (1 + z)).toBeLessThan(0.002);
+    expect(r.solutions[0]!.zErr).toBeGreaterThan(0);
+    expect(r.solutions[0]!.zErr).toBeLessThan(0.01);
+    expect(r.class).toBe(cls);
+    expect(r.solutions.length).toBeGreaterThan(1);
+    expect(r.solutions[0]!.deltaChi2).toBeGreaterThan(0);
+  });
+
+  it('pure noise gives no class decision', () => {
+    const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.5, snr: 1e-6, seed: 4 });
+    expect(scanSpectrum(s).class).toBe('unknown');
+  });
+
+  it('emission-line pairing finds [O III]/Hβ/Hα at the true redshift', () => {
+    const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.25, snr: 15, seed: 9 });
+    const m = scanSpectrum(s).lineMatches;
+    expect(m.matches.length).toBeGreaterThan(0);
+    expect(Math.abs(m.matches[0]!.z - 0.25)).toBeLessThan(0.001);
+  });
+
+  it('photo-z prior re-ranks but keeps every solution', () => {
+    const sols = [
+      { z: 0.5, zErr: 1e-4, class: 'galaxy' as const, template: 'a', chi2: 100, deltaChi2: 4, detectionChi2: 50, lines: [] },
+      { z: 3.1, zErr: 1e-4, class: 'galaxy' as const, template: 'a', chi2: 104, deltaChi2: null, detectionChi2: 46, lines: [] },
+    ];
+    const ranked = rankWithPhotoZ(sols, { z: 3.0, lo: 2.8, hi: 3.2 });
+    expect(ranked.map((s) => s.z)).toEqual([3.1, 0.5]);
+    expect(ranked[0]!.priorWeight).toBe(1);
+    expect(ranked[1]!.priorWeight).toBeLessThan(1e-10);
+  });
+});
