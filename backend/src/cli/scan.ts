@@ -1,0 +1,42 @@
+import { readFileSync } from 'node:fs';
+import { SpectrumReadError } from '../spectra/errors';
+import { readSpectrum } from '../spectra/readSpectrum';
+import { scanSpectrum } from '../spectra/scanSpectrum';
+
+// `npm run scan -- <files...> [--zmin A --zmax B] [--json]`: one JSON object per file per line.
+const args = process.argv.slice(2);
+const files: string[] = [];
+let zMin = 0;
+let zMax = 9;
+for (let i = 0; i < args.length; i++) {
+  const a = args[i]!;
+  if (a === '--zmin' || a === '--zmax') {
+    const v = Number(args[++i]);
+    if (!Number.isFinite(v)) usage(`${a} needs a number`);
+    if (a === '--zmin') zMin = v;
+    else zMax = v;
+  } else if (a === '--json') continue;
+  else if (a.startsWith('--')) usage(`unknown option ${a}`);
+  else files.push(a);
+}
+if (files.length === 0) usage('no files given');
+
+for (const file of files) {
+  try {
+    const spectrum = readSpectrum(new Uint8Array(readFileSync(file)));
+    const r = scanSpectrum(spectrum, { zMin, zMax });
+    console.log(JSON.stringify({
+      file, ok: true, class: r.class,
+      solutions: r.solutions.map((s) => ({ z: s.z, zErr: s.zErr, class: s.class, template: s.template, chi2: s.chi2, deltaChi2: s.deltaChi2, lines: s.lines.map((l) => ({ name: l.name, rest: l.rest, observed: l.observed })) })),
+      meta: { pixels: r.meta.pixels, wavelengthMin: r.meta.wavelengthMin, wavelengthMax: r.meta.wavelengthMax, medium: r.meta.medium, snrMedian: r.meta.snrMedian },
+    }));
+  } catch (e) {
+    const code = e instanceof SpectrumReadError ? e.code : e instanceof RangeError ? 'bad-range' : (e as NodeJS.ErrnoException).code ?? 'internal';
+    console.log(JSON.stringify({ file, ok: false, error: { code, message: (e as Error).message } }));
+  }
+}
+
+function usage(why: string): never {
+  console.error(`Usage: npm run scan -- <files...> [--zmin A --zmax B] [--json]  (${why})`);
+  process.exit(2);
+}
