@@ -14,7 +14,11 @@ import { authRoutes } from './routes/auth';
 import { campaignRoutes } from './routes/campaigns';
 import { healthRoutes } from './routes/health';
 import { invitationRoutes } from './routes/invitations';
+import { jobRoutes } from './routes/jobs';
 import { memberRoutes } from './routes/members';
+import { spectrumRoutes } from './routes/spectra';
+import { targetRoutes } from './routes/targets';
+import { uploadRoutes } from './routes/uploads';
 import type { ServiceContext } from './services/context';
 
 export const FRONTEND_DIST = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
@@ -36,7 +40,19 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
   api.use(express.json({ limit: '1mb' }));
   api.use(csrfGuard(ctx.config.publicUrl));
   api.use(sessionMiddleware(ctx, sessionPassword));
-  for (const routes of [healthRoutes, authRoutes, accountRoutes, campaignRoutes, memberRoutes, invitationRoutes, adminRoutes]) {
+  for (const routes of [
+    healthRoutes,
+    authRoutes,
+    accountRoutes,
+    campaignRoutes,
+    memberRoutes,
+    invitationRoutes,
+    adminRoutes,
+    uploadRoutes,
+    jobRoutes,
+    spectrumRoutes,
+    targetRoutes,
+  ]) {
     api.use(routes(ctx));
   }
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`, 'route_not_found')));

@@ -24,6 +24,21 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   /** Set when a reverse proxy terminates TLS in front of Redward (Express `trust proxy`). */
   TRUST_PROXY: flag.default(false),
+  UPLOAD_MAX_FILE_MB: z.coerce.number().positive().default(512),
+  UPLOAD_MAX_TOTAL_MB: z.coerce.number().positive().default(1024),
+  UPLOAD_MAX_FILES: z.coerce.number().int().positive().default(5000),
+  ARCHIVE_MAX_ENTRIES: z.coerce.number().int().positive().default(20000),
+  ARCHIVE_MAX_EXPANDED_MB: z.coerce.number().positive().default(4096),
+  /** Largest expanded ÷ compressed size of an archive; spectra compress far less than this. */
+  ARCHIVE_MAX_RATIO: z.coerce.number().positive().default(200),
+  /** Worker threads for scans; defaults to the number of cores. */
+  SCAN_THREADS: z.coerce.number().int().positive().max(64).optional(),
+  /** Run the background job runner in this process (tests and the import command may not). */
+  JOB_RUNNER: flag.default(true),
+  /** How long a runner's claim on a job lasts without renewal; after a crash the job waits this long. */
+  JOB_LEASE_SECONDS: z.coerce.number().positive().max(3600).default(30),
+  /** Largest distance between a spectrum's and a target's coordinates for a positional link. */
+  LINK_TOLERANCE_ARCSEC: z.coerce.number().positive().max(60).default(2),
 });
 
 export interface Config {
@@ -41,8 +56,18 @@ export interface Config {
   invitationTtlHours: number;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
   trustProxy: boolean;
+  uploads: {
+    maxFileBytes: number;
+    maxTotalBytes: number;
+    maxFiles: number;
+    archive: { maxEntries: number; maxExpandedBytes: number; maxEntryBytes: number; maxRatio: number };
+  };
+  jobs: { runner: boolean; scanThreads: number | undefined; leaseMs: number };
+  linkToleranceArcsec: number;
   version: string;
 }
+
+const MB = 1024 * 1024;
 
 function readVersion(): string {
   const pkgPath = new URL('../../package.json', import.meta.url);
@@ -77,6 +102,19 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     invitationTtlHours: e.INVITATION_TTL_HOURS,
     logLevel: e.LOG_LEVEL,
     trustProxy: e.TRUST_PROXY,
+    uploads: {
+      maxFileBytes: e.UPLOAD_MAX_FILE_MB * MB,
+      maxTotalBytes: e.UPLOAD_MAX_TOTAL_MB * MB,
+      maxFiles: e.UPLOAD_MAX_FILES,
+      archive: {
+        maxEntries: e.ARCHIVE_MAX_ENTRIES,
+        maxExpandedBytes: e.ARCHIVE_MAX_EXPANDED_MB * MB,
+        maxEntryBytes: e.UPLOAD_MAX_FILE_MB * MB,
+        maxRatio: e.ARCHIVE_MAX_RATIO,
+      },
+    },
+    jobs: { runner: e.JOB_RUNNER, scanThreads: e.SCAN_THREADS, leaseMs: e.JOB_LEASE_SECONDS * 1000 },
+    linkToleranceArcsec: e.LINK_TOLERANCE_ARCSEC,
     version: readVersion(),
   };
 }

@@ -1,4 +1,3 @@
-import { mkdirSync } from 'node:fs';
 import type { Server } from 'node:http';
 import type { Express } from 'express';
 import type { AddressInfo } from 'node:net';
@@ -7,10 +6,13 @@ import { createApp } from './app';
 import type { Config } from './config';
 import { openDatabase } from './db/client';
 import { seedDemoIfEmpty } from './demo/seed-demo';
+import { JobRunner } from './jobs/job-runner';
+import { createScanPool } from './jobs/scan-pool';
 import { startMailCatcher, type MailCatcher } from './mail/catcher';
 import { createSmtpMailer } from './mail/mailer';
 import type { ServiceContext } from './services/context';
 import { loadSessionSecret } from './session-secret';
+import { BlobStore } from './storage/blob-store';
 
 export interface Redward {
   app: Express;
@@ -27,14 +29,25 @@ export interface Redward {
  */
 export async function createRedward(config: Config, now: () => Date = () => new Date()): Promise<Redward> {
   const logger = pino({ level: config.logLevel });
-  mkdirSync(config.uploadsDir, { recursive: true });
   const db = openDatabase(config.databasePath);
   const mailCatcher = config.mailCatcher.enabled ? await startMailCatcher(db, config.mailCatcher.port) : null;
   // When the catcher took an ephemeral port (MAIL_CATCHER_PORT=0), send to where it listens.
   const smtpUrl = mailCatcher && config.mailCatcher.port === 0 ? `smtp://127.0.0.1:${mailCatcher.port}` : config.smtpUrl;
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
-  const ctx: ServiceContext = { config, db, mailer, logger, now };
+  const store = new BlobStore(config.uploadsDir);
+  const ctx: ServiceContext = { config, db, mailer, logger, now, store, wakeJobRunner: () => {} };
   const seeded = config.demo ? await seedDemoIfEmpty(ctx) : false;
+  let stopJobs = async () => {};
+  if (config.jobs.runner) {
+    const pool = createScanPool(config.jobs.scanThreads);
+    const runner = new JobRunner(ctx, store, pool, { leaseMs: config.jobs.leaseMs });
+    ctx.wakeJobRunner = () => runner.wake();
+    runner.start();
+    stopJobs = async () => {
+      await runner.stop();
+      await pool.destroy();
+    };
+  }
   const app = createApp(ctx, loadSessionSecret(config.dataDir, config.sessionSecret));
   return {
     app,
@@ -42,6 +55,7 @@ export async function createRedward(config: Config, now: () => Date = () => new 
     mailCatcher,
     seeded,
     async close() {
+      await stopJobs();
       await mailCatcher?.close();
       mailer.close();
       db.$client.close();

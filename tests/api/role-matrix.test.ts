@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Router } from 'express';
 import request from 'supertest';
+import { jobs } from '../../backend/src/db/schema';
 import { createTestApp, TEST_ORIGIN, type TestApp } from '../helpers/test-app';
 
 type Who = 'anonymous' | 'observer' | 'reader' | 'lead' | 'admin';
@@ -50,6 +51,16 @@ const CASES: Case[] = [
   { method: 'patch', route: '/admin/users/:userId', url: '/api/admin/users/5', body: () => ({ disabled: false }), expect: adminOnly(200) },
   { method: 'get', route: '/admin/mail', url: '/api/admin/mail', expect: adminOnly(200) },
   { method: 'get', route: '/admin/mail/:mailId', url: '/api/admin/mail/999', expect: adminOnly(404) },
+  // Lead without a file: the route is reached (400), the others are refused first.
+  { method: 'post', route: '/campaigns/:id/uploads', url: '/api/campaigns/1/uploads', body: () => ({}), expect: leadOnly(400) },
+  { method: 'post', route: '/campaigns/:id/targets', url: '/api/campaigns/1/targets', body: () => ({}), expect: leadOnly(400) },
+  { method: 'get', route: '/campaigns/:id/spectra', url: '/api/campaigns/1/spectra', expect: signedIn(200) },
+  { method: 'get', route: '/campaigns/:id/targets', url: '/api/campaigns/1/targets', expect: signedIn(200) },
+  { method: 'patch', route: '/spectra/:spectrumId/target', url: '/api/spectra/999/target', body: () => ({ targetId: null }), expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/1', expect: leadOnly(200) },
+  { method: 'post', route: '/jobs/:jobId/cancel', url: '/api/jobs/1/cancel', expect: leadOnly(200) },
+  { method: 'get', route: '/jobs/:jobId/events', url: '/api/jobs/1/events', expect: leadOnly(200) },
+  { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/999', expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];
 
@@ -57,7 +68,9 @@ let t: TestApp;
 const agents = new Map<Who, ReturnType<TestApp['agent']>>();
 
 beforeAll(async () => {
-  t = await createTestApp();
+  // No runner: the queued job below stays queued until the lead cancels it.
+  t = await createTestApp({ JOB_RUNNER: '0' });
+  t.ctx.db.insert(jobs).values({ kind: 'ingest', campaignId: 1, total: 0, settings: { zMin: 0, zMax: 9 } }).run();
   agents.set('anonymous', t.agent());
   for (const who of WHO) if (who !== 'anonymous') agents.set(who, await t.signIn(EMAIL[who]));
 });

@@ -1,9 +1,7 @@
 import { createInterface } from 'node:readline/promises';
-import { pino } from 'pino';
 import { loadConfig } from '../config';
 import { openDatabase } from '../db/client';
 import { AppError } from '../http/errors';
-import type { Mailer } from '../mail/mailer';
 import { createAdminAccount } from '../services/create-admin-account';
 
 /**
@@ -20,9 +18,8 @@ async function main() {
   const password = await readPassword();
   const config = loadConfig();
   const db = openDatabase(config.databasePath);
-  const noMail: Mailer = { send: () => Promise.reject(new Error('no mail from the command line')), close: () => {} };
   try {
-    const id = await createAdminAccount({ config, db, mailer: noMail, logger: pino({ level: 'silent' }), now: () => new Date() }, email, nameParts.join(' '), password);
+    const id = await createAdminAccount({ db }, email, nameParts.join(' '), password);
     console.log(`Admin account ${id} created for ${email}.`);
   } finally {
     db.$client.close();

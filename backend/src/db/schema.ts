@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { blob, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import type { GradeScheme } from '../contracts/grades';
 
 // Timestamps are ISO-8601 UTC strings: readable in the SQLite shell and sortable as text.
@@ -91,3 +91,148 @@ export const mailMessages = sqliteTable('mail_messages', {
   raw: text('raw').notNull(),
   receivedAt: createdAt(),
 });
+
+// ── Ingest: stored files, targets, spectra, durable jobs, scan results ─────────────────────────
+
+/** Every uploaded file, once, by content. The bytes live under DATA_DIR/uploads/<aa>/<sha256>. */
+export const storedFiles = sqliteTable('stored_files', {
+  sha256: text('sha256').primaryKey(),
+  sizeBytes: integer('size_bytes').notNull(),
+  createdAt: createdAt(),
+});
+
+export const targets = sqliteTable(
+  'targets',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    campaignId: integer('campaign_id').notNull().references(() => campaigns.id),
+    /** The catalogue's own identifier, unique within the campaign. */
+    catalogueId: text('catalogue_id').notNull(),
+    /** Degrees, J2000. */
+    ra: real('ra'),
+    dec: real('dec'),
+    magnitude: real('magnitude'),
+    photoZ: real('photo_z'),
+    /** The photometric redshift's 68 % range. */
+    photoZLow: real('photo_z_low'),
+    photoZHigh: real('photo_z_high'),
+    imageFamily: text('image_family'),
+    priority: integer('priority'),
+    /** Catalogue columns Redward has no field for, kept as they were. */
+    extra: text('extra', { mode: 'json' }).$type<Record<string, string>>().notNull().default({}),
+    createdAt: createdAt(),
+    updatedAt: text('updated_at').notNull().default(now),
+  },
+  (t) => [uniqueIndex('targets_campaign_catalogue_id').on(t.campaignId, t.catalogueId), index('targets_family').on(t.campaignId, t.imageFamily)],
+);
+
+export const JOB_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export type JobState = (typeof JOB_STATES)[number];
+
+/**
+ * Durable background work. A runner claims a job by setting a lease; a job whose lease ran out
+ * (its runner crashed) is queued again on the next start. Items record per-file progress, so
+ * a resumed job neither repeats nor loses work.
+ */
+export const jobs = sqliteTable(
+  'jobs',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    kind: text('kind', { enum: ['ingest', 'scan'] }).notNull(),
+    campaignId: integer('campaign_id').notNull().references(() => campaigns.id),
+    createdBy: integer('created_by').references(() => users.id),
+    state: text('state', { enum: JOB_STATES }).notNull().default('queued'),
+    done: integer('done').notNull().default(0),
+    total: integer('total').notNull().default(0),
+    attempts: integer('attempts').notNull().default(0),
+    leaseExpiresAt: text('lease_expires_at'),
+    cancelRequested: integer('cancel_requested', { mode: 'boolean' }).notNull().default(false),
+    /** Settings the job runs with (redshift range, engine options), fixed when it is queued. */
+    settings: text('settings', { mode: 'json' }).$type<Record<string, unknown>>().notNull().default({}),
+    /** Failures of the job itself (not of one file), as a sentence. */
+    failure: text('failure'),
+    createdAt: createdAt(),
+    startedAt: text('started_at'),
+    finishedAt: text('finished_at'),
+  },
+  (t) => [index('jobs_state').on(t.state), index('jobs_campaign').on(t.campaignId)],
+);
+
+export const JOB_ITEM_STATES = ['pending', 'done', 'failed'] as const;
+
+export const jobItems = sqliteTable(
+  'job_items',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    jobId: integer('job_id').notNull().references(() => jobs.id),
+    /** The file as the person named it (archive entries as "archive.zip/folder/file.fits"). */
+    fileName: text('file_name').notNull(),
+    sha256: text('sha256').references(() => storedFiles.sha256),
+    spectrumId: integer('spectrum_id'),
+    state: text('state', { enum: JOB_ITEM_STATES }).notNull().default('pending'),
+    /** What happened: stored (new spectrum), duplicate (already in the campaign), rescanned. */
+    outcome: text('outcome', { enum: ['stored', 'duplicate', 'rescanned'] }),
+    errorCode: text('error_code'),
+    errorMessage: text('error_message'),
+  },
+  (t) => [index('job_items_job_state').on(t.jobId, t.state)],
+);
+
+export const spectra = sqliteTable(
+  'spectra',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    campaignId: integer('campaign_id').notNull().references(() => campaigns.id),
+    sha256: text('sha256').notNull().references(() => storedFiles.sha256),
+    fileName: text('file_name').notNull(),
+    targetId: integer('target_id').references(() => targets.id),
+    /** How the target was found: catalogue id in the file name, the OBJECT keyword, position, or by hand. */
+    linkMethod: text('link_method', { enum: ['file-name', 'object-keyword', 'position', 'manual'] }),
+    objectName: text('object_name'),
+    ra: real('ra'),
+    dec: real('dec'),
+    instrument: text('instrument'),
+    exposureS: real('exposure_s'),
+    dateObs: text('date_obs'),
+    medium: text('medium', { enum: ['air', 'vacuum'] }).notNull(),
+    pixels: integer('pixels').notNull(),
+    wavelengthMin: real('wavelength_min').notNull(),
+    wavelengthMax: real('wavelength_max').notNull(),
+    snrMedian: real('snr_median'),
+    errorsEstimated: integer('errors_estimated', { mode: 'boolean' }).notNull(),
+    warnings: text('warnings', { mode: 'json' }).$type<string[]>().notNull().default([]),
+    uploadJobId: integer('upload_job_id').references(() => jobs.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('spectra_campaign_sha256').on(t.campaignId, t.sha256), index('spectra_target').on(t.targetId)],
+);
+
+/**
+ * The engine's answer for one spectrum. A re-scan adds a row and moves `is_current`; older
+ * results stay for the record.
+ */
+export const scanResults = sqliteTable(
+  'scan_results',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    spectrumId: integer('spectrum_id').notNull().references(() => spectra.id),
+    jobId: integer('job_id').references(() => jobs.id),
+    engineVersion: text('engine_version').notNull(),
+    settings: text('settings', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+    spectrumClass: text('spectrum_class').notNull(),
+    /** Top solution, denormalised for sorting and filtering the spectra list. */
+    zBest: real('z_best'),
+    zBestErr: real('z_best_err'),
+    solutions: text('solutions', { mode: 'json' }).notNull(),
+    lineMatches: text('line_matches', { mode: 'json' }).notNull(),
+    meta: text('meta', { mode: 'json' }).notNull(),
+    /** χ²(z) curves packed as float32 (see services/scan-curves.ts). */
+    curves: blob('curves', { mode: 'buffer' }).notNull(),
+    isCurrent: integer('is_current', { mode: 'boolean' }).notNull().default(true),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('scan_results_one_current').on(t.spectrumId).where(sql`${t.isCurrent} = 1`),
+    index('scan_results_spectrum').on(t.spectrumId),
+  ],
+);

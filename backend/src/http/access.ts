@@ -19,13 +19,18 @@ export type Access =
   | { kind: 'public' }
   | { kind: 'signedIn' }
   | { kind: 'admin' }
-  | { kind: 'campaign'; roles: readonly CampaignRole[] };
+  | { kind: 'campaign'; roles: readonly CampaignRole[]; campaignOf?: CampaignResolver };
+
+/** Finds the campaign a request is about when the path names something inside it (a job, a spectrum). */
+export type CampaignResolver = (ctx: ServiceContext, req: Request) => number | null;
 
 export const access = {
   public: { kind: 'public' } as Access,
   signedIn: { kind: 'signedIn' } as Access,
   admin: { kind: 'admin' } as Access,
   campaign: (...roles: CampaignRole[]): Access => ({ kind: 'campaign', roles }),
+  /** Roles in the campaign that owns the thing named in the path. */
+  campaignOf: (campaignOf: CampaignResolver, ...roles: CampaignRole[]): Access => ({ kind: 'campaign', roles, campaignOf }),
   /** Anyone who can see the campaign: all members, and admins. */
   campaignViewer: { kind: 'campaign', roles: ['lead', 'reader', 'observer'] } as Access,
 };
@@ -46,8 +51,8 @@ export function authorize(ctx: ServiceContext, req: Request, rule: Access): Auth
     if (!user.isAdmin) throw forbidden('Only administrators can do this.');
     return { user, campaign: null };
   }
-  const campaignId = Number(req.params.id);
-  if (!Number.isSafeInteger(campaignId) || campaignId <= 0) throw notFound('No such campaign.', 'campaign_not_found');
+  const campaignId = rule.campaignOf ? rule.campaignOf(ctx, req) : Number(req.params.id);
+  if (campaignId === null || !Number.isSafeInteger(campaignId) || campaignId <= 0) throw notFound('No such campaign.', 'campaign_not_found');
   const { exists, role } = findCampaignRole(ctx, user.id, campaignId);
   if (!exists) throw notFound('No such campaign.', 'campaign_not_found');
   const allowed =

@@ -18,7 +18,8 @@ export function errorMiddleware(logger: Logger) {
       return;
     }
     if (err instanceof AppError) {
-      res.set(err.headers).status(err.status).json({ error: { code: err.code, message: err.message } });
+      const details = err.details === undefined ? {} : { details: err.details };
+      res.set(err.headers).status(err.status).json({ error: { code: err.code, message: err.message, ...details } });
       return;
     }
     const bodyError = err as BodyParserError;

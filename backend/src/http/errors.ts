@@ -8,6 +8,8 @@ export class AppError extends Error {
     readonly code: string,
     message: string,
     readonly headers: Record<string, string> = {},
+    /** Itemised problems (e.g. catalogue rows) a client can list; sent as `error.details`. */
+    readonly details?: unknown,
   ) {
     super(message);
     this.name = 'AppError';

@@ -7,7 +7,7 @@ import { hashPassword } from './passwords';
 import { recordAudit } from './record-audit';
 
 /** Creates an installation admin: the way into an installation started without demo data. */
-export async function createAdminAccount(ctx: ServiceContext, rawEmail: string, name: string, password: string): Promise<number> {
+export async function createAdminAccount(ctx: Pick<ServiceContext, 'db'>, rawEmail: string, name: string, password: string): Promise<number> {
   const email = emailSchema.safeParse(rawEmail);
   if (!email.success) throw badRequest(`"${rawEmail}" is not a valid e-mail address.`);
   const pw = newPasswordSchema.safeParse(password);

@@ -48,6 +48,22 @@ export interface TemplateSet {
   fftCache: Map<string, Float64Array>;
 }
 
+const memo = new Map<string, TemplateSet>();
+
+/**
+ * The template set for (step, instrument σ, filter width), built on first use and kept for the life
+ * of the process (≈ 100 ms to build; a scan or a synthetic spectrum then costs no rebuild).
+ */
+export function templateSetFor(step: number, instrumentSigmaPx: number, continuumWidthPx: number): TemplateSet {
+  const key = `${step}|${instrumentSigmaPx}|${continuumWidthPx}`;
+  let set = memo.get(key);
+  if (!set) {
+    set = buildTemplates(step, instrumentSigmaPx, continuumWidthPx);
+    memo.set(key, set);
+  }
+  return set;
+}
+
 /**
  * Builds every template of line-lists/templates.json on the log grid of the given step, smoothed
  * to the instrument σ (grid pixels) and filtered with the same continuum-removing running mean as

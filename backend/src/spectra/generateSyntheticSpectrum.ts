@@ -1,4 +1,4 @@
-import { buildTemplates } from './buildTemplates';
+import { templateSetFor } from './buildTemplates';
 import { DEFAULT_LOG_STEP } from './logGrid';
 import type { Spectrum, TemplateClass } from './types';
 
@@ -48,7 +48,7 @@ export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
   const random = rng(options.seed);
   const gauss = () => Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
   const step = DEFAULT_LOG_STEP;
-  const set = buildTemplates(step, 1, Math.round(0.03 / step) | 1);
+  const set = templateSetFor(step, 1, Math.round(0.03 / step) | 1);
   const id = options.template ?? DEFAULT_TEMPLATE[options.class];
   const t = set.templates.find((x) => x.id === id);
   if (!t) throw new RangeError(`No template "${id}".`);

@@ -26,17 +26,23 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
   const body: string[] = [];
   let headerNames: string[] | undefined;
   let firstDataLine = -1;
+  let headerLine = -1;
+  let lastCommentLine = -1;
   for (let i = 0; i < lines.length; i++) {
     const line = lines[i]!;
     if (line.trim() === '') continue;
     if (COMMENT.test(line)) {
-      if (firstDataLine < 0) comments.push(line.replace(COMMENT, '').trim());
+      if (firstDataLine < 0) {
+        comments.push(line.replace(COMMENT, '').trim());
+        lastCommentLine = i + 1;
+      }
       continue;
     }
     if (firstDataLine < 0) {
       firstDataLine = i + 1;
       if (!looksNumeric(line)) {
         headerNames = split(line);
+        headerLine = i + 1;
         continue;
       }
     }
@@ -52,7 +58,10 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
   if (!headerNames) {
     const last = comments[comments.length - 1];
     const names = last ? split(last) : [];
-    if (names.length === width && !looksNumeric(last!)) headerNames = names;
+    if (names.length === width && !looksNumeric(last!)) {
+      headerNames = names;
+      headerLine = lastCommentLine;
+    }
   }
   const columns: Float64Array[] = [];
   for (let c = 0; c < width; c++) columns.push(new Float64Array(rows.length));
@@ -71,6 +80,12 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
       const role = columnRole(name.replace(/[([{].*$/, ''));
       if (role && !roles.has(role)) roles.set(role, c);
     });
+  }
+  // A header that names known columns but no flux column (e.g. "wavelength,sky") is refused: taking
+  // some other column as flux would scan a sky or error spectrum as if it were the object.
+  if (headerNames && roles.size > 0 && !roles.has('flux')) {
+    const named = headerNames.slice(0, width).join(', ');
+    throw new SpectrumReadError('text-table', `Line ${headerLine}: the header names the columns ${named} but none of them is a flux column (expected a name such as flux, flam, f_lambda, fnu, counts or intensity).`);
   }
   if (!roles.has('wavelength') && !roles.has('logWavelength')) roles.set('wavelength', 0);
   if (!roles.has('flux')) roles.set('flux', roles.get('wavelength') === 0 || roles.get('logWavelength') === 0 ? 1 : 0);

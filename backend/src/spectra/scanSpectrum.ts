@@ -1,4 +1,4 @@
-import { buildTemplates, type TemplateSet } from './buildTemplates';
+import { templateSetFor, type TemplateSet } from './buildTemplates';
 import { findSolutions } from './findSolutions';
 import { shiftToZ } from './logGrid';
 import { matchEmissionLines, type LineMatchResult } from './matchEmissionLines';
@@ -83,18 +83,9 @@ export interface ScanResult {
   };
 }
 
-const templateSets = new Map<string, TemplateSet>();
-
 /** Templates for a prepared spectrum's grid, built once per (step, resolution, filter) and reused. */
 export function templatesFor(prepared: PreparedSpectrum): TemplateSet {
-  const sigma = quantise(prepared.instrumentSigmaPx);
-  const key = `${prepared.step}|${sigma}|${prepared.continuumWidthPx}`;
-  let set = templateSets.get(key);
-  if (!set) {
-    set = buildTemplates(prepared.step, sigma, prepared.continuumWidthPx);
-    templateSets.set(key, set);
-  }
-  return set;
+  return templateSetFor(prepared.step, quantise(prepared.instrumentSigmaPx), prepared.continuumWidthPx);
 }
 
 function quantise(sigmaPx: number): number {

@@ -1,0 +1,79 @@
+import { z } from 'zod';
+
+export const jobStateSchema = z.enum(['queued', 'running', 'done', 'failed', 'cancelled']);
+export type JobState = z.infer<typeof jobStateSchema>;
+
+export const jobErrorSchema = z.object({ file: z.string(), code: z.string(), message: z.string() });
+export type JobError = z.infer<typeof jobErrorSchema>;
+
+export const jobProgressSchema = z.object({
+  id: z.number().int(),
+  kind: z.enum(['ingest', 'scan']),
+  campaignId: z.number().int(),
+  state: jobStateSchema,
+  done: z.number().int(),
+  total: z.number().int(),
+  /** Files that could not be read or scanned, with the reason. */
+  errors: z.array(jobErrorSchema),
+  summary: z.object({
+    stored: z.number().int(),
+    duplicates: z.number().int(),
+    rescanned: z.number().int(),
+    failed: z.number().int(),
+    linked: z.number().int(),
+    unlinked: z.number().int(),
+  }),
+  failure: z.string().nullable(),
+  createdAt: z.string(),
+  finishedAt: z.string().nullable(),
+});
+export type JobProgress = z.infer<typeof jobProgressSchema>;
+
+export const uploadReceiptSchema = z.object({
+  jobId: z.number().int(),
+  files: z.number().int(),
+  entries: z.number().int(),
+  bytes: z.number().int(),
+});
+export type UploadReceipt = z.infer<typeof uploadReceiptSchema>;
+
+export const SPECTRA_SORT_KEYS = ['fileName', 'target', 'instrument', 'snr', 'z', 'class', 'createdAt'] as const;
+
+export const spectraQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(500).default(50),
+  sort: z.enum(SPECTRA_SORT_KEYS).default('fileName'),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  /** Matches file name, target id or object name. */
+  q: z.string().trim().max(200).optional(),
+  class: z.enum(['galaxy', 'quasar', 'star', 'lyman-break', 'unknown']).optional(),
+  linked: z.enum(['yes', 'no']).optional(),
+});
+export type SpectraQuery = z.input<typeof spectraQuerySchema>;
+
+export const spectrumRowSchema = z.object({
+  id: z.number().int(),
+  fileName: z.string(),
+  target: z.object({ id: z.number().int(), catalogueId: z.string() }).nullable(),
+  linkMethod: z.string().nullable(),
+  objectName: z.string().nullable(),
+  instrument: z.string().nullable(),
+  pixels: z.number().int(),
+  wavelengthMin: z.number(),
+  wavelengthMax: z.number(),
+  snrMedian: z.number().nullable(),
+  scanState: z.enum(['scanned', 'not scanned']),
+  zBest: z.number().nullable(),
+  zBestErr: z.number().nullable(),
+  spectrumClass: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type SpectrumRow = z.infer<typeof spectrumRowSchema>;
+
+export const spectraPageSchema = z.object({
+  rows: z.array(spectrumRowSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+});
+export type SpectraPage = z.infer<typeof spectraPageSchema>;

@@ -1,0 +1,63 @@
+import { Router, type Request } from 'express';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import type { ServiceContext } from '../services/context';
+import { cancelJob, getJobProgress, jobCampaignId } from '../services/job-progress';
+
+const jobId = (req: Request) => Number(req.params.jobId);
+const ofJob = (ctx: ServiceContext, req: Request) => jobCampaignId(ctx, jobId(req));
+const POLL_MS = 400;
+const HEARTBEAT_MS = 15_000;
+
+export function jobRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/jobs/:jobId',
+    access: access.campaignOf(ofJob, 'lead'),
+    handle: ({ req }) => getJobProgress(ctx, jobId(req)),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/jobs/:jobId/cancel',
+    access: access.campaignOf(ofJob, 'lead'),
+    handle: ({ req, user }) => cancelJob(ctx, user!, jobId(req)),
+  });
+
+  // Server-sent events: a `progress` event whenever the job moves, the last one when it ends.
+  // Progress is read from SQLite, so a job run by another process (the import command) streams too.
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/jobs/:jobId/events',
+    access: access.campaignOf(ofJob, 'lead'),
+    handle: ({ req, res }) => {
+      res.writeHead(200, { 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-cache, no-transform', Connection: 'keep-alive' });
+      let last = '';
+      let lastWrite = Date.now();
+      const tick = () => {
+        const progress = getJobProgress(ctx, jobId(req));
+        const json = JSON.stringify(progress);
+        if (json !== last) {
+          res.write(`event: progress\ndata: ${json}\n\n`);
+          last = json;
+          lastWrite = Date.now();
+        } else if (Date.now() - lastWrite > HEARTBEAT_MS) {
+          res.write(': still working\n\n');
+          lastWrite = Date.now();
+        }
+        if (['done', 'failed', 'cancelled'].includes(progress.state)) stop();
+      };
+      const timer = setInterval(tick, POLL_MS);
+      const stop = () => {
+        clearInterval(timer);
+        res.end();
+      };
+      req.on('close', () => clearInterval(timer));
+      tick();
+    },
+  });
+
+  return router;
+}

@@ -1,0 +1,30 @@
+import { Router } from 'express';
+import { spectraQuerySchema } from '../contracts/ingest';
+import { linkSpectrumRequestSchema } from '../contracts/targets';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import type { ServiceContext } from '../services/context';
+import { linkSpectrum, spectrumCampaignId } from '../services/link-spectrum';
+import { listSpectra } from '../services/list-spectra';
+
+export function spectrumRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/campaigns/:id/spectra',
+    access: access.campaignViewer,
+    query: spectraQuerySchema,
+    handle: ({ campaign, query }) => listSpectra(ctx, campaign!.id, query),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'patch',
+    path: '/spectra/:spectrumId/target',
+    access: access.campaignOf((c, req) => spectrumCampaignId(c, Number(req.params.spectrumId)), 'lead'),
+    body: linkSpectrumRequestSchema,
+    handle: ({ req, user, body }) => linkSpectrum(ctx, user!, Number(req.params.spectrumId), body.targetId),
+  });
+
+  return router;
+}

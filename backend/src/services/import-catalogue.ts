@@ -1,0 +1,87 @@
+import { and, eq, isNull, sql } from 'drizzle-orm';
+import type { CatalogueImportResult, ColumnMapping } from '../contracts/targets';
+import { spectra, targets } from '../db/schema';
+import { AppError } from '../http/errors';
+import { linkTarget } from '../ingest/link-target';
+import { guessMapping, parseCatalogueText, readCatalogueRows } from '../ingest/read-catalogue';
+import type { Actor, ServiceContext } from './context';
+import { recordAudit } from './record-audit';
+
+/**
+ * Imports a target catalogue. Without a mapping (or with `dryRun`) it only reports the columns,
+ * the proposed mapping and the row errors, for the mapping step. With a valid mapping it
+ * creates or updates targets by catalogue id — all rows or none — and links spectra that had no
+ * target yet. Targets are updated in place, so readings on their spectra are untouched.
+ */
+export function importCatalogue(
+  ctx: ServiceContext,
+  actor: Actor,
+  campaignId: number,
+  text: string,
+  mapping: ColumnMapping | undefined,
+  dryRun: boolean,
+): CatalogueImportResult {
+  const parsed = parseCatalogueText(text);
+  if (parsed.columns.length === 0) {
+    throw new AppError(400, 'catalogue_empty', 'The catalogue has no header line with column names.');
+  }
+  const used = mapping ?? guessMapping(parsed.columns);
+  const base = { columns: parsed.columns, mapping: used, rows: parsed.records.length, created: 0, updated: 0, linked: 0 };
+  if (!used) {
+    return { ...base, dryRun: true, errors: [{ line: 1, column: null, message: 'No column looks like a catalogue id; choose one.' }] };
+  }
+  const { targets: rows, errors } = readCatalogueRows(parsed, used);
+  if (dryRun || errors.length > 0) return { ...base, dryRun: true, errors };
+
+  return ctx.db.transaction((tx) => {
+    const existing = new Set(
+      tx.select({ id: targets.catalogueId }).from(targets).where(eq(targets.campaignId, campaignId)).all().map((r) => r.id),
+    );
+    const now = ctx.now().toISOString();
+    for (const row of rows) {
+      const values = { ...row, campaignId, updatedAt: now };
+      tx.insert(targets)
+        .values(values)
+        .onConflictDoUpdate({
+          target: [targets.campaignId, targets.catalogueId],
+          set: {
+            ra: sql`excluded.ra`,
+            dec: sql`excluded.dec`,
+            magnitude: sql`excluded.magnitude`,
+            photoZ: sql`excluded.photo_z`,
+            photoZLow: sql`excluded.photo_z_low`,
+            photoZHigh: sql`excluded.photo_z_high`,
+            imageFamily: sql`excluded.image_family`,
+            priority: sql`excluded.priority`,
+            extra: sql`excluded.extra`,
+            updatedAt: now,
+          },
+        })
+        .run();
+    }
+    const created = rows.filter((r) => !existing.has(r.catalogueId)).length;
+
+    const all = tx.select({ id: targets.id, catalogueId: targets.catalogueId, ra: targets.ra, dec: targets.dec }).from(targets).where(eq(targets.campaignId, campaignId)).all();
+    const unlinked = tx
+      .select({ id: spectra.id, fileName: spectra.fileName, objectName: spectra.objectName, ra: spectra.ra, dec: spectra.dec })
+      .from(spectra)
+      .where(and(eq(spectra.campaignId, campaignId), isNull(spectra.targetId)))
+      .all();
+    let linked = 0;
+    for (const s of unlinked) {
+      const link = linkTarget(all, { fileName: s.fileName, objectName: s.objectName ?? undefined, ra: s.ra ?? undefined, dec: s.dec ?? undefined }, ctx.config.linkToleranceArcsec);
+      if (!link) continue;
+      tx.update(spectra).set({ targetId: link.targetId, linkMethod: link.method }).where(eq(spectra.id, s.id)).run();
+      linked += 1;
+    }
+    recordAudit(tx, {
+      actorId: actor.id,
+      action: 'targets.imported',
+      subjectType: 'campaign',
+      subjectId: campaignId,
+      campaignId,
+      after: { rows: rows.length, created, updated: rows.length - created, linked, mapping: used },
+    });
+    return { ...base, dryRun: false, created, updated: rows.length - created, linked, errors: [] };
+  });
+}

@@ -1,0 +1,99 @@
+import { rmSync } from 'node:fs';
+import { eq } from 'drizzle-orm';
+import { campaigns, jobItems, jobs, storedFiles } from '../db/schema';
+import { AppError, badRequest } from '../http/errors';
+import { ArchiveRefusedError, expandArchive } from '../ingest/expand-archive';
+import { isZipFileName } from '../jobs/accepted-files';
+import type { BlobStore } from '../storage/blob-store';
+import type { Actor, ServiceContext } from './context';
+import { recordAudit } from './record-audit';
+
+export interface ReceivedFile {
+  /** The name the person gave the file. */
+  originalName: string;
+  /** Where the upload landed, inside the store's temporary folder. */
+  tempFile: string;
+}
+
+export interface UploadReceipt {
+  jobId: number;
+  files: number;
+  entries: number;
+  bytes: number;
+}
+
+interface Entry {
+  fileName: string;
+  sha256: string;
+  sizeBytes: number;
+}
+
+/**
+ * Keeps every uploaded file (archives expanded) in the content-addressed store and queues one
+ * ingest job with an item per file; parsing, linking and scanning happen in the job. An
+ * archive that breaks a limit refuses the whole upload and nothing of it is kept.
+ */
+export async function receiveUpload(
+  ctx: ServiceContext,
+  store: BlobStore,
+  actor: Actor,
+  campaignId: number,
+  files: ReceivedFile[],
+): Promise<UploadReceipt> {
+  if (files.length === 0) {
+    throw badRequest('No files arrived. Send spectra (or zip archives of them) in the multipart field "files".', 'no_files');
+  }
+  const staged: { tempFile: string; entry: Entry }[] = [];
+  try {
+    for (const file of files) {
+      if (isZipFileName(file.originalName)) {
+        const expanded = await expandArchive(file.tempFile, file.originalName, store, ctx.config.uploads.archive);
+        rmSync(file.tempFile, { force: true });
+        if (expanded.length === 0) throw badRequest(`${file.originalName} contains no files.`, 'archive_empty');
+        for (const e of expanded) {
+          staged.push({ tempFile: e.tempFile, entry: { fileName: `${file.originalName}/${e.name}`, sha256: e.sha256, sizeBytes: e.sizeBytes } });
+        }
+      } else {
+        const { sha256, sizeBytes } = await store.hashFile(file.tempFile);
+        staged.push({ tempFile: file.tempFile, entry: { fileName: file.originalName, sha256, sizeBytes } });
+      }
+    }
+  } catch (err) {
+    for (const f of files) rmSync(f.tempFile, { force: true });
+    for (const s of staged) rmSync(s.tempFile, { force: true });
+    if (err instanceof ArchiveRefusedError) {
+      const status = err.code === 'archive_corrupt' ? 400 : 413;
+      throw new AppError(status, err.code, `${err.message} Nothing from this upload was stored.`);
+    }
+    throw err;
+  }
+  // Only now, with every file accepted, does anything enter the store.
+  for (const s of staged) store.commitHashed(s.tempFile, s.entry.sha256, s.entry.sizeBytes);
+
+  const entries = staged.map((s) => s.entry);
+  const campaign = ctx.db.select({ zMin: campaigns.zMin, zMax: campaigns.zMax }).from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
+  const jobId = ctx.db.transaction((tx) => {
+    for (const e of entries) tx.insert(storedFiles).values({ sha256: e.sha256, sizeBytes: e.sizeBytes }).onConflictDoNothing().run();
+    const job = tx
+      .insert(jobs)
+      .values({ kind: 'ingest', campaignId, createdBy: actor.id, total: entries.length, settings: { zMin: campaign.zMin, zMax: campaign.zMax } })
+      .returning({ id: jobs.id })
+      .get();
+    const CHUNK = 500;
+    for (let i = 0; i < entries.length; i += CHUNK) {
+      tx.insert(jobItems)
+        .values(entries.slice(i, i + CHUNK).map((e) => ({ jobId: job.id, fileName: e.fileName, sha256: e.sha256 })))
+        .run();
+    }
+    recordAudit(tx, {
+      actorId: actor.id,
+      action: 'upload.received',
+      subjectType: 'job',
+      subjectId: job.id,
+      campaignId,
+      after: { files: files.map((f) => f.originalName), entries: entries.length },
+    });
+    return job.id;
+  });
+  return { jobId, files: files.length, entries: entries.length, bytes: entries.reduce((s, e) => s + e.sizeBytes, 0) };
+}

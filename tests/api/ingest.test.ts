@@ -1,0 +1,124 @@
+import { readdirSync } from 'node:fs';
+import path from 'node:path';
+import { count } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { scanResults, spectra, storedFiles } from '../../backend/src/db/schema';
+import { brokenSpectrumFiles, syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+let archive: Buffer;
+
+beforeAll(async () => {
+  t = await createTestApp({ SCAN_THREADS: '2' });
+  archive = zip({ ...syntheticSpectrumFiles(200), ...brokenSpectrumFiles() });
+}, 60_000);
+afterAll(() => t.cleanup());
+
+async function waitForJob(agent: ReturnType<TestApp['agent']>, jobId: number) {
+  for (let i = 0; i < 600; i++) {
+    const res = await agent.get(`/api/jobs/${jobId}`);
+    expect(res.status).toBe(200);
+    if (['done', 'failed', 'cancelled'].includes(res.body.state)) return res.body;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`job ${jobId} did not finish`);
+}
+
+const countRows = (table: typeof spectra | typeof storedFiles | typeof scanResults) => t.ctx.db.select({ n: count() }).from(table).get()!.n;
+
+describe('uploading a zip of spectra', () => {
+  it('stores and scans 200 spectra and explains the 3 broken files', { timeout: 120_000 }, async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.post('/api/campaigns/1/uploads').attach('files', archive, 'night1.zip');
+    expect(res.status, JSON.stringify(res.body)).toBe(202);
+    expect(res.body).toMatchObject({ files: 1, entries: 203 });
+
+    const job = await waitForJob(lead, res.body.jobId);
+    expect(job.state).toBe('done');
+    expect(job).toMatchObject({ done: 203, total: 203 });
+    expect(job.summary).toMatchObject({ stored: 200, duplicates: 0, failed: 3 });
+    const reasons = Object.fromEntries(job.errors.map((e: { file: string; code: string; message: string }) => [e.file, e]));
+    expect(Object.keys(reasons).sort()).toEqual(['night1.zip/broken/empty.txt', 'night1.zip/broken/no-flux-column.csv', 'night1.zip/broken/truncated.fits']);
+    expect(reasons['night1.zip/broken/empty.txt'].message).toBe('The file is empty.');
+    expect(reasons['night1.zip/broken/truncated.fits'].message).toMatch(/HDU|data|bytes|truncat/i);
+    expect(reasons['night1.zip/broken/no-flux-column.csv'].message).toMatch(/flux/i);
+
+    expect(countRows(spectra)).toBe(200);
+    expect(countRows(scanResults)).toBe(200);
+    // Every file is kept, the broken ones too: nothing uploaded is lost.
+    expect(countRows(storedFiles)).toBe(203);
+
+    const list = await lead.get('/api/campaigns/1/spectra?sort=fileName&pageSize=5');
+    expect(list.status).toBe(200);
+    expect(list.body.total).toBe(200);
+    expect(list.body.rows[0]).toMatchObject({ fileName: 'night1.zip/night1/TST-0001.csv', scanState: 'scanned' });
+    expect(typeof list.body.rows[0].zBest).toBe('number');
+  });
+
+  it('recognises the same zip again as 200 duplicates and stores nothing twice', { timeout: 60_000 }, async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.post('/api/campaigns/1/uploads').attach('files', archive, 'night1-again.zip');
+    expect(res.status).toBe(202);
+    const job = await waitForJob(lead, res.body.jobId);
+    expect(job.summary).toMatchObject({ stored: 0, duplicates: 200, failed: 3 });
+    expect(countRows(spectra)).toBe(200);
+    expect(countRows(scanResults)).toBe(200);
+    expect(countRows(storedFiles)).toBe(203);
+  });
+
+  it('refuses a zip bomb with a clear message and stores nothing', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const before = countRows(storedFiles);
+    const bomb = zip({ 'harmless.csv': new Uint8Array(60 * 1024 * 1024) });
+    expect(bomb.length).toBeLessThan(200 * 1024);
+    const res = await lead.post('/api/campaigns/1/uploads').attach('files', bomb, 'bomb.zip');
+    expect(res.status).toBe(413);
+    expect(res.body.error.code).toBe('archive_ratio');
+    expect(res.body.error.message).toMatch(/bomb\.zip expands more than 200 times its size .* Nothing from this upload was stored\./);
+    expect(countRows(storedFiles)).toBe(before);
+    expect(readdirSync(path.join(t.ctx.config.uploadsDir, 'tmp'))).toEqual([]);
+  });
+
+  it('refuses an upload from a reader before reading it', async () => {
+    const reader = await t.signIn('reader1@demo.test');
+    const before = countRows(storedFiles);
+    const res = await reader.post('/api/campaigns/1/uploads').attach('files', Buffer.from('wavelength,flux\n1,2\n'), 'sneaky.csv');
+    expect(res.status).toBe(403);
+    expect(countRows(storedFiles)).toBe(before);
+  });
+
+  it('says when no file arrived', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.post('/api/campaigns/1/uploads').field('note', 'forgot the files');
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('no_files');
+  });
+});
+
+describe('upload limits', () => {
+  let small: TestApp;
+  beforeAll(async () => {
+    small = await createTestApp({ UPLOAD_MAX_FILE_MB: '1', UPLOAD_MAX_TOTAL_MB: '3', JOB_RUNNER: '0' });
+  });
+  afterAll(() => small.cleanup());
+
+  it('answers 413 for a file over the per-file limit and keeps nothing', async () => {
+    const lead = await small.signIn('lead@demo.test');
+    const res = await lead.post('/api/campaigns/1/uploads').attach('files', Buffer.alloc(1024 * 1024 + 10, 65), 'huge.txt');
+    expect(res.status).toBe(413);
+    expect(res.body.error).toEqual({
+      code: 'file_too_large',
+      message: 'A file is larger than the 1 MB limit for one file (files). Nothing from this upload was stored.',
+    });
+    expect(readdirSync(path.join(small.ctx.config.uploadsDir, 'tmp'))).toEqual([]);
+  });
+
+  it('answers 413 from the declared length when the whole upload is too large', async () => {
+    const lead = await small.signIn('lead@demo.test');
+    const res = await lead.post('/api/campaigns/1/uploads').set('Content-Length', String(2 * 1024 ** 3)).send('');
+    expect(res.status).toBe(413);
+    expect(res.body.error.code).toBe('upload_too_large');
+    expect(res.body.error.message).toMatch(/The upload is 2048 MB; one upload may be at most 3 MB/);
+  });
+});
