@@ -88,6 +88,39 @@ describe('uploading a zip of spectra', () => {
     expect(countRows(storedFiles)).toBe(before);
   });
 
+  it('streams progress as server-sent events, ending with the finished job', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.get('/api/jobs/1/events').buffer(true).parse((r, done) => {
+      let text = '';
+      r.on('data', (c: Buffer) => (text += c.toString()));
+      r.on('end', () => done(null, text));
+    });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/^text\/event-stream/);
+    const events = String(res.body).split('\n\n').filter((e) => e.startsWith('event: progress'));
+    const last = JSON.parse(events.at(-1)!.split('\ndata: ')[1]!);
+    expect(last).toMatchObject({ id: 1, state: 'done', done: 203, total: 203 });
+  });
+
+  it('lets a lead link an unlinked spectrum by hand, and re-links by catalogue id on import', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const catalogue = 'id,ra,dec\nTST-0001,150.1,2.2\nTST-0002,150.2,2.3\n';
+    const imported = await lead.post('/api/campaigns/1/targets').attach('files', Buffer.from(catalogue), 'cat.csv');
+    expect(imported.status).toBe(200);
+    // TST-0001 and TST-0002 are in the spectra's file names: the import links them.
+    expect(imported.body.linked).toBe(2);
+    const unlinked = await lead.get('/api/campaigns/1/spectra?linked=no&pageSize=1&sort=fileName');
+    expect(unlinked.body.total).toBe(198);
+    const spectrumId = unlinked.body.rows[0].id;
+    const targetId = (await lead.get('/api/campaigns/1/targets?q=TST-0002')).body.targets[0].id;
+    const linked = await lead.patch(`/api/spectra/${spectrumId}/target`).send({ targetId });
+    expect(linked.status).toBe(200);
+    const reader = await t.signIn('reader1@demo.test');
+    expect((await reader.patch(`/api/spectra/${spectrumId}/target`).send({ targetId: null })).status).toBe(403);
+    const row = (await lead.get('/api/campaigns/1/spectra?linked=yes&q=TST-0002&pageSize=10')).body.rows;
+    expect(row.map((r: { target: { catalogueId: string } }) => r.target.catalogueId)).toEqual(['TST-0002', 'TST-0002']);
+  });
+
   it('says when no file arrived', async () => {
     const lead = await t.signIn('lead@demo.test');
     const res = await lead.post('/api/campaigns/1/uploads').field('note', 'forgot the files');
@@ -112,6 +145,18 @@ describe('upload limits', () => {
       message: 'A file is larger than the 1 MB limit for one file (files). Nothing from this upload was stored.',
     });
     expect(readdirSync(path.join(small.ctx.config.uploadsDir, 'tmp'))).toEqual([]);
+  });
+
+  it('cancels a queued job at once, and refuses to cancel it twice', async () => {
+    const lead = await small.signIn('lead@demo.test');
+    const upload = await lead.post('/api/campaigns/1/uploads').attach('files', Buffer.from('wavelength,flux\n4000,1\n'), 'one.csv');
+    expect(upload.status).toBe(202);
+    const cancelled = await lead.post(`/api/jobs/${upload.body.jobId}/cancel`);
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.state).toBe('cancelled');
+    const again = await lead.post(`/api/jobs/${upload.body.jobId}/cancel`);
+    expect(again.status).toBe(400);
+    expect(again.body.error).toEqual({ code: 'job_finished', message: 'The job has already ended (cancelled).' });
   });
 
   it('answers 413 from the declared length when the whole upload is too large', async () => {
