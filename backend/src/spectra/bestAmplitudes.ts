@@ -1,3 +1,8 @@
+const sub = new Float64Array(9);
+const rhs = new Float64Array(3);
+const sol = new Float64Array(3);
+const idx = new Int32Array(3);
+
 /**
  * Largest χ² reduction rᵀa with a = A⁻¹r over all subsets of the m ≤ 3 components whose
  * amplitudes come out non-negative (the non-negative least-squares optimum for such small m is
@@ -11,10 +16,6 @@
 export function bestAmplitudes(a: Float64Array, r: Float64Array, m: number, amplitudes: Float64Array): number {
   let best = 0;
   amplitudes.fill(0, 0, m);
-  const sub = new Float64Array(9);
-  const rhs = new Float64Array(3);
-  const sol = new Float64Array(3);
-  const idx = [0, 0, 0];
   for (let mask = (1 << m) - 1; mask >= 1; mask--) {
     let k = 0;
     for (let c = 0; c < m; c++) if (mask & (1 << c)) idx[k++] = c;
@@ -53,13 +54,13 @@ function solveSmall(a: Float64Array, b: Float64Array, x: Float64Array, k: number
     x[1] = (a[0]! * b[1]! - b[0]! * a[2]!) / det;
     return true;
   }
-  const [a00, a01, a02, a10, a11, a12, a20, a21, a22] = [a[0]!, a[1]!, a[2]!, a[3]!, a[4]!, a[5]!, a[6]!, a[7]!, a[8]!];
+  const a00 = a[0]!, a01 = a[1]!, a02 = a[2]!, a10 = a[3]!, a11 = a[4]!, a12 = a[5]!, a20 = a[6]!, a21 = a[7]!, a22 = a[8]!;
   const c00 = a11 * a22 - a12 * a21;
   const c01 = a12 * a20 - a10 * a22;
   const c02 = a10 * a21 - a11 * a20;
   const det = a00 * c00 + a01 * c01 + a02 * c02;
   if (!(det > 1e-6 * a00 * a11 * a22)) return false;
-  const [b0, b1, b2] = [b[0]!, b[1]!, b[2]!];
+  const b0 = b[0]!, b1 = b[1]!, b2 = b[2]!;
   x[0] = (b0 * c00 + a01 * (b2 * a12 - b1 * a22) + a02 * (b1 * a21 - b2 * a11)) / det;
   x[1] = (a00 * (b1 * a22 - b2 * a12) + b0 * c01 + a02 * (b2 * a10 - b1 * a20)) / det;
   x[2] = (a00 * (a11 * b2 - a21 * b1) + a01 * (b1 * a20 - b2 * a10) + b0 * c02) / det;

@@ -44,8 +44,10 @@ export interface TemplateSet {
   continuumWidthPx: number;
   instrumentSigmaPx: number;
   templates: BuiltTemplate[];
-  /** FFTs of template slices, reused across spectra with the same grid layout. */
-  fftCache: Map<string, Float64Array>;
+  /** Identifies the set (step, σ, filter) in caches of prepared template buffers. */
+  key: string;
+  /** Pairwise products of basis vectors (for the Gram correlations), filled on first use. */
+  products: Map<string, Float64Array>;
 }
 
 const memo = new Map<string, TemplateSet>();
@@ -75,7 +77,7 @@ export function buildTemplates(step: number, instrumentSigmaPx: number, continuu
   const lambda = new Float64Array(length);
   for (let j = 0; j < length; j++) lambda[j] = 10 ** ((h0 + j) * step);
   const templates = TEMPLATE_RECIPES.map((r) => buildOne(r, lambda, step, instrumentSigmaPx, continuumWidthPx));
-  return { step, h0, length, continuumWidthPx, instrumentSigmaPx, templates, fftCache: new Map() };
+  return { step, h0, length, continuumWidthPx, instrumentSigmaPx, templates, key: `${step}|${instrumentSigmaPx}|${continuumWidthPx}`, products: new Map() };
 }
 
 function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, sigmaPx: number, widthPx: number): BuiltTemplate {

@@ -4,7 +4,7 @@ import { shiftToZ } from './logGrid';
 import { matchEmissionLines, type LineMatchResult } from './matchEmissionLines';
 import { prepareSpectrum, type PrepareOptions, type PreparedSpectrum } from './prepareSpectrum';
 import { rankWithPhotoZ, type PhotoZPrior } from './rankWithPhotoZ';
-import { scanData, scanTemplate, type TemplateCurve } from './scanTemplate';
+import { scanData, scanTemplates, type TemplateCurve, type TemplateRequest } from './scanTemplate';
 import type { Spectrum, SpectrumClass, TemplateClass } from './types';
 import { ENGINE_VERSION } from './version';
 
@@ -108,16 +108,14 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const set = templatesFor(prepared);
   const data = scanData(prepared);
   const classes = options.classes;
-  const curves: TemplateCurve[] = [];
+  const requests: TemplateRequest[] = [];
   for (const t of set.templates) {
     if (classes && !classes.includes(t.class)) continue;
     // Stars are Galactic: their templates cover only |z| ≤ 0.002 regardless of the range asked.
-    const lo = t.class === 'star' ? t.zMin : zMin;
-    const hi = t.class === 'star' ? t.zMax : zMax;
     if (t.class === 'star' && zMin > 0.002) continue;
-    const c = scanTemplate(data, set, t, lo, hi, options.method ?? 'fft');
-    if (c) curves.push(c);
+    requests.push({ template: t, zMin: t.class === 'star' ? t.zMin : zMin, zMax: t.class === 'star' ? t.zMax : zMax });
   }
+  const curves = scanTemplates(data, set, requests, options.method ?? 'fft');
   const maxSolutions = options.maxSolutions ?? 5;
   const raw = findSolutions(curves, set.step, maxSolutions);
   const solutions: Solution[] = raw.map((s, k) => ({

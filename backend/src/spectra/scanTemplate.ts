@@ -1,10 +1,10 @@
 import { bestAmplitudes } from './bestAmplitudes';
 import type { BuiltTemplate, TemplateSet } from './buildTemplates';
-import { directCorrelator, fftCorrelator, type ShiftCorrelator } from './correlateShifts';
+import { directCorrelator, fftCorrelator, type LagWindow, type ShiftCorrelator } from './correlateShifts';
 import { zToShift } from './logGrid';
 import type { PreparedSpectrum } from './prepareSpectrum';
 
-/** χ² of one template at every integer shift s = sMin … sMax (log10(1+z) = s·step). */
+/** χ² of one template at every integer shift s = sMin … sMin + chi2.length − 1 (log10(1+z) = s·step). */
 export interface TemplateCurve {
   template: BuiltTemplate;
   sMin: number;
@@ -14,13 +14,30 @@ export interface TemplateCurve {
   maxBasis: number;
 }
 
+/**
+ * Data windows start on multiples of this many grid pixels. Every spectrum is a window on the one
+ * global log-λ grid; aligning the window's start makes the template buffers (and their FFTs) depend
+ * only on the aligned start, the shift range and the transform size, so spectra of one instrument —
+ * whose first pixels differ by a few pixels — share them.
+ */
+const ALIGN = 512;
+
 /** Data-side vectors of one spectrum, prepared once per scan. */
 export interface ScanData {
   prepared: PreparedSpectrum;
+  /** Global grid index of buffer element 0 (a multiple of ALIGN, ≤ the first data pixel). */
+  origin: number;
+  /** Buffer length that holds the data (first pixel at origin + offset). */
+  span: number;
+  offset: number;
   wf: Float64Array;
   w: Float64Array;
   /** Σ w f², the χ² of a zero model. */
   chi2Null: number;
+  normWf: number;
+  normW: number;
+  /** Padded data buffers (or their FFTs) per transform size and method. */
+  buffers: Map<string, { wf: Float64Array; w: Float64Array }>;
 }
 
 export function scanData(prepared: PreparedSpectrum): ScanData {
@@ -40,135 +57,257 @@ export function scanData(prepared: PreparedSpectrum): ScanData {
     wf[i] = w[i]! * f;
     chi2Null += wf[i]! * f;
   }
-  return { prepared, wf, w, chi2Null };
+  const origin = Math.floor(prepared.g0 / ALIGN) * ALIGN;
+  const offset = prepared.g0 - origin;
+  return { prepared, origin, offset, span: offset + n, wf, w, chi2Null, normWf: norm(wf), normW: norm(w), buffers: new Map() };
+}
+
+function dataBuffers(data: ScanData, corr: ShiftCorrelator): { wf: Float64Array; w: Float64Array } {
+  const key = `${corr.method}|${corr.size}`;
+  let b = data.buffers.get(key);
+  if (!b) {
+    const pad = (v: Float64Array) => {
+      const out = new Float64Array(corr.size);
+      out.set(v, data.offset);
+      return corr.prepare(out);
+    };
+    b = { wf: pad(data.wf), w: pad(data.w) };
+    data.buffers.set(key, b);
+  }
+  return b;
+}
+
+/** A template buffer ready for correlation, with its Euclidean norm (for the round-off bound). */
+interface PreparedVector {
+  spectrum: Float64Array;
+  norm: number;
+}
+
+/**
+ * Template buffers by (set, template, vector, window origin, top shift, size): bounded by bytes, the
+ * least recently used are dropped first.
+ */
+const vectorCache = new Map<string, PreparedVector>();
+let vectorCacheBytes = 0;
+const VECTOR_CACHE_BYTES = 192 * 1024 * 1024;
+
+function templateVector(set: TemplateSet, template: BuiltTemplate, vector: string, values: () => Float64Array, origin: number, top: number, corr: ShiftCorrelator): PreparedVector {
+  const key = `${set.key}|${template.id}|${vector}|${origin}|${top}|${corr.method}|${corr.size}`;
+  const hit = vectorCache.get(key);
+  if (hit) {
+    vectorCache.delete(key);
+    vectorCache.set(key, hit);
+    return hit;
+  }
+  // Buffer element j holds the rest-frame template at global index origin − top + j, so the
+  // correlation lag ℓ = top − s gives the model at shift s under data buffer element i.
+  const full = values();
+  const buffer = new Float64Array(corr.size);
+  const start = origin - top - set.h0;
+  const a = Math.max(0, -start);
+  const b = Math.min(corr.size, full.length - start);
+  if (b > a) buffer.set(full.subarray(start + a, start + b), a);
+  const prepared: PreparedVector = { spectrum: corr.prepare(buffer), norm: norm(buffer) };
+  if (corr.method === 'fft') {
+    vectorCache.set(key, prepared);
+    vectorCacheBytes += prepared.spectrum.byteLength;
+    for (const [k, v] of vectorCache) {
+      if (vectorCacheBytes <= VECTOR_CACHE_BYTES) break;
+      vectorCache.delete(k);
+      vectorCacheBytes -= v.spectrum.byteLength;
+    }
+  }
+  return prepared;
+}
+
+/** One correlation to compute: data vector against a prepared template vector. */
+interface Job {
+  data: 'wf' | 'w';
+  vector: PreparedVector;
+  window: LagWindow;
+  corr: ShiftCorrelator;
+  out?: Float64Array;
+}
+
+/** Bins with at most this many shifts are correlated directly even on the FFT path. */
+const DIRECT_BELOW = 48;
+
+/** What one template needs computed, and where its χ² goes. */
+interface TemplatePlan {
+  template: BuiltTemplate;
+  sMin: number;
+  lags: number;
+  maxBasis: number;
+  bins: Array<{ lo: number; hi: number; m: number; proj: Job[]; gram: Job[] }>;
+}
+
+/** A template and the redshift range to scan it over. */
+export interface TemplateRequest {
+  template: BuiltTemplate;
+  zMin: number;
+  zMax: number;
 }
 
 /**
  * Weighted χ²(s) = Σ w (f − Σ_c a_c T_c(s))² minimised over non-negative amplitudes a_c at every
- * shift at once: Σ w f T_c(s) and Σ w T_a T_b (s) are cross-correlations of the data vectors
- * (w f, w) with the template basis and its pairwise products, computed by FFT (or directly, for
- * the benchmark). Returns undefined when the template's z range misses the requested one.
+ * shift at once, for several templates: Σ w f T_c(s) and Σ w T_a T_b (s) are cross-correlations
+ * of the data vectors (w f, w) with the template basis and its pairwise products, computed by FFT
+ * (or directly, for the benchmark). Each redshift bin of a template is correlated only over its
+ * own shifts, and correlations of all templates are packed two per inverse transform. Templates
+ * whose z range misses the requested one give no curve.
  */
-export function scanTemplate(
-  data: ScanData,
-  set: TemplateSet,
-  template: BuiltTemplate,
-  zMin: number,
-  zMax: number,
-  method: 'fft' | 'direct',
-): TemplateCurve | undefined {
-  const { prepared } = data;
+export function scanTemplates(data: ScanData, set: TemplateSet, requests: TemplateRequest[], method: 'fft' | 'direct'): TemplateCurve[] {
+  const plans: TemplatePlan[] = [];
+  for (const req of requests) {
+    const plan = planTemplate(data, set, req, method);
+    if (plan) plans.push(plan);
+  }
+  runJobs(data, plans.flatMap((p) => p.bins.flatMap((b) => [...b.proj, ...new Set(b.gram)])));
+  return plans.map((p) => finishTemplate(data, p));
+}
+
+/** One template alone (see scanTemplates). */
+export function scanTemplate(data: ScanData, set: TemplateSet, template: BuiltTemplate, zMin: number, zMax: number, method: 'fft' | 'direct'): TemplateCurve | undefined {
+  return scanTemplates(data, set, [{ template, zMin, zMax }], method)[0];
+}
+
+function planTemplate(data: ScanData, set: TemplateSet, req: TemplateRequest, method: 'fft' | 'direct'): TemplatePlan | undefined {
+  const { template } = req;
   const step = set.step;
-  const sMin = Math.ceil(zToShift(Math.max(zMin, template.zMin), step));
-  const sMax = Math.floor(zToShift(Math.min(zMax, template.zMax), step));
+  const sMin = Math.ceil(zToShift(Math.max(req.zMin, template.zMin), step));
+  const sMax = Math.floor(zToShift(Math.min(req.zMax, template.zMax), step));
   if (sMax < sMin) return undefined;
-  const n = prepared.n;
-  const lags = sMax - sMin + 1;
-  const len = n + lags - 1;
-  // Buffer element j holds the template at global rest index g0 − sMax + j, so lag ℓ = sMax − s.
-  const start = prepared.g0 - sMax - set.h0;
-  const slice = (values: Float64Array) => {
-    const out = new Float64Array(len);
-    const a = Math.max(0, -start);
-    const b = Math.min(len, values.length - start);
-    if (b > a) out.set(values.subarray(start + a, start + b), a);
-    return out;
-  };
-  let size = 1;
-  while (size < len) size <<= 1;
-  const corr: ShiftCorrelator = method === 'fft' ? fftCorrelator(size, set.fftCache) : directCorrelator();
-  const dWf = corr.data(data.wf);
-  const dW = corr.data(data.w);
-  const layout = `${start}|${len}`;
-  const usedBasis = [...new Set(template.bins.flatMap((b) => b.basis))];
-  const pairKeys = new Set<string>();
-  for (const bin of template.bins) {
-    for (let p = 0; p < bin.basis.length; p++) for (let q = p; q < bin.basis.length; q++) pairKeys.add(`${bin.basis[p]},${bin.basis[q]}`);
-  }
-  const slices = new Map<number, Float64Array>();
-  const sliceOf = (b: number) => {
-    let s = slices.get(b);
-    if (!s) {
-      s = slice(template.basis[b]!.values);
-      slices.set(b, s);
-    }
-    return s;
-  };
-  // Every correlation needed, as (data vector, template vector) jobs processed two at a time.
-  type Job = { d: unknown; x: () => unknown; store: (c: Float64Array) => void };
-  const proj = new Map<number, Float64Array>();
-  const gram = new Map<string, Float64Array>();
-  const jobs: Job[] = [];
-  for (const b of usedBasis) {
-    jobs.push({ d: dWf, x: () => corr.template(sliceOf(b), `${template.id}|${b}|${set.instrumentSigmaPx}|${layout}`), store: (c) => proj.set(b, c) });
-  }
-  for (const key of pairKeys) {
-    const [p, q] = key.split(',').map(Number) as [number, number];
-    jobs.push({
-      d: dW,
-      x: () => {
-        const cacheKey = `${template.id}|${key}|${set.instrumentSigmaPx}|${layout}`;
-        return corr.template(productSlice(sliceOf(p), sliceOf(q)), cacheKey);
-      },
-      store: (c) => gram.set(key, c),
-    });
-  }
-  // Jobs are paired only with jobs of the same kind (projection with projection, Gram with Gram):
-  // a packed pair shares one inverse FFT and therefore its round-off scale.
-  const pairs: Array<[Job, Job | undefined]> = [];
-  for (const group of [jobs.slice(0, usedBasis.length), jobs.slice(usedBasis.length)]) {
-    for (let k = 0; k < group.length; k += 2) pairs.push([group[k]!, group[k + 1]]);
-  }
-  for (const [j1, j2] of pairs) {
-    const [c1, c2] = corr.pair(j1.d, j1.x(), j2?.d, j2?.x(), lags);
-    j1.store(c1);
-    if (j2 && c2) j2.store(c2);
-  }
-  const maxBasis = Math.max(...template.bins.map((b) => b.basis.length));
-  const chi2 = new Float64Array(lags).fill(data.chi2Null);
-  const amplitudes = new Float64Array(lags * maxBasis);
-  const a = new Float64Array(9);
-  const r = new Float64Array(3);
-  const amp = new Float64Array(3);
+  const bins: TemplatePlan['bins'] = [];
   for (const bin of template.bins) {
     const lo = Math.max(sMin, Math.ceil(zToShift(bin.zLo, step)));
     const hi = Math.min(sMax, Math.floor(zToShift(bin.zHi, step)));
+    if (hi < lo) continue;
+    // The buffer's top shift is the bin's own upper shift rounded up, so it does not depend on the
+    // range a caller asked for; lags ℓ = top − s then run from top − hi to top − lo.
+    const top = Math.ceil(zToShift(bin.zHi, step) / ALIGN) * ALIGN;
+    const window = { l0: top - hi, count: hi - lo + 1 };
+    let size = 1;
+    while (size < data.span + top - lo) size <<= 1;
+    // A handful of shifts (stars near z = 0) is cheaper by the direct sum than by a transform.
+    const corr = method === 'fft' && window.count > DIRECT_BELOW ? fftCorrelator(size) : directCorrelator(size);
     const m = bin.basis.length;
-    const projs = bin.basis.map((b) => proj.get(b)!);
-    const grams: Float64Array[] = [];
+    const proj: Job[] = [];
+    const gram: Job[] = [];
+    for (const b of bin.basis) {
+      const vector = templateVector(set, template, `b${b}`, () => template.basis[b]!.values, data.origin, top, corr);
+      proj.push({ data: 'wf', vector, window, corr });
+    }
+    for (let p = 0; p < m; p++) for (let q = 0; q < m; q++) {
+      if (q < p) {
+        gram.push(gram[q * m + p]!);
+        continue;
+      }
+      const [x, y] = bin.basis[p]! <= bin.basis[q]! ? [bin.basis[p]!, bin.basis[q]!] : [bin.basis[q]!, bin.basis[p]!];
+      const vector = templateVector(set, template, `p${x},${y}`, () => basisProduct(set, template, x, y), data.origin, top, corr);
+      gram.push({ data: 'w', vector, window, corr });
+    }
+    bins.push({ lo, hi, m, proj, gram });
+  }
+  return { template, sMin, lags: sMax - sMin + 1, maxBasis: Math.max(...template.bins.map((b) => b.basis.length)), bins };
+}
+
+/**
+ * Runs correlation jobs, two per inverse transform. A job is packed only with one of the same kind
+ * (projection with projection, Gram with Gram) and transform size: a packed pair shares one
+ * inverse FFT and therefore its round-off scale.
+ */
+function runJobs(data: ScanData, jobs: Job[]): void {
+  const groups = new Map<ShiftCorrelator, Map<'wf' | 'w', Job[]>>();
+  for (const j of jobs) {
+    let byKind = groups.get(j.corr);
+    if (!byKind) groups.set(j.corr, (byKind = new Map()));
+    const list = byKind.get(j.data);
+    if (list) list.push(j);
+    else byKind.set(j.data, [j]);
+  }
+  for (const [corr, byKind] of groups) {
+    const d = dataBuffers(data, corr);
+    for (const [kind, list] of byKind) {
+      for (let k = 0; k < list.length; k += 2) {
+        const j1 = list[k]!;
+        const j2 = list[k + 1];
+        const [c1, c2] = corr.pair(d[kind], j1.vector.spectrum, j1.window, j2 && d[kind], j2?.vector.spectrum, j2?.window);
+        j1.out = c1;
+        if (j2) j2.out = c2;
+      }
+    }
+  }
+}
+
+const scratchA = new Float64Array(9);
+const scratchR = new Float64Array(3);
+const scratchAmp = new Float64Array(3);
+
+function finishTemplate(data: ScanData, plan: TemplatePlan): TemplateCurve {
+  const { sMin, lags, maxBasis, template } = plan;
+  const chi2 = new Float64Array(lags).fill(data.chi2Null);
+  const amplitudes = new Float64Array(lags * maxBasis);
+  const a = scratchA;
+  const r = scratchR;
+  const amp = scratchAmp;
+  for (const { lo, hi, proj, gram, m } of plan.bins) {
+    const projs = proj.map((j) => j.out!);
+    const grams = gram.map((j) => j.out!);
     // A component that barely overlaps the data at a shift gives an unstable amplitude, and FFT
     // round-off leaves tiny non-zero Gram entries where it does not overlap at all: such
     // components are left out below a fraction of their best overlap anywhere in the range.
     // The FFT leaves an absolute error of about ε·‖d‖·‖x‖ on every correlation; a component is
     // used at a shift only where that error moves its χ² reduction r²/A by less than 0.01.
-    const floors = bin.basis.map((b) => {
-      const g = gram.get(`${b},${b}`)!;
+    const floors = proj.map((pj, p) => {
+      const g = grams[p * m + p]!;
       let max = 0;
       for (let l = 0; l < g.length; l++) if (g[l]! > max) max = g[l]!;
-      const rNoise = FFT_EPS * norm(data.wf) * norm(sliceOf(b));
-      const aNoise = FFT_EPS * norm(data.w) * norm(productSlice(sliceOf(b), sliceOf(b)));
+      const rNoise = FFT_EPS * data.normWf * pj.vector.norm;
+      const aNoise = FFT_EPS * data.normW * gram[p * m + p]!.vector.norm;
       return Math.max(1e-3 * max, 1e3 * aNoise, 100 * rNoise * rNoise);
     });
-    for (let p = 0; p < m; p++) for (let q = 0; q < m; q++) {
-      const [x, y] = bin.basis[p]! <= bin.basis[q]! ? [bin.basis[p]!, bin.basis[q]!] : [bin.basis[q]!, bin.basis[p]!];
-      grams.push(gram.get(`${x},${y}`)!);
-    }
+    const cap = data.chi2Null * (1 + 1e-9);
     for (let s = lo; s <= hi; s++) {
-      const l = sMax - s;
-      for (let p = 0; p < m; p++) r[p] = projs[p]![l]!;
-      for (let e = 0; e < m * m; e++) a[e] = grams[e]![l]!;
-      for (let p = 0; p < m; p++) {
-        // Cauchy–Schwarz: (Σ w f T)² ≤ Σ w T² · Σ w f². A violation is FFT round-off, not signal.
-        const app = a[p * m + p]!;
-        if (app < floors[p]! || r[p]! * r[p]! > app * data.chi2Null * (1 + 1e-9)) a[p * m + p] = 0;
-      }
-      const reduction = Math.min(data.chi2Null, bestAmplitudes(a, r, m, amp));
+      // Correlation outputs run from the bin's top shift downward: index hi − s.
+      const l = hi - s;
       const idx = s - sMin;
-      chi2[idx] = data.chi2Null - reduction;
-      for (let p = 0; p < m; p++) amplitudes[idx * maxBasis + p] = amp[p]!;
+      let reduction: number;
+      if (m === 1) {
+        const rv = projs[0]![l]!;
+        const av = grams[0]![l]!;
+        // Cauchy–Schwarz: (Σ w f T)² ≤ Σ w T² · Σ w f². A violation is FFT round-off, not signal.
+        const usable = av >= floors[0]! && rv > 0 && rv * rv <= av * cap;
+        const a0 = usable ? rv / av : 0;
+        reduction = usable ? rv * a0 : 0;
+        amplitudes[idx * maxBasis] = a0;
+      } else {
+        for (let p = 0; p < m; p++) r[p] = projs[p]![l]!;
+        for (let e = 0; e < m * m; e++) a[e] = grams[e]![l]!;
+        for (let p = 0; p < m; p++) {
+          const app = a[p * m + p]!;
+          if (app < floors[p]! || r[p]! * r[p]! > app * cap) a[p * m + p] = 0;
+        }
+        reduction = bestAmplitudes(a, r, m, amp);
+        for (let p = 0; p < m; p++) amplitudes[idx * maxBasis + p] = amp[p]!;
+      }
+      chi2[idx] = data.chi2Null - Math.min(data.chi2Null, reduction);
     }
   }
   return { template, sMin, chi2, amplitudes, maxBasis };
+}
+
+/** Product of two basis vectors of a template on the full rest grid, memoised in the set. */
+function basisProduct(set: TemplateSet, template: BuiltTemplate, p: number, q: number): Float64Array {
+  const key = `${template.id}|${p},${q}`;
+  let v = set.products.get(key);
+  if (!v) {
+    const a = template.basis[p]!.values;
+    const b = template.basis[q]!.values;
+    v = new Float64Array(a.length);
+    for (let i = 0; i < a.length; i++) v[i] = a[i]! * b[i]!;
+    set.products.set(key, v);
+  }
+  return v;
 }
 
 /** Relative round-off of double-precision FFT correlations, with margin (≈ 1e-16 · log₂N · 10). */
@@ -178,10 +317,4 @@ function norm(v: Float64Array): number {
   let s = 0;
   for (let i = 0; i < v.length; i++) s += v[i]! * v[i]!;
   return Math.sqrt(s);
-}
-
-function productSlice(a: Float64Array, b: Float64Array): Float64Array {
-  const out = new Float64Array(a.length);
-  for (let i = 0; i < a.length; i++) out[i] = a[i]! * b[i]!;
-  return out;
 }
