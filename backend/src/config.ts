@@ -20,6 +20,8 @@ const envSchema = z.object({
   /** Run the local mail catcher; on by default unless SMTP_URL points elsewhere. */
   MAIL_CATCHER: flag.optional(),
   REDWARD_DEMO: flag.default(true),
+  /** With demo data: also generate and scan the demo campaigns' synthetic spectra. */
+  REDWARD_DEMO_SPECTRA: flag.default(true),
   INVITATION_TTL_HOURS: z.coerce.number().positive().max(24 * 90).default(72),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   /** Set when a reverse proxy terminates TLS in front of Redward (Express `trust proxy`). */
@@ -53,6 +55,7 @@ export interface Config {
   mailFrom: string;
   mailCatcher: { enabled: boolean; port: number };
   demo: boolean;
+  demoSpectra: boolean;
   invitationTtlHours: number;
   logLevel: z.infer<typeof envSchema>['LOG_LEVEL'];
   trustProxy: boolean;
@@ -99,6 +102,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFrom: e.MAIL_FROM,
     mailCatcher: { enabled: catcherEnabled, port: e.MAIL_CATCHER_PORT },
     demo: e.REDWARD_DEMO,
+    demoSpectra: e.REDWARD_DEMO_SPECTRA,
     invitationTtlHours: e.INVITATION_TTL_HOURS,
     logLevel: e.LOG_LEVEL,
     trustProxy: e.TRUST_PROXY,

@@ -1,6 +1,6 @@
 import { readdirSync } from 'node:fs';
 import path from 'node:path';
-import { count } from 'drizzle-orm';
+import { count, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { scanResults, spectra, storedFiles } from '../../backend/src/db/schema';
 import { brokenSpectrumFiles, syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
@@ -119,6 +119,28 @@ describe('uploading a zip of spectra', () => {
     expect((await reader.patch(`/api/spectra/${spectrumId}/target`).send({ targetId: null })).status).toBe(403);
     const row = (await lead.get('/api/campaigns/1/spectra?linked=yes&q=TST-0002&pageSize=10')).body.rows;
     expect(row.map((r: { target: { catalogueId: string } }) => r.target.catalogueId)).toEqual(['TST-0002', 'TST-0002']);
+  });
+
+  it('offers a re-scan after the redshift range changes, keeping the earlier results', { timeout: 90_000 }, async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const upload = await lead.post('/api/campaigns/2/uploads').attach('files', zip(syntheticSpectrumFiles(6, { prefix: 'RESCAN' })), 'six.zip');
+    await waitForJob(lead, upload.body.jobId);
+    expect((await lead.get('/api/campaigns/2/scan-status')).body).toMatchObject({ spectra: 6, upToDate: 6, stale: 0, zMin: 0, zMax: 9 });
+    expect((await lead.post('/api/campaigns/2/rescans').send({})).body.error.code).toBe('nothing_to_rescan');
+
+    await lead.patch('/api/campaigns/2').send({ zMax: 7 });
+    expect((await lead.get('/api/campaigns/2/scan-status')).body).toMatchObject({ upToDate: 0, stale: 6, zMax: 7 });
+    const rescan = await lead.post('/api/campaigns/2/rescans').send({});
+    expect(rescan.status).toBe(202);
+    expect(rescan.body.spectra).toBe(6);
+    const job = await waitForJob(lead, rescan.body.jobId);
+    expect(job).toMatchObject({ kind: 'scan', state: 'done', summary: { rescanned: 6, failed: 0 } });
+    expect((await lead.get('/api/campaigns/2/scan-status')).body).toMatchObject({ upToDate: 6, stale: 0 });
+    const ids = (await lead.get('/api/campaigns/2/spectra')).body.rows.map((r: { id: number }) => r.id);
+    const rows = t.ctx.db.select().from(scanResults).where(inArray(scanResults.spectrumId, ids)).all();
+    expect(rows).toHaveLength(12);
+    expect(rows.filter((r) => r.isCurrent).every((r) => (r.settings as { zMax: number }).zMax === 7)).toBe(true);
+    expect(rows.filter((r) => r.isCurrent)).toHaveLength(6);
   });
 
   it('says when no file arrived', async () => {

@@ -11,7 +11,7 @@ import { receiveUpload } from '../../backend/src/services/receive-upload';
 import { syntheticSpectrumFiles } from '../helpers/spectrum-archives';
 import { writeFileSync } from 'node:fs';
 
-const ENV = (dataDir: string) => ({ DATA_DIR: dataDir, LOG_LEVEL: 'silent', MAIL_CATCHER: '0', SMTP_URL: 'smtp://127.0.0.1:9', JOB_LEASE_SECONDS: '1', SCAN_THREADS: '1' });
+const ENV = (dataDir: string) => ({ DATA_DIR: dataDir, LOG_LEVEL: 'silent', REDWARD_DEMO_SPECTRA: '0', MAIL_CATCHER: '0', SMTP_URL: 'smtp://127.0.0.1:9', JOB_LEASE_SECONDS: '1', SCAN_THREADS: '1' });
 const FILES = 60;
 
 let dataDir: string;

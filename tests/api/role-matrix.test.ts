@@ -60,6 +60,9 @@ const CASES: Case[] = [
   { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/1', expect: leadOnly(200) },
   { method: 'post', route: '/jobs/:jobId/cancel', url: '/api/jobs/1/cancel', expect: leadOnly(200) },
   { method: 'get', route: '/jobs/:jobId/events', url: '/api/jobs/1/events', expect: leadOnly(200) },
+  { method: 'get', route: '/campaigns/:id/scan-status', url: '/api/campaigns/1/scan-status', expect: signedIn(200) },
+  // No spectra yet: the lead reaches the route and is told there is nothing to re-scan.
+  { method: 'post', route: '/campaigns/:id/rescans', url: '/api/campaigns/1/rescans', body: () => ({}), expect: leadOnly(400) },
   { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/999', expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];

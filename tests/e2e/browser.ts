@@ -47,6 +47,7 @@ export async function startE2eServer(): Promise<E2eServer> {
       PUBLIC_URL: `http://localhost:${port}`,
       MAIL_CATCHER_PORT: '0',
       LOG_LEVEL: 'silent',
+      REDWARD_DEMO_SPECTRA: process.env.E2E_DEMO_SPECTRA ?? '0',
     }),
   );
   return {

@@ -28,6 +28,8 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     MAIL_CATCHER_PORT: '0',
     LOG_LEVEL: 'silent',
     PUBLIC_URL: TEST_ORIGIN,
+    // The demo accounts and campaigns, without the 120 synthetic spectra (tests bring their own).
+    REDWARD_DEMO_SPECTRA: '0',
     ...env,
   });
   const clock = {

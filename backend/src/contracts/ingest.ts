@@ -77,3 +77,17 @@ export const spectraPageSchema = z.object({
   pageSize: z.number().int(),
 });
 export type SpectraPage = z.infer<typeof spectraPageSchema>;
+
+/** Re-scan the spectra whose scans are out of date (default) or every spectrum. */
+export const rescanRequestSchema = z.object({ all: z.boolean().default(false) }).strict();
+
+export const scanStatusSchema = z.object({
+  spectra: z.number().int(),
+  upToDate: z.number().int(),
+  stale: z.number().int(),
+  engineVersion: z.string(),
+  zMin: z.number(),
+  zMax: z.number(),
+});
+export type ScanStatus = z.infer<typeof scanStatusSchema>;
+export const rescanResponseSchema = z.object({ jobId: z.number().int(), spectra: z.number().int() });

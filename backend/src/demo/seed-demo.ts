@@ -1,12 +1,13 @@
 import { count } from 'drizzle-orm';
 import type { CampaignRole } from '../contracts/campaigns';
-import type { NewCampaign } from '../services/create-campaign';
 import { memberships, users } from '../db/schema';
 import type { ServiceContext } from '../services/context';
-import { createCampaign } from '../services/create-campaign';
+import { createCampaign, type NewCampaign } from '../services/create-campaign';
 import { hashPassword } from '../services/passwords';
 import { recordAudit } from '../services/record-audit';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts';
+import { LANTERN_TARGETS, TIDEWATER_TARGETS, type DemoTarget } from './demo-scenario';
+import { seedDemoSpectra } from './seed-demo-spectra';
 
 // An invented scenario: the cluster, field and programme names below do not exist.
 const DEMO_CAMPAIGNS = [
@@ -20,6 +21,7 @@ const DEMO_CAMPAIGNS = [
     zMax: 9,
     tolerance: 0.003,
     members: { 'lead@demo.test': 'lead', 'reader1@demo.test': 'reader', 'reader2@demo.test': 'reader', 'observer@demo.test': 'observer' },
+    targets: LANTERN_TARGETS,
   },
   {
     name: 'Tidewater Deep Field dropouts',
@@ -30,8 +32,9 @@ const DEMO_CAMPAIGNS = [
     zMax: 9,
     tolerance: 0.005,
     members: { 'lead@demo.test': 'lead', 'reader1@demo.test': 'reader', 'reader2@demo.test': 'reader' },
+    targets: TIDEWATER_TARGETS,
   },
-] satisfies (NewCampaign & { members: Record<string, CampaignRole> })[];
+] satisfies (NewCampaign & { members: Record<string, CampaignRole>; targets: readonly DemoTarget[] })[];
 
 /** Seeds the demo accounts and campaigns, once, into an empty database. Returns whether it did. */
 export async function seedDemoIfEmpty(ctx: ServiceContext): Promise<boolean> {
@@ -46,12 +49,15 @@ export async function seedDemoIfEmpty(ctx: ServiceContext): Promise<boolean> {
     }
     recordAudit(tx, { actorId: null, action: 'demo.seeded', subjectType: 'installation', after: { accounts: DEMO_ACCOUNTS.length } });
   });
-  for (const { members, ...fields } of DEMO_CAMPAIGNS) {
+  const lead = { id: userIds.get('lead@demo.test')!, email: 'lead@demo.test', name: 'Lena Demo (lead)', isAdmin: false };
+  for (const [index, { members, targets, ...fields }] of DEMO_CAMPAIGNS.entries()) {
     const campaign = createCampaign(ctx, null, fields);
     ctx.db
       .insert(memberships)
       .values(Object.entries(members).map(([email, role]) => ({ userId: userIds.get(email)!, campaignId: campaign.id, role })))
       .run();
+    if (ctx.config.demoSpectra) await seedDemoSpectra(ctx, lead, campaign.id, targets, 5000 * (index + 1));
   }
+  ctx.wakeJobRunner();
   return true;
 }

@@ -6,7 +6,7 @@ import type { BlobStore } from '../storage/blob-store';
 import { isSpectrumFileName, SPECTRUM_FILE_ENDINGS } from './accepted-files';
 import { refreshProgress, type JobItemRow, type JobRow } from './job-store';
 import type { ScanPool } from './scan-pool';
-import type { ScanTaskResult } from './scan-worker';
+import type { ScanOutcome } from './scan-worker';
 
 export interface JobSettings {
   zMin: number;
@@ -67,7 +67,7 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
           pixels: result.spectrum.pixels,
           wavelengthMin: result.spectrum.wavelengthMin,
           wavelengthMax: result.spectrum.wavelengthMax,
-          snrMedian: Number.isFinite(result.scan.meta.snrMedian) ? result.scan.meta.snrMedian : null,
+          snrMedian: result.scanned.ok && Number.isFinite(result.scanned.scan.meta.snrMedian) ? result.scanned.scan.meta.snrMedian : null,
           errorsEstimated: meta.errorsEstimated,
           warnings: meta.warnings,
           uploadJobId: job.id,
@@ -85,16 +85,22 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
     } else {
       spectrumId = item.spectrumId!;
       outcome = 'rescanned';
-      tx.update(scanResults).set({ isCurrent: false }).where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true))).run();
     }
-    insertScanResult(tx, spectrumId, job.id, ic.settings, result);
-    finishItemTx(tx, item, { state: 'done', outcome, spectrumId });
+    if (result.scanned.ok) {
+      // A re-scan keeps the earlier result for the record; the new one becomes current.
+      tx.update(scanResults).set({ isCurrent: false }).where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true))).run();
+      insertScanResult(tx, spectrumId, job.id, ic.settings, result.scanned);
+      finishItemTx(tx, item, { state: 'done', outcome, spectrumId });
+    } else {
+      // The spectrum is kept (it was read); the failed scan is listed so it can be redone.
+      finishItemTx(tx, item, { state: 'failed', outcome, spectrumId, errorCode: result.scanned.code, errorMessage: result.scanned.message });
+    }
   });
 }
 
 type Tx = Parameters<Parameters<ServiceContext['db']['transaction']>[0]>[0];
 
-function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: JobSettings, result: Extract<ScanTaskResult, { ok: true }>) {
+function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: JobSettings, result: Extract<ScanOutcome, { ok: true }>) {
   const top = result.scan.solutions[0];
   tx.insert(scanResults)
     .values({

@@ -19,9 +19,14 @@ export interface SpectrumSummary {
   wavelengthMax: number;
 }
 
+export type ScanOutcome =
+  | { ok: true; scan: Omit<ScanResult, 'curves'>; curves: Uint8Array }
+  | { ok: false; code: 'scan_failed'; message: string };
+
+/** A readable file always yields its spectrum summary; the scan may still fail (an engine fault). */
 export type ScanTaskResult =
-  | { ok: true; spectrum: SpectrumSummary; scan: Omit<ScanResult, 'curves'>; curves: Uint8Array }
-  | { ok: false; stage: 'read' | 'scan'; code: string; message: string };
+  | { ok: true; spectrum: SpectrumSummary; scanned: ScanOutcome }
+  | { ok: false; code: string; message: string };
 
 /**
  * Runs in a worker thread: reads one stored file, scans it, and returns what the database
@@ -32,19 +37,19 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   try {
     spectrum = readSpectrum(readFileSync(task.filePath));
   } catch (err) {
-    if (err instanceof SpectrumReadError) return { ok: false, stage: 'read', code: err.code, message: err.message };
-    return { ok: false, stage: 'read', code: 'unreadable', message: `The file could not be read: ${(err as Error).message}` };
+    if (err instanceof SpectrumReadError) return { ok: false, code: err.code, message: err.message };
+    return { ok: false, code: 'unreadable', message: `The file could not be read: ${(err as Error).message}` };
   }
+  const n = spectrum.wavelength.length;
+  const summary = { meta: spectrum.meta, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! };
   try {
     const { curves, ...scan } = scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax });
-    const n = spectrum.wavelength.length;
+    return { ok: true, spectrum: summary, scanned: { ok: true, scan, curves: packCurves(curves) } };
+  } catch (err) {
     return {
       ok: true,
-      spectrum: { meta: spectrum.meta, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! },
-      scan,
-      curves: packCurves(curves),
+      spectrum: summary,
+      scanned: { ok: false, code: 'scan_failed', message: `The spectrum was stored but its scan failed (${(err as Error).message}); re-scan it after an engine update.` },
     };
-  } catch (err) {
-    return { ok: false, stage: 'scan', code: 'scan_failed', message: `The spectrum was read but the scan failed: ${(err as Error).message}` };
   }
 }

@@ -2,7 +2,9 @@ import { Router, type Request } from 'express';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
+import { rescanRequestSchema } from '../contracts/ingest';
 import { cancelJob, getJobProgress, jobCampaignId } from '../services/job-progress';
+import { getScanStatus, queueRescan } from '../services/queue-rescan';
 
 const jobId = (req: Request) => Number(req.params.jobId);
 const ofJob = (ctx: ServiceContext, req: Request) => jobCampaignId(ctx, jobId(req));
@@ -57,6 +59,22 @@ export function jobRoutes(ctx: ServiceContext): Router {
       req.on('close', () => clearInterval(timer));
       tick();
     },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/campaigns/:id/scan-status',
+    access: access.campaignViewer,
+    handle: ({ campaign }) => getScanStatus(ctx, campaign!.id),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/campaigns/:id/rescans',
+    access: access.campaign('lead'),
+    body: rescanRequestSchema,
+    status: 202,
+    handle: ({ user, campaign, body }) => queueRescan(ctx, user!, campaign!.id, body.all),
   });
 
   return router;

@@ -1,0 +1,27 @@
+import { writeFileSync } from 'node:fs';
+import { generateSyntheticSpectrum } from '../spectra/generateSyntheticSpectrum';
+import type { Actor, ServiceContext } from '../services/context';
+import { importCatalogue } from '../services/import-catalogue';
+import { receiveUpload } from '../services/receive-upload';
+import { demoCatalogueCsv, type DemoTarget } from './demo-scenario';
+import { spectrumToCsv } from './spectrum-files';
+
+const RANGES: Record<string, [number, number]> = { 'demo-slit': [3600, 9800], 'demo-grism': [5500, 10000] };
+
+/**
+ * Gives a demo campaign its catalogue and spectra through the same paths a lead uses: the
+ * catalogue import, then an upload whose ingest job the runner scans in the background.
+ */
+export async function seedDemoSpectra(ctx: ServiceContext, lead: Actor, campaignId: number, targets: readonly DemoTarget[], seed: number): Promise<number> {
+  importCatalogue(ctx, lead, campaignId, demoCatalogueCsv(targets), undefined, false);
+  const files = targets.map((t, i) => {
+    const [wavelengthMin, wavelengthMax] = RANGES[t.instrument] ?? [3600, 9800];
+    const truth = t.truth ?? { class: 'galaxy' as const, template: 'galaxy-emission', z: 1, snr: 0.15 };
+    const spectrum = generateSyntheticSpectrum({ ...truth, seed: seed + i, wavelengthMin, wavelengthMax, pixels: 4000 });
+    const tempFile = ctx.store.tempPath();
+    writeFileSync(tempFile, spectrumToCsv(spectrum, `Redward demo spectrum of ${t.id} (synthetic; instrument ${t.instrument})`));
+    return { originalName: `${t.id}_${t.instrument}.csv`, tempFile };
+  });
+  const receipt = await receiveUpload(ctx, ctx.store, lead, campaignId, files);
+  return receipt.jobId;
+}
