@@ -6,6 +6,9 @@ import { AccountRoute } from './routes/account';
 import { AdminMailMessageRoute, AdminMailRoute, NoMessageSelected } from './routes/admin-mail';
 import { AdminUsersRoute } from './routes/admin-users';
 import { CampaignRoute } from './routes/campaign';
+import { CampaignSpectraRoute } from './routes/campaign-spectra';
+import { CampaignTargetsRoute } from './routes/campaign-targets';
+import { CampaignUploadRoute } from './routes/campaign-upload';
 import { CampaignsRoute } from './routes/campaigns';
 import { InvitationRoute } from './routes/invitation';
 import { NotFoundRoute } from './routes/not-found';
@@ -26,6 +29,9 @@ export const createRouter = () =>
             { path: '/', element: <Navigate to="/campaigns" replace /> },
             { path: '/campaigns', element: <CampaignsRoute /> },
             { path: '/campaigns/:campaignId', element: <CampaignRoute /> },
+            { path: '/campaigns/:campaignId/upload', element: <CampaignUploadRoute /> },
+            { path: '/campaigns/:campaignId/targets', element: <CampaignTargetsRoute /> },
+            { path: '/campaigns/:campaignId/spectra', element: <CampaignSpectraRoute /> },
             { path: '/account', element: <AccountRoute /> },
             {
               path: '/admin',

@@ -7,6 +7,8 @@ export class ApiError extends Error {
     readonly status: number,
     readonly code: string,
     message: string,
+    /** Itemised problems the server attached (e.g. catalogue rows with errors), unparsed. */
+    readonly details?: unknown,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -27,14 +29,24 @@ interface RequestOptions<S extends z.ZodType | undefined> {
 
 type Result<S> = S extends z.ZodType ? z.output<S> : undefined;
 
+/** Turns an error answer (already read as JSON, or null) into an ApiError; shared with the upload helper. */
+export function apiErrorFromBody(status: number, statusText: string, body: unknown): ApiError {
+  const parsed = errorResponseSchema.safeParse(body);
+  if (parsed.success) {
+    const { code, message, details } = parsed.data.error;
+    return new ApiError(status, code, message, details);
+  }
+  // A proxy or a crashed server may answer with HTML; still say what happened.
+  const said = [status, statusText].filter(Boolean).join(' ');
+  return new ApiError(status, 'http_error', `The server answered ${said}.`);
+}
+
 async function toApiError(res: Response): Promise<ApiError> {
   const body: unknown = await res.json().catch(() => null);
-  const parsed = errorResponseSchema.safeParse(body);
-  if (parsed.success) return new ApiError(res.status, parsed.data.error.code, parsed.data.error.message);
-  // A proxy or a crashed server may answer with HTML; still say what happened.
-  const status = [res.status, res.statusText].filter(Boolean).join(' ');
-  return new ApiError(res.status, 'http_error', `The server answered ${status}.`);
+  return apiErrorFromBody(res.status, res.statusText, body);
 }
+
+export const NETWORK_ERROR_MESSAGE = 'Cannot reach the Redward server. Check your connection and try again.';
 
 /**
  * The one way the UI talks to the API: same-origin cookies, JSON in and out, and every
@@ -58,7 +70,7 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
     });
   } catch (e) {
     if (e instanceof DOMException && e.name === 'AbortError') throw e;
-    throw new ApiError(0, 'network_error', 'Cannot reach the Redward server. Check your connection and try again.');
+    throw new ApiError(0, 'network_error', NETWORK_ERROR_MESSAGE);
   }
 
   if (!res.ok) throw await toApiError(res);

@@ -25,3 +25,25 @@ export function formatDate(iso: string | null | undefined): string {
 }
 
 export const ROLE_LABELS = { lead: 'Lead', reader: 'Reader', observer: 'Observer' } as const;
+
+/** File sizes in the units a person sees in their file manager (1 kB = 1000 bytes). */
+export function formatBytes(bytes: number): string {
+  if (bytes < 1000) return `${bytes} B`;
+  const units = ['kB', 'MB', 'GB', 'TB'];
+  let value = bytes;
+  let unit = -1;
+  while (value >= 1000 && unit < units.length - 1) {
+    value /= 1000;
+    unit += 1;
+  }
+  return `${value.toFixed(value < 10 ? 2 : value < 100 ? 1 : 0)} ${units[unit]}`;
+}
+
+/** Sky positions to 5 decimals of a degree (0.036″): finer than any fibre or slit. */
+export const formatDegrees = (deg: number | null) => (deg === null ? '—' : deg.toFixed(5));
+
+/** Redshifts to 5 decimals, the precision a reader works at (the comb moves in steps of 1e-5). */
+export const formatRedshift = (z: number | null) => (z === null ? '—' : z.toFixed(5));
+
+/** A count with thin-space thousands separators, so 12 345 spectra read at a glance. */
+export const formatCount = (n: number) => String(n).replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009');

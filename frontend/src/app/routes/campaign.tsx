@@ -1,7 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
+import type { Campaign } from '@contracts/campaigns';
 import { Page } from '@/components/layout/page';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice } from '@/components/ui/notice';
+import { buttonClass } from '@/components/ui/button';
 import { Panel } from '@/components/ui/panel';
 import { RoleBadge } from '@/components/ui/role-badge';
 import { useCampaign } from '@/features/campaigns/api/get-campaign';
@@ -9,6 +11,7 @@ import { CampaignFacts } from '@/features/campaigns/components/campaign-facts';
 import { CampaignSettingsForm } from '@/features/campaigns/components/campaign-settings-form';
 import { GradeSchemeTable } from '@/features/campaigns/components/grade-scheme-table';
 import { CampaignMembers } from '@/features/members/components/campaign-members';
+import { SpectraCounts } from '@/features/spectra/components/spectra-counts';
 import { NotFoundRoute } from './not-found';
 
 const backLink = (
@@ -42,6 +45,7 @@ function CampaignOverview({ id }: { id: number }) {
       <Panel>
         <CampaignFacts campaign={c} />
       </Panel>
+      <DataPanel campaign={c} isLead={isLead} />
       <Panel>
         <CampaignMembers campaignId={c.id} isLead={isLead} />
       </Panel>
@@ -54,5 +58,30 @@ function CampaignOverview({ id }: { id: number }) {
         </Panel>
       ) : null}
     </Page>
+  );
+}
+
+/** Where the spectra and targets live; kept small so the overview stays an overview. */
+function DataPanel({ campaign, isLead }: { campaign: Campaign; isLead: boolean }) {
+  const base = `/campaigns/${campaign.id}`;
+  return (
+    <Panel title="Data">
+      <div className="flex flex-wrap items-end justify-between gap-4">
+        <SpectraCounts campaignId={campaign.id} />
+        <nav aria-label="Campaign data" className="flex flex-wrap gap-2">
+          <Link to={`${base}/spectra`} className={buttonClass('secondary', 'sm')}>
+            Spectra list
+          </Link>
+          <Link to={`${base}/targets`} className={buttonClass('secondary', 'sm')}>
+            {isLead ? 'Targets and catalogue import' : 'Targets'}
+          </Link>
+          {isLead ? (
+            <Link to={`${base}/upload`} className={buttonClass('primary', 'sm')}>
+              Upload spectra
+            </Link>
+          ) : null}
+        </nav>
+      </div>
+    </Panel>
   );
 }

@@ -1,0 +1,74 @@
+import type { Campaign } from '@contracts/campaigns';
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback } from 'react';
+import { Link, useSearchParams } from 'react-router-dom';
+import { Page } from '@/components/layout/page';
+import { buttonClass } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { Panel } from '@/components/ui/panel';
+import { spectraKeys } from '@/features/spectra/api/keys';
+import { targetKeys } from '@/features/targets/api/keys';
+import { JobProgressPanel } from '@/features/uploads/components/job-progress-panel';
+import { SpectraUploadForm } from '@/features/uploads/components/spectra-upload-form';
+import { CampaignEyebrow } from './campaign-link';
+import { WithCampaign } from './with-campaign';
+
+export function CampaignUploadRoute() {
+  return <WithCampaign>{(campaign) => <UploadPage campaign={campaign} />}</WithCampaign>;
+}
+
+const jobIdOf = (raw: string | null) => {
+  const n = Number(raw);
+  return raw && Number.isInteger(n) && n > 0 ? n : null;
+};
+
+function UploadPage({ campaign }: { campaign: Campaign }) {
+  const [params, setParams] = useSearchParams();
+  const queryClient = useQueryClient();
+  const jobId = jobIdOf(params.get('job'));
+
+  // A finished job added spectra and links: the lists elsewhere must not show the old state.
+  const onFinished = useCallback(() => {
+    void queryClient.invalidateQueries({ queryKey: spectraKeys.lists(campaign.id) });
+    void queryClient.invalidateQueries({ queryKey: targetKeys.lists(campaign.id) });
+  }, [queryClient, campaign.id]);
+
+  const links = (
+    <div className="flex flex-wrap gap-2">
+      <Link to={`/campaigns/${campaign.id}/spectra`} className={buttonClass('secondary', 'sm')}>
+        Spectra list
+      </Link>
+      <Link to={`/campaigns/${campaign.id}/targets`} className={buttonClass('secondary', 'sm')}>
+        Targets and catalogue
+      </Link>
+    </div>
+  );
+
+  if (campaign.myRole !== 'lead') {
+    return (
+      <Page title="Upload spectra" eyebrow={<CampaignEyebrow campaign={campaign} />}>
+        <Notice tone="warning">Only the campaign's leads upload spectra. Ask a lead to add yours.</Notice>
+        {links}
+      </Page>
+    );
+  }
+
+  return (
+    <Page
+      title="Upload spectra"
+      eyebrow={<CampaignEyebrow campaign={campaign} />}
+      subtitle="Every file is kept as sent; the same file sent twice is recognised, not stored twice."
+      actions={links}
+    >
+      <Panel title="Send files">
+        {/* The job id goes into the URL, so leaving and coming back shows the same job. */}
+        <SpectraUploadForm campaignId={campaign.id} onUploaded={(id) => setParams({ job: String(id) })} />
+      </Panel>
+      {jobId ? (
+        <Panel title="Reading and scanning">
+          <JobProgressPanel key={jobId} jobId={jobId} onFinished={onFinished} />
+        </Panel>
+      ) : null}
+    </Page>
+  );
+}

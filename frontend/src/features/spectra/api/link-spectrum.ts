@@ -1,0 +1,22 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { z } from 'zod';
+import { api } from '@/lib/api-client';
+import { spectraKeys } from './keys';
+
+// The contracts have the request schema only; this mirrors what the route answers.
+const linkSpectrumResponseSchema = z.object({ spectrumId: z.number().int(), targetId: z.number().int().nullable() });
+export type LinkSpectrumResponse = z.infer<typeof linkSpectrumResponseSchema>;
+
+export const linkSpectrum = (spectrumId: number, targetId: number | null): Promise<LinkSpectrumResponse> =>
+  api.patch(`/api/spectra/${spectrumId}/target`, { targetId }, linkSpectrumResponseSchema);
+
+export function useLinkSpectrum(campaignId: number, onLinked?: () => void) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ spectrumId, targetId }: { spectrumId: number; targetId: number | null }) => linkSpectrum(spectrumId, targetId),
+    onSuccess: async () => {
+      await queryClient.invalidateQueries({ queryKey: spectraKeys.lists(campaignId) });
+      onLinked?.();
+    },
+  });
+}

@@ -1,0 +1,82 @@
+import type { Target } from '@contracts/targets';
+import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alphanumeric, sortFn_basic, tableFeatures, useTable } from '@tanstack/react-table';
+import { ariaSort, SortHeader } from '@/components/ui/sort-header';
+import { Table, tdClass, thClass } from '@/components/ui/table';
+import { formatDegrees } from '@/lib/format';
+
+const features = tableFeatures({
+  rowSortingFeature,
+  sortedRowModel: createSortedRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, basic: sortFn_basic },
+});
+const helper = createColumnHelper<typeof features, Target>();
+
+/** Nulls become undefined so sortUndefined can keep blanks at the bottom; a blank is not a small number. */
+const orBlank = <T,>(v: T | null) => v ?? undefined;
+const num = (v: number | undefined, digits?: number) => (v === undefined ? '—' : digits === undefined ? String(v) : v.toFixed(digits));
+
+/** Photo-z as the catalogue gives it, with its 68 % range when there is one. */
+function photoZ(t: Target) {
+  if (t.photoZ === null) return '—';
+  const range = t.photoZLow !== null && t.photoZHigh !== null ? ` (${t.photoZLow}–${t.photoZHigh})` : '';
+  return `${t.photoZ}${range}`;
+}
+
+const blankLast = { sortFn: 'basic', sortUndefined: 'last' } as const;
+
+const columns = helper.columns([
+  helper.accessor('catalogueId', { header: 'Catalogue id', sortFn: 'alphanumeric' }),
+  helper.accessor((t) => orBlank(t.ra), { id: 'ra', header: 'RA (°)', ...blankLast, cell: (c) => formatDegrees(c.getValue() ?? null) }),
+  helper.accessor((t) => orBlank(t.dec), { id: 'dec', header: 'Dec (°)', ...blankLast, cell: (c) => formatDegrees(c.getValue() ?? null) }),
+  helper.accessor((t) => orBlank(t.magnitude), { id: 'magnitude', header: 'Magnitude', ...blankLast, cell: (c) => num(c.getValue(), 2) }),
+  helper.accessor((t) => orBlank(t.photoZ), { id: 'photoZ', header: 'Photo-z (68 %)', ...blankLast, cell: (c) => photoZ(c.row.original) }),
+  helper.accessor((t) => orBlank(t.imageFamily), { id: 'imageFamily', header: 'Image family', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (c) => c.getValue() ?? '—' }),
+  helper.accessor((t) => orBlank(t.priority), { id: 'priority', header: 'Priority', ...blankLast, cell: (c) => num(c.getValue()) }),
+  helper.accessor('spectrumCount', { header: 'Spectra', sortFn: 'basic' }),
+]);
+
+const TEXT_COLUMNS = new Set(['catalogueId', 'imageFamily']);
+
+/** The campaign's targets, sorted in the browser (the whole list is loaded). */
+export function TargetsTable({ targets }: { targets: Target[] }) {
+  const table = useTable({
+    features,
+    columns,
+    data: targets,
+    getRowId: (t) => String(t.id),
+    initialState: { sorting: [{ id: 'catalogueId', desc: false }] },
+    enableMultiSort: false,
+  });
+
+  return (
+    <Table caption="Targets" captionHidden>
+      <thead>
+        {table.getHeaderGroups().map((group) => (
+          <tr key={group.id}>
+            {group.headers.map((header) => {
+              const sorted = header.column.getIsSorted();
+              return (
+                <th key={header.id} scope="col" aria-sort={ariaSort(sorted)} className={`${thClass} whitespace-nowrap ${TEXT_COLUMNS.has(header.column.id) ? '' : 'text-right'}`}>
+                  <SortHeader state={sorted} onToggle={header.column.getToggleSortingHandler()}>
+                    <table.FlexRender header={header} />
+                  </SortHeader>
+                </th>
+              );
+            })}
+          </tr>
+        ))}
+      </thead>
+      <tbody>
+        {table.getRowModel().rows.map((row) => (
+          <tr key={row.id} className="hover:bg-paper-100">
+            {row.getAllCells().map((cell) => (
+              <td key={cell.id} className={`${tdClass} whitespace-nowrap ${TEXT_COLUMNS.has(cell.column.id) ? 'font-medium' : 'num text-right'}`}>
+                <table.FlexRender cell={cell} />
+              </td>
+            ))}
+          </tr>
+        ))}
+      </tbody>
+    </Table>
+  );
+}

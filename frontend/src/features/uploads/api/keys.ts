@@ -1,0 +1,4 @@
+export const jobKeys = {
+  all: () => ['jobs'] as const,
+  detail: (jobId: number) => [...jobKeys.all(), jobId] as const,
+};
