@@ -29,7 +29,7 @@ try {
   const headers = { cookie, origin };
 
   const form = new FormData();
-  form.append('files', new Blob([archive]), 'bench.zip');
+  form.append('files', new Blob([new Uint8Array(archive)]), 'bench.zip');
   const start = performance.now();
   const upload = await fetch(`${origin}/api/campaigns/1/uploads`, { method: 'POST', headers, body: form });
   const receipt = (await upload.json()) as { jobId: number };
