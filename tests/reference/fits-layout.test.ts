@@ -59,6 +59,18 @@ describe('FITS files written to the standard layout', () => {
     expect(s.meta.medium).toBe('vacuum');
   });
 
+  it('standard CRVAL1/CD1_1 win over stale COEFF0/COEFF1 (an IRAF rewrite of an SDSS spectrum)', () => {
+    // IRAF writes the linear dispersion it applied in CRVAL1/CD1_1 with DC-FLAG = 0 and keeps the
+    // SDSS COEFFn cards it did not touch (seen in an SDSS spectrum shifted to rest frame by IRAF).
+    const bytes = concat(
+      header([['SIMPLE', true], ['BITPIX', -32], ['NAXIS', 1], ['NAXIS1', 50], ['CTYPE1', 'LINEAR'], ['DC-FLAG', 0], ['COEFF0', 3.5811], ['COEFF1', 1e-4], ['CRVAL1', 3634.79], ['CD1_1', 1.343], ['CRPIX1', 1]]),
+      padData(float32BE(flux)),
+    );
+    const s = readSpectrum(bytes);
+    expect(s.wavelength[0]).toBeCloseTo(3634.79, 3);
+    expect(s.wavelength[10]).toBeCloseTo(3634.79 + 13.43, 3);
+  });
+
   it('binary table with loglam/flux/ivar columns, TSCAL/TZERO on an integer column, gzip', () => {
     const rows = 20;
     const rowBytes = 4 + 4 + 4 + 2;

@@ -16,13 +16,15 @@ export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number
   const out = new Float64Array(n);
   const coeff0 = get('COEFF0');
   const coeff1 = get('COEFF1');
-  if (coeff0 !== undefined && coeff1 !== undefined) {
+  const crval = get('CRVAL1');
+  const cdelt = get('CDELT1') ?? get('CD1_1');
+  // The standard keywords win over COEFF0/COEFF1: SDSS writes both in agreement, but a later tool
+  // (e.g. IRAF re-dispersing or shifting a spectrum) rewrites CRVAL1/CD1_1 and leaves COEFFn stale.
+  if (crval === undefined || cdelt === undefined) {
+    if (coeff0 === undefined || coeff1 === undefined) return undefined;
     for (let i = 0; i < n; i++) out[i] = 10 ** (coeff0 + coeff1 * i);
     return out;
   }
-  const crval = get('CRVAL1');
-  const cdelt = get('CDELT1') ?? get('CD1_1');
-  if (crval === undefined || cdelt === undefined) return undefined;
   if (cdelt === 0) throw new SpectrumReadError('fits-wcs', `HDU ${hduIndex}: CDELT1/CD1_1 is zero, so pixels have no wavelength step.`);
   const crpix = get('CRPIX1') ?? 1;
   const ctype = (gets('CTYPE1') ?? '').trim().toUpperCase();
