@@ -16,6 +16,8 @@ const IGM_BIN_EDGES = [-0.01, 2.2, 3.2, 4.2, 5.2, 6.2, 7.2, 9.6];
 export interface TemplateBasis {
   label: string;
   values: Float64Array;
+  /** The same vector before continuum removal (instrument-smoothed, same scale as `values`). */
+  unfiltered: Float64Array;
 }
 
 /** A redshift interval over which a fixed set of basis vectors is fitted. */
@@ -89,13 +91,13 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
     lines.forEach((l) => used.add(l));
     const rest = componentSpectrum(recipe, comp, lines, lambda, step);
     if (comp.igm === 'red-only') {
-      staticBasis.push({ label: `${comp.name} (red of Lyα)`, values: finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
+      staticBasis.push({ label: `${comp.name} (red of Lyα)`, ...finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
     } else if (comp.igm === 'madau1995') {
       // The attenuated blue side stays tied to the red side (one amplitude): fitted separately it
       // would become a free narrow feature at Lyα at high z, where the forest is nearly black.
       binned.push({ label: comp.name, rest });
     } else {
-      staticBasis.push({ label: comp.name, values: finish(rest, sigmaPx, widthPx) });
+      staticBasis.push({ label: comp.name, ...finish(rest, sigmaPx, widthPx) });
     }
   }
   const basis = [...staticBasis];
@@ -113,7 +115,7 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
       for (const f of binned) {
         const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * igmTransmission(lambda[j]! * (1 + zc), zc)));
         idx.push(basis.length);
-        basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, values: finish(attenuated, sigmaPx, widthPx) });
+        basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, ...finish(attenuated, sigmaPx, widthPx) });
       }
       bins.push({ zLo, zHi, basis: idx });
     }
@@ -210,13 +212,18 @@ function applyGaussian(arr: Float64Array, centre: number, sigmaPx: number, peak:
 }
 
 /** Instrument smoothing, continuum removal, and unit scale (max |value| = 1). */
-function finish(values: Float64Array, sigmaPx: number, widthPx: number): Float64Array {
-  const smoothed = gaussianSmooth(values, sigmaPx);
+function finish(values: Float64Array, sigmaPx: number, widthPx: number): { values: Float64Array; unfiltered: Float64Array } {
+  const smoothed = Float64Array.from(gaussianSmooth(values, sigmaPx));
   const filtered = highPass(smoothed, widthPx);
   let max = 0;
   for (const v of filtered) max = Math.max(max, Math.abs(v));
-  if (max > 0) for (let j = 0; j < filtered.length; j++) filtered[j]! /= max;
-  return filtered;
+  if (max > 0) {
+    for (let j = 0; j < filtered.length; j++) {
+      filtered[j]! /= max;
+      smoothed[j]! /= max;
+    }
+  }
+  return { values: filtered, unfiltered: smoothed };
 }
 
 function gaussianSmooth(values: Float64Array, sigmaPx: number): Float64Array {

@@ -6,7 +6,7 @@ export interface SyntheticOptions {
   /** Template class; its first recipe of that class is used ('galaxy' → emission-line galaxy). */
   class: TemplateClass;
   z: number;
-  /** Median signal-to-noise per pixel of the features (peak feature amplitude / σ). */
+  /** Signal-to-noise per pixel: of the continuum redward of Lyα for Lyman-break sources, else of the peak feature (amplitude / σ). */
   snr: number;
   seed: number;
   /** Observed range, Å (default 3600–9800) and pixel count (default 4000). */
@@ -39,10 +39,14 @@ const DEFAULT_TEMPLATE: Record<TemplateClass, string> = {
 };
 
 /**
- * A seeded synthetic spectrum of one template class at redshift z: the continuum-removed template
- * (sum of its basis vectors, in the IGM bin containing z) plus a smooth continuum, Gaussian noise
- * at the requested S/N, sky-line residuals and a few masked pixels. Vacuum wavelengths on a
- * log-uniform grid; returns the engine's columnar spectrum.
+ * A seeded synthetic spectrum of one template class at redshift z, with Gaussian noise at the
+ * requested S/N, sky-line residuals and a few masked pixels; vacuum wavelengths on a log-uniform
+ * grid; returns the engine's columnar spectrum.
+ * - Lyman-break sources are physical: the template before continuum removal (UV power law × Madau
+ *   IGM, Lyα when the template has it), with `snr` the continuum S/N per pixel just redward of Lyα
+ *   (rest 1250–1500 Å).
+ * - Other classes: the continuum-removed template (sum of its basis vectors, in the IGM bin
+ *   containing z) plus a smooth continuum, with `snr` the peak feature amplitude over σ.
  */
 export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
   const random = rng(options.seed);
@@ -62,27 +66,33 @@ export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
   const mask = new Uint8Array(n);
   const sky = new Float64Array(n);
   const model = new Float64Array(n);
+  const physical = t.class === 'lyman-break';
   let peak = 0;
+  const redContinuum: number[] = [];
   for (let i = 0; i < n; i++) {
     const lam = lo * (hi / lo) ** (i / (n - 1));
     wavelength[i] = lam;
-    const rest = Math.log10(lam / (1 + options.z)) / step - set.h0;
+    const restA = lam / (1 + options.z);
+    const rest = Math.log10(restA) / step - set.h0;
     const j = Math.floor(rest);
     const f = rest - j;
     let v = 0;
     bin.basis.forEach((b, k) => {
-      const arr = t.basis[b]!.values;
+      const arr = physical ? t.basis[b]!.unfiltered : t.basis[b]!.values;
       const val = j >= 0 && j + 1 < arr.length ? arr[j]! * (1 - f) + arr[j + 1]! * f : 0;
       v += val * (k === 0 ? 1 : 0.5);
     });
     model[i] = v;
     peak = Math.max(peak, Math.abs(v));
+    if (physical && restA >= 1250 && restA <= 1500) redContinuum.push(v);
   }
-  const sigma = peak > 0 ? peak / options.snr : 1;
+  redContinuum.sort((a, b) => a - b);
+  const level = physical ? (redContinuum[redContinuum.length >> 1] ?? peak) : peak;
+  const sigma = level > 0 ? level / options.snr : 1;
   const maskedFraction = options.maskedFraction ?? 0.01;
   for (let i = 0; i < n; i++) {
     const lam = wavelength[i]!;
-    const continuum = peak * (0.5 + 0.2 * (lam / 6000));
+    const continuum = physical ? 0 : peak * (0.5 + 0.2 * (lam / 6000));
     // Sky residuals: imperfectly subtracted night-sky lines inflate the noise where they sit.
     const skyLine = [5578.9, 6302.0, 7246.0, 7916.0, 8399.0, 8827.0, 9378.0].some((s) => Math.abs(lam - s) < 3) ? 4 : 1;
     sky[i] = skyLine > 1 ? 20 * peak : peak;
