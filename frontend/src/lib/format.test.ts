@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatBytes, formatCount, formatDateTime, formatDegrees, formatRedshift, formatRedshiftRange, formatTolerance } from './format';
+import { formatBytes, formatCount, formatDateTime, formatDegrees, formatRedshift, formatRedshiftError, formatRedshiftRange, formatTolerance } from './format';
 
 describe('format', () => {
   it('writes the agreement tolerance in dz/(1+z) as set by the lead', () => {
@@ -30,6 +30,8 @@ describe('ingest formats', () => {
     expect(formatDegrees(-2.123456)).toBe('-2.12346');
     expect(formatDegrees(null)).toBe('—');
     expect(formatRedshift(3.1234567)).toBe('3.12346');
+    expect(formatRedshiftError(0.000261)).toBe('0.00026');
+    expect(formatRedshiftError(0.000001)).toBe('< 0.00001');
   });
 
   it('groups thousands with a thin space', () => {

@@ -47,3 +47,6 @@ export const formatRedshift = (z: number | null) => (z === null ? '—' : z.toFi
 
 /** A count with thin-space thousands separators, so 12 345 spectra read at a glance. */
 export const formatCount = (n: number) => String(n).replace(/\B(?=(\d{3})+(?!\d))/g, '\u2009');
+
+/** A redshift uncertainty at the same precision; below it, say so rather than print ± 0.00000. */
+export const formatRedshiftError = (dz: number) => (dz < 0.000005 ? '< 0.00001' : dz.toFixed(5));

@@ -10,6 +10,7 @@ import { spectraKeys } from '@/features/spectra/api/keys';
 import { targetKeys } from '@/features/targets/api/keys';
 import { JobProgressPanel } from '@/features/uploads/components/job-progress-panel';
 import { SpectraUploadForm } from '@/features/uploads/components/spectra-upload-form';
+import { lastJobOf, rememberLastJob } from '@/features/uploads/hooks/use-last-job';
 import { CampaignEyebrow } from './campaign-link';
 import { WithCampaign } from './with-campaign';
 
@@ -26,6 +27,7 @@ function UploadPage({ campaign }: { campaign: Campaign }) {
   const [params, setParams] = useSearchParams();
   const queryClient = useQueryClient();
   const jobId = jobIdOf(params.get('job'));
+  const lastJob = jobId === null ? lastJobOf(campaign.id) : null;
 
   // A finished job added spectra and links: the lists elsewhere must not show the old state.
   const onFinished = useCallback(() => {
@@ -62,8 +64,22 @@ function UploadPage({ campaign }: { campaign: Campaign }) {
     >
       <Panel title="Send files">
         {/* The job id goes into the URL, so leaving and coming back shows the same job. */}
-        <SpectraUploadForm campaignId={campaign.id} onUploaded={(id) => setParams({ job: String(id) })} />
+        <SpectraUploadForm
+          campaignId={campaign.id}
+          onUploaded={(id) => {
+            rememberLastJob(campaign.id, id);
+            setParams({ job: String(id) });
+          }}
+        />
       </Panel>
+      {lastJob ? (
+        <p className="text-ink-700">
+          <Link to={`?job=${lastJob}`} className="text-blueend-600 underline-offset-2 hover:underline">
+            Show job <span className="num">{lastJob}</span>
+          </Link>
+          , the last upload from this tab.
+        </p>
+      ) : null}
       {jobId ? (
         <Panel title="Reading and scanning">
           <JobProgressPanel key={jobId} jobId={jobId} onFinished={onFinished} />

@@ -2,7 +2,7 @@
 export function FilePath({ path }: { path: string }) {
   const parts = path.split('/');
   return (
-    <span className="[overflow-wrap:anywhere]">
+    <span className="[overflow-wrap:break-word]">
       {parts.map((part, i) => (
         <span key={i}>
           {part}

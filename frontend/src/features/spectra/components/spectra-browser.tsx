@@ -64,7 +64,7 @@ export function SpectraBrowser({ campaignId, linkOptions, onLinked, emptyHint }:
       {spectra.data ? (
         <p role="status" className="text-sm text-ink-600">
           <span className="num">{formatCount(total)}</span> {total === 1 ? 'spectrum' : 'spectra'}
-          {filtered ? ' match' : ''}
+          {filtered ? (total === 1 ? ' matches' : ' match') : ''}
         </p>
       ) : null}
       {body()}

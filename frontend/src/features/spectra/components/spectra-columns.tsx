@@ -2,7 +2,7 @@ import type { SpectrumRow } from '@contracts/ingest';
 import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatures } from '@tanstack/react-table';
 import { Badge } from '@/components/ui/badge';
 import { FilePath } from '@/components/ui/file-path';
-import { formatCount, formatRedshift } from '@/lib/format';
+import { formatCount, formatRedshift, formatRedshiftError } from '@/lib/format';
 import { CLASS_LABELS, CLASS_TONES, isSpectrumClass } from './spectrum-class';
 
 // Sorting and paging are done by the server; the table only holds their state.
@@ -31,7 +31,7 @@ function RedshiftCell({ row }: { row: SpectrumRow }) {
   return (
     <span className="num whitespace-nowrap">
       {formatRedshift(row.zBest)}
-      {row.zBestErr !== null ? <span className="text-ink-500"> ± {formatRedshift(row.zBestErr)}</span> : null}
+      {row.zBestErr !== null ? <span className="text-ink-500"> ± {formatRedshiftError(row.zBestErr)}</span> : null}
     </span>
   );
 }
@@ -43,7 +43,12 @@ export const spectraColumns = helper.columns([
   helper.accessor('instrument', { id: 'instrument', header: 'Instrument', cell: (c) => c.getValue() ?? <span className="text-ink-400">—</span> }),
   helper.display({
     id: 'pixels',
-    header: 'Pixels · λ range (Å)',
+    // Headings are set in capitals; the symbols keep their case so λ and σ do not turn into Λ and Σ.
+    header: () => (
+      <>
+        Pixels · <span className="normal-case">λ</span> range (Å)
+      </>
+    ),
     cell: (c) => {
       const r = c.row.original;
       return (
@@ -65,7 +70,11 @@ export const spectraColumns = helper.columns([
     enableSorting: false,
     cell: (c) => <Badge tone={c.getValue() === 'scanned' ? 'success' : 'ink'}>{c.getValue()}</Badge>,
   }),
-  helper.accessor('zBest', { id: 'z', header: 'Top z ± σ', cell: (c) => <RedshiftCell row={c.row.original} /> }),
+  helper.accessor('zBest', { id: 'z', header: () => (
+      <>
+        Top <span className="normal-case">z ± σ</span>
+      </>
+    ), cell: (c) => <RedshiftCell row={c.row.original} /> }),
   helper.accessor('spectrumClass', {
     id: 'class',
     header: 'Class',

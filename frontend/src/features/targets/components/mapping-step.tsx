@@ -57,7 +57,7 @@ export function MappingStep({ campaignId, file, proposal, onImported, onRestart 
         </Notice>
       ) : null}
       <ErrorNotice error={recheck.error} />
-      {refused ? <ErrorNotice error={save.error} title="Nothing was imported" /> : <ErrorNotice error={otherImportError} />}
+      {refused ? <ErrorNotice error={save.error} title="The import was refused" /> : <ErrorNotice error={otherImportError} />}
       <div className="flex flex-wrap gap-2">
         <Button type="submit" pending={save.isPending} pendingLabel="Importing…" disabled={recheck.isPending}>
           Import targets

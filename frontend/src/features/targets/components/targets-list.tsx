@@ -21,7 +21,7 @@ export function TargetsList({ campaignId }: { campaignId: number }) {
         {targets.data ? (
           <p role="status" className="text-sm text-ink-600">
             <span className="num">{formatCount(targets.data.length)}</span> {targets.data.length === 1 ? 'target' : 'targets'}
-            {q ? ' match' : ''}
+            {q ? (targets.data.length === 1 ? ' matches' : ' match') : ''}
           </p>
         ) : null}
       </div>

@@ -29,7 +29,11 @@ const columns = helper.columns([
   helper.accessor((t) => orBlank(t.ra), { id: 'ra', header: 'RA (°)', ...blankLast, cell: (c) => formatDegrees(c.getValue() ?? null) }),
   helper.accessor((t) => orBlank(t.dec), { id: 'dec', header: 'Dec (°)', ...blankLast, cell: (c) => formatDegrees(c.getValue() ?? null) }),
   helper.accessor((t) => orBlank(t.magnitude), { id: 'magnitude', header: 'Magnitude', ...blankLast, cell: (c) => num(c.getValue(), 2) }),
-  helper.accessor((t) => orBlank(t.photoZ), { id: 'photoZ', header: 'Photo-z (68 %)', ...blankLast, cell: (c) => photoZ(c.row.original) }),
+  helper.accessor((t) => orBlank(t.photoZ), { id: 'photoZ', header: () => (
+      <>
+        Photo-<span className="normal-case">z</span> (68 %)
+      </>
+    ), ...blankLast, cell: (c) => photoZ(c.row.original) }),
   helper.accessor((t) => orBlank(t.imageFamily), { id: 'imageFamily', header: 'Image family', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (c) => c.getValue() ?? '—' }),
   helper.accessor((t) => orBlank(t.priority), { id: 'priority', header: 'Priority', ...blankLast, cell: (c) => num(c.getValue()) }),
   helper.accessor('spectrumCount', { header: 'Spectra', sortFn: 'basic' }),
