@@ -54,8 +54,28 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     }
     const fraction = pass / total;
     console.log(`${lines.join('\n')}\nreliable rows within tolerance: ${pass}/${total} = ${(100 * fraction).toFixed(1)} %`);
-    // The product target is ≥ 95 % (issue 3); this guards the level reached so far (79.8 % when
-    // written) against regressions until the template set is improved.
-    expect(fraction).toBeGreaterThanOrEqual(0.78);
+    // Issue 3 asks for ≥ 95 %. This guards the level reached so far (97/109 = 89.0 % when written)
+    // against regressions. Two of the misses disagree with their own data, not with the engine:
+    // cg922 is written in the rest frame by its WCS ([O II], Hβ, [O III], Hα at rest wavelengths),
+    // and spSpec-51630-0266-637 shows Hα, [N II], [S II], Hβ and [O II] at z = 0.0847, not 0.0880.
+    expect(fraction).toBeGreaterThanOrEqual(0.88);
+  });
+
+  it('rest-frame composites and cool-dwarf templates come out at z ≈ 0 with their class (table printed)', () => {
+    const lines: string[] = [];
+    let pass = 0;
+    const chosen = rows.filter((r) => (r.file.startsWith('composites/') || r.file.startsWith('stars/')) && r.cls !== 'DOC');
+    for (const r of chosen) {
+      const want = /STAR/.test(r.cls) ? ['star'] : /QSO/.test(r.cls) ? ['quasar'] : /LBG/.test(r.cls) ? ['lyman-break', 'galaxy'] : ['galaxy'];
+      const top = scanSpectrum(readSpectrum(new Uint8Array(readFileSync(join(root, r.file))))).solutions[0]!;
+      const ok = Math.abs(top.z) <= 0.005 && want.includes(top.class);
+      if (ok) pass++;
+      lines.push(`${ok ? 'ok ' : 'BAD'} ${r.file.padEnd(46)} want ${want.join('/').padEnd(18)} top z ${top.z.toFixed(4).padStart(8)} ${top.template}`);
+    }
+    console.log(`${lines.join('\n')}\nz ≈ 0 with the right class: ${pass}/${chosen.length}`);
+    // Issue 3 asks for all of them. Guard at the level reached (10/32 when written: the star
+    // templates do not yet reproduce M/L/T dwarf band shapes, galaxy composites with an old
+    // population are read as 4000 Å-break galaxies at z ≈ 0.8–1.8, LBG composites as quasars).
+    expect(pass).toBeGreaterThanOrEqual(10);
   });
 });

@@ -46,6 +46,23 @@ describe('scanSpectrum on seeded synthetic spectra', () => {
     expect(Math.abs(m.matches[0]!.z - 0.25)).toBeLessThan(0.001);
   });
 
+  it('a lone line is flagged with the standard alternatives and the lines each one predicts', () => {
+    // z = 1.55 puts [O II] at 9508 Å and every other line of the recipe beyond 9800 Å.
+    const r = scanSpectrum(generateSyntheticSpectrum({ class: 'galaxy', z: 1.55, snr: 15, seed: 5 }));
+    const single = r.lineMatches.singleLine!;
+    expect(single).toBeDefined();
+    expect(single.wavelength).toBeCloseTo(3728.5 * 2.55, -1);
+    const byLine = new Map(single.alternatives.map((a) => [a.line, a]));
+    expect([...byLine.keys()]).toEqual(expect.arrayContaining(['[O II] 3727,3730', 'Ly-alpha', 'H-alpha', '[O III] 5008', 'H-beta']));
+    expect(byLine.get('[O II] 3727,3730')!.z).toBeCloseTo(1.55, 2);
+    expect(byLine.get('[O II] 3727,3730')!.expectedInRange).toEqual([]);
+    // Read as Hα (z ≈ 0.448), [N II], [S II], Hβ and [O III] would all fall inside 3600–9800 Å.
+    expect(byLine.get('H-alpha')!.z).toBeCloseTo(9508 / 6564.6 - 1, 2);
+    expect(byLine.get('H-alpha')!.expectedInRange).toEqual(expect.arrayContaining(['[N II] 6585', 'H-beta', '[O III] 5008']));
+    expect(byLine.get('Ly-alpha')!.separator).toMatch(/blueward/);
+    expect(r.solutions[0]!.z).toBeCloseTo(1.55, 2);
+  });
+
   it('photo-z prior re-ranks but keeps every solution', () => {
     const sols = [
       { z: 0.5, zErr: 1e-4, class: 'galaxy' as const, template: 'a', chi2: 100, deltaChi2: 4, detectionChi2: 50, lines: [] },
