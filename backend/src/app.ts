@@ -15,7 +15,9 @@ import { campaignRoutes } from './routes/campaigns';
 import { healthRoutes } from './routes/health';
 import { invitationRoutes } from './routes/invitations';
 import { jobRoutes } from './routes/jobs';
+import { lineListRoutes } from './routes/line-list';
 import { memberRoutes } from './routes/members';
+import { readingRoutes } from './routes/readings';
 import { spectrumRoutes } from './routes/spectra';
 import { targetRoutes } from './routes/targets';
 import { uploadRoutes } from './routes/uploads';
@@ -52,6 +54,8 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     jobRoutes,
     spectrumRoutes,
     targetRoutes,
+    readingRoutes,
+    lineListRoutes,
   ]) {
     api.use(routes(ctx));
   }

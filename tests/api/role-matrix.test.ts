@@ -64,6 +64,13 @@ const CASES: Case[] = [
   // No spectra yet: the lead reaches the route and is told there is nothing to re-scan.
   { method: 'post', route: '/campaigns/:id/rescans', url: '/api/campaigns/1/rescans', body: () => ({}), expect: leadOnly(400) },
   { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/999', expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/me/queue', url: '/api/me/queue?campaign=1', expect: { anonymous: 401, observer: 403, reader: 200, lead: 200, admin: 404 } },
+  { method: 'get', route: '/line-list', url: '/api/line-list', expect: signedIn(200) },
+  // Spectrum routes on a spectrum that does not exist: signed-in people learn only that.
+  { method: 'get', route: '/spectra/:spectrumId', url: '/api/spectra/999', expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/spectra/:spectrumId/data', url: '/api/spectra/999/data', expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/spectra/:spectrumId/scan-curves', url: '/api/spectra/999/scan-curves', expect: { ...all(404), anonymous: 401 } },
+  { method: 'post', route: '/spectra/:spectrumId/readings', url: '/api/spectra/999/readings', body: () => ({ z: 1, grade: 4, class: 'galaxy' }), expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];
 

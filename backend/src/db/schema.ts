@@ -236,3 +236,55 @@ export const scanResults = sqliteTable(
     index('scan_results_spectrum').on(t.spectrumId),
   ],
 );
+
+// ── Reading: assignments and readings ──────────────────────────────────────────────────────────
+
+export const READING_ORDERS = ['first', 'second'] as const;
+
+/** Who reads which spectrum, and in which of the two independent readings. */
+export const assignments = sqliteTable(
+  'assignments',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    spectrumId: integer('spectrum_id').notNull().references(() => spectra.id),
+    readerId: integer('reader_id').notNull().references(() => users.id),
+    readingOrder: text('reading_order', { enum: READING_ORDERS }).notNull(),
+    assignedBy: integer('assigned_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('assignments_spectrum_reader').on(t.spectrumId, t.readerId),
+    uniqueIndex('assignments_spectrum_order').on(t.spectrumId, t.readingOrder),
+    index('assignments_reader').on(t.readerId),
+  ],
+);
+
+export const SPECTRUM_CLASSES = ['galaxy', 'quasar', 'star', 'lyman-break', 'unknown'] as const;
+
+/**
+ * One person's verdict on one spectrum. A reader revises their reading in place until it is
+ * confirmed; each revision's before/after is in the audit trail and `revision` counts them.
+ */
+export const readings = sqliteTable(
+  'readings',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    spectrumId: integer('spectrum_id').notNull().references(() => spectra.id),
+    readerId: integer('reader_id').notNull().references(() => users.id),
+    readingOrder: text('reading_order', { enum: READING_ORDERS }).notNull(),
+    z: real('z').notNull(),
+    zErr: real('z_err'),
+    grade: integer('grade').notNull(),
+    spectrumClass: text('spectrum_class', { enum: SPECTRUM_CLASSES }).notNull(),
+    lines: text('lines', { mode: 'json' }).$type<string[]>().notNull(),
+    note: text('note').notNull().default(''),
+    /** Time the reader spent on the spectrum, summed over revisions, milliseconds. */
+    timeSpentMs: integer('time_spent_ms').notNull().default(0),
+    revision: integer('revision').notNull().default(1),
+    /** Set when the reading is part of a confirmed redshift; it can no longer be revised. */
+    lockedAt: text('locked_at'),
+    createdAt: createdAt(),
+    updatedAt: text('updated_at').notNull().default(now),
+  },
+  (t) => [uniqueIndex('readings_spectrum_reader').on(t.spectrumId, t.readerId), index('readings_reader').on(t.readerId)],
+);

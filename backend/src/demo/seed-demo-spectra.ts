@@ -10,9 +10,17 @@ const RANGES: Record<string, [number, number]> = { 'demo-slit': [3600, 9800], 'd
 
 /**
  * Gives a demo campaign its catalogue and spectra through the same paths a lead uses: the
- * catalogue import, then an upload whose ingest job the runner scans in the background.
+ * catalogue import, then an upload whose ingest job the runner scans in the background and
+ * assigns to the two readers.
  */
-export async function seedDemoSpectra(ctx: ServiceContext, lead: Actor, campaignId: number, targets: readonly DemoTarget[], seed: number): Promise<number> {
+export async function seedDemoSpectra(
+  ctx: ServiceContext,
+  lead: Actor,
+  campaignId: number,
+  targets: readonly DemoTarget[],
+  seed: number,
+  readers: { first: number; second: number },
+): Promise<number> {
   importCatalogue(ctx, lead, campaignId, demoCatalogueCsv(targets), undefined, false);
   const files = targets.map((t, i) => {
     const [wavelengthMin, wavelengthMax] = RANGES[t.instrument] ?? [3600, 9800];
@@ -22,6 +30,7 @@ export async function seedDemoSpectra(ctx: ServiceContext, lead: Actor, campaign
     writeFileSync(tempFile, spectrumToCsv(spectrum, `Redward demo spectrum of ${t.id} (synthetic; instrument ${t.instrument})`));
     return { originalName: `${t.id}_${t.instrument}.csv`, tempFile };
   });
-  const receipt = await receiveUpload(ctx, ctx.store, lead, campaignId, files);
+  // Until leads assign readers themselves, every demo spectrum goes to both demo readers.
+  const receipt = await receiveUpload(ctx, ctx.store, lead, campaignId, files, { assign: readers });
   return receipt.jobId;
 }

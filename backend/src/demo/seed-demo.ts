@@ -56,7 +56,10 @@ export async function seedDemoIfEmpty(ctx: ServiceContext): Promise<boolean> {
       .insert(memberships)
       .values(Object.entries(members).map(([email, role]) => ({ userId: userIds.get(email)!, campaignId: campaign.id, role })))
       .run();
-    if (ctx.config.demoSpectra) await seedDemoSpectra(ctx, lead, campaign.id, targets, 5000 * (index + 1));
+    if (ctx.config.demoSpectra) {
+      const readers = { first: userIds.get('reader1@demo.test')!, second: userIds.get('reader2@demo.test')! };
+      await seedDemoSpectra(ctx, lead, campaign.id, targets, 5000 * (index + 1), readers);
+    }
   }
   ctx.wakeJobRunner();
   return true;

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import { jobItems, scanResults, spectra } from '../db/schema';
+import { assignments, jobItems, scanResults, spectra } from '../db/schema';
 import type { ServiceContext } from '../services/context';
 import { linkTarget, type LinkableTarget } from '../ingest/link-target';
 import type { BlobStore } from '../storage/blob-store';
@@ -11,6 +11,8 @@ import type { ScanOutcome } from './scan-worker';
 export interface JobSettings {
   zMin: number;
   zMax: number;
+  /** Readers to assign each newly stored spectrum to, for the first and second reading. */
+  assign?: { first?: number; second?: number };
 }
 
 export interface ItemContext {
@@ -82,6 +84,10 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
       }
       spectrumId = inserted.id;
       outcome = 'stored';
+      for (const readingOrder of ['first', 'second'] as const) {
+        const readerId = ic.settings.assign?.[readingOrder];
+        if (readerId !== undefined) tx.insert(assignments).values({ spectrumId, readerId, readingOrder, assignedBy: job.createdBy }).run();
+      }
     } else {
       spectrumId = item.spectrumId!;
       outcome = 'rescanned';
@@ -107,7 +113,7 @@ function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: J
       spectrumId,
       jobId,
       engineVersion: result.scan.engineVersion,
-      settings: { ...settings },
+      settings: { zMin: settings.zMin, zMax: settings.zMax },
       spectrumClass: result.scan.class,
       zBest: top?.z ?? null,
       zBestErr: top?.zErr ?? null,

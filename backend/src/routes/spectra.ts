@@ -4,7 +4,8 @@ import { linkSpectrumRequestSchema } from '../contracts/targets';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
-import { linkSpectrum, spectrumCampaignId } from '../services/link-spectrum';
+import { linkSpectrum } from '../services/link-spectrum';
+import { spectrumCampaignId } from '../services/spectrum-access';
 import { listSpectra } from '../services/list-spectra';
 
 export function spectrumRoutes(ctx: ServiceContext): Router {

@@ -1,14 +1,8 @@
 import { and, eq } from 'drizzle-orm';
 import { spectra, targets } from '../db/schema';
-import { badRequest, notFound } from '../http/errors';
+import { badRequest } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
-
-export function spectrumCampaignId(ctx: ServiceContext, spectrumId: number): number {
-  const row = Number.isSafeInteger(spectrumId) ? ctx.db.select({ campaignId: spectra.campaignId }).from(spectra).where(eq(spectra.id, spectrumId)).get() : undefined;
-  if (!row) throw notFound('No such spectrum.', 'spectrum_not_found');
-  return row.campaignId;
-}
 
 /** A lead's manual link of a spectrum to a target of the same campaign (or unlinking it). */
 export function linkSpectrum(ctx: ServiceContext, actor: Actor, spectrumId: number, targetId: number | null): { spectrumId: number; targetId: number | null } {

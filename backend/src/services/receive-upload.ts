@@ -39,6 +39,7 @@ export async function receiveUpload(
   actor: Actor,
   campaignId: number,
   files: ReceivedFile[],
+  options: { assign?: { first?: number; second?: number } } = {},
 ): Promise<UploadReceipt> {
   if (files.length === 0) {
     throw badRequest('No files arrived. Send spectra (or zip archives of them) in the multipart field "files".', 'no_files');
@@ -76,7 +77,7 @@ export async function receiveUpload(
     for (const e of entries) tx.insert(storedFiles).values({ sha256: e.sha256, sizeBytes: e.sizeBytes }).onConflictDoNothing().run();
     const job = tx
       .insert(jobs)
-      .values({ kind: 'ingest', campaignId, createdBy: actor.id, total: entries.length, settings: { zMin: campaign.zMin, zMax: campaign.zMax } })
+      .values({ kind: 'ingest', campaignId, createdBy: actor.id, total: entries.length, settings: { zMin: campaign.zMin, zMax: campaign.zMax, ...(options.assign ? { assign: options.assign } : {}) } })
       .returning({ id: jobs.id })
       .get();
     const CHUNK = 500;

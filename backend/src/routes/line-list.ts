@@ -1,0 +1,18 @@
+import { Router } from 'express';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import type { ServiceContext } from '../services/context';
+import { LINES } from '../spectra/lineList';
+
+/** The rest-frame features of the comb, vacuum wavelengths in Å, with their sources. */
+export function lineListRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+  const lines = LINES.map((l) => ({ name: l.name, species: l.species, rest: l.rest, kind: l.kind, source: l.source, ...(l.widthA ? { widthA: l.widthA } : {}) }));
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/line-list',
+    access: access.signedIn,
+    handle: () => ({ medium: 'vacuum', unit: 'Angstrom', lines }),
+  });
+  return router;
+}

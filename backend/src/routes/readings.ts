@@ -1,0 +1,66 @@
+import { Router, type Request } from 'express';
+import { queueQuerySchema, submitReadingRequestSchema } from '../contracts/readings';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import type { ServiceContext } from '../services/context';
+import { readingQueue } from '../services/reading-queue';
+import { getScanCurves, getSpectrumDetail } from '../services/spectrum-detail';
+import { packSpectrumData } from '../services/spectrum-data';
+import { spectrumCampaignId } from '../services/spectrum-access';
+import { submitReading } from '../services/submit-reading';
+import { findCampaignRole } from '../services/find-campaign-role';
+import { forbidden, notFound } from '../http/errors';
+
+const spectrumId = (req: Request) => Number(req.params.spectrumId);
+const ofSpectrum = (ctx: ServiceContext, req: Request) => spectrumCampaignId(ctx, spectrumId(req));
+
+export function readingRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+  const viewer = access.campaignOf(ofSpectrum, 'lead', 'reader', 'observer');
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/me/queue',
+    access: access.signedIn,
+    query: queueQuerySchema,
+    handle: ({ user, query }) => {
+      const { exists, role } = findCampaignRole(ctx, user!.id, query.campaign);
+      if (!exists || role === null) throw notFound('No such campaign.', 'campaign_not_found');
+      if (role === 'observer') throw forbidden('Observers have no reading queue.');
+      return readingQueue(ctx, user!, query.campaign);
+    },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId',
+    access: viewer,
+    handle: ({ user, campaign, req }) => getSpectrumDetail(ctx, user!, campaign!.role, spectrumId(req)),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId/data',
+    access: viewer,
+    handle: ({ req, res }) => {
+      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(packSpectrumData(ctx, spectrumId(req)));
+    },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId/scan-curves',
+    access: viewer,
+    handle: ({ req }) => getScanCurves(ctx, spectrumId(req)),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/spectra/:spectrumId/readings',
+    access: access.campaignOf(ofSpectrum, 'lead', 'reader'),
+    body: submitReadingRequestSchema,
+    handle: ({ req, user, body }) => submitReading(ctx, user!, spectrumId(req), body),
+  });
+
+  return router;
+}

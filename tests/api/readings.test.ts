@@ -1,0 +1,154 @@
+import { writeFileSync } from 'node:fs';
+import { and, desc, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { auditEvents, jobs, readings, users } from '../../backend/src/db/schema';
+import { receiveUpload } from '../../backend/src/services/receive-upload';
+import { syntheticSpectrumFiles } from '../helpers/spectrum-archives';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+let spectrumIds: number[];
+type Agent = ReturnType<TestApp['agent']>;
+let reader1: Agent;
+let reader2: Agent;
+let lead: Agent;
+let observer: Agent;
+
+const userId = (email: string) => t.ctx.db.select({ id: users.id }).from(users).where(eq(users.email, email)).get()!.id;
+
+beforeAll(async () => {
+  t = await createTestApp({ SCAN_THREADS: '2' });
+  const leadActor = { id: userId('lead@demo.test'), email: 'lead@demo.test', name: 'Lena', isAdmin: false };
+  const files = Object.entries(syntheticSpectrumFiles(4, { prefix: 'READ' })).map(([name, bytes]) => {
+    const tempFile = t.ctx.store.tempPath();
+    writeFileSync(tempFile, bytes);
+    return { originalName: name, tempFile };
+  });
+  const { jobId } = await receiveUpload(t.ctx, t.ctx.store, leadActor, 1, files, {
+    assign: { first: userId('reader1@demo.test'), second: userId('reader2@demo.test') },
+  });
+  t.ctx.wakeJobRunner();
+  for (let i = 0; i < 600 && t.ctx.db.select().from(jobs).where(eq(jobs.id, jobId)).get()!.state !== 'done'; i++) await new Promise((r) => setTimeout(r, 100));
+  [reader1, reader2, lead, observer] = await Promise.all(['reader1', 'reader2', 'lead', 'observer'].map((w) => t.signIn(`${w}@demo.test`)));
+  spectrumIds = (await reader1.get('/api/me/queue?campaign=1')).body.map((q: { id: number }) => q.id);
+}, 60_000);
+afterAll(() => t.cleanup());
+
+describe('the reading queue', () => {
+  it('lists the assigned, unread spectra with their first/second order', async () => {
+    const q1 = (await reader1.get('/api/me/queue?campaign=1')).body;
+    const q2 = (await reader2.get('/api/me/queue?campaign=1')).body;
+    expect(q1).toHaveLength(4);
+    expect(q1.every((q: { readingOrder: string }) => q.readingOrder === 'first')).toBe(true);
+    expect(q2.every((q: { readingOrder: string }) => q.readingOrder === 'second')).toBe(true);
+    expect(q1[0]).toMatchObject({ campaignId: 1, fileName: 'night1/READ-0001.csv' });
+    expect(typeof q1[0].zBest).toBe('number');
+  });
+
+  it('is refused to observers and to people outside the campaign', async () => {
+    expect((await observer.get('/api/me/queue?campaign=1')).status).toBe(403);
+    expect((await observer.get('/api/me/queue?campaign=2')).status).toBe(404);
+    expect((await reader1.get('/api/me/queue')).status).toBe(400);
+  });
+});
+
+describe('readings', () => {
+  const good = { z: 0.2, grade: 4, class: 'galaxy', lines: ['H-alpha', '[N II] 6585'], note: 'Hα + [N II] clear' };
+
+  it('saves a reading once: a double submit changes nothing', async () => {
+    const id = spectrumIds[0]!;
+    const first = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, timeSpentMs: 12_000 });
+    expect(first.status, JSON.stringify(first.body)).toBe(200);
+    expect(first.body).toMatchObject({ changed: true, reading: { z: 0.2, grade: 4, class: 'galaxy', readingOrder: 'first', revision: 1, timeSpentMs: 12_000 } });
+    const again = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, timeSpentMs: 12_000 });
+    expect(again.body).toMatchObject({ changed: false, reading: { id: first.body.reading.id, revision: 1 } });
+    expect(t.ctx.db.select().from(readings).where(eq(readings.spectrumId, id)).all()).toHaveLength(1);
+    expect((await reader1.get('/api/me/queue?campaign=1')).body.map((q: { id: number }) => q.id)).not.toContain(id);
+  });
+
+  it('keeps every revision in the audit trail', async () => {
+    const id = spectrumIds[0]!;
+    const revised = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, grade: 3, timeSpentMs: 3_000 });
+    expect(revised.body).toMatchObject({ changed: true, reading: { grade: 3, revision: 2, timeSpentMs: 15_000 } });
+    const event = t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.action, 'reading.revised'), eq(auditEvents.subjectId, revised.body.reading.id))).orderBy(desc(auditEvents.id)).get()!;
+    expect(event.before).toMatchObject({ grade: 4, revision: 1 });
+    expect(event.after).toMatchObject({ grade: 3, revision: 2 });
+  });
+
+  it('is blind: the second reader never sees the first reading; the lead sees both', async () => {
+    const id = spectrumIds[0]!;
+    const forReader2 = (await reader2.get(`/api/spectra/${id}`)).body;
+    expect(forReader2.readings).toEqual([]);
+    expect(forReader2.assignment).toEqual({ readingOrder: 'second' });
+    await reader2.post(`/api/spectra/${id}/readings`).send({ ...good, z: 0.2004 });
+    const forLead = (await lead.get(`/api/spectra/${id}`)).body;
+    expect(forLead.readings.map((r: { readingOrder: string; z: number }) => [r.readingOrder, r.z])).toEqual([
+      ['first', 0.2],
+      ['second', 0.2004],
+    ]);
+    const forReader1 = (await reader1.get(`/api/spectra/${id}`)).body;
+    expect(forReader1.readings.map((r: { reader: { name: string } }) => r.reader.name)).toEqual(['Rafael Demo (reader 1)']);
+    expect((await observer.get(`/api/spectra/${id}`)).body.readings).toEqual([]);
+  });
+
+  it('refuses a z outside the campaign range, a grade not in the scheme and unknown lines, storing nothing', async () => {
+    const id = spectrumIds[1]!;
+    const outside = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, z: 9.5 });
+    expect(outside.status).toBe(400);
+    expect(outside.body.error).toEqual({ code: 'z_out_of_range', message: "z = 9.5 lies outside this campaign's range 0 ≤ z ≤ 9." });
+    const grade = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, grade: 7 });
+    expect(grade.body.error.code).toBe('unknown_grade');
+    expect(grade.body.error.message).toBe("Grade 7 is not in this campaign's scheme: 4 (firm), 3 (probable), 2 (tentative), 1 (undetermined), 0 (unusable).");
+    const line = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, lines: ['H-alpha', 'Unobtainium 5000'] });
+    expect(line.body.error).toEqual({ code: 'unknown_line', message: 'Not in the line list: Unobtainium 5000.' });
+    const cls = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, class: 'comet' });
+    expect(cls.status).toBe(400);
+    expect(t.ctx.db.select().from(readings).where(eq(readings.spectrumId, id)).all()).toEqual([]);
+  });
+
+  it('refuses readings from people not assigned, observers, and outsiders', async () => {
+    const id = spectrumIds[1]!;
+    const leadTry = await lead.post(`/api/spectra/${id}/readings`).send(good);
+    expect(leadTry.status).toBe(403);
+    expect(leadTry.body.error.code).toBe('not_assigned');
+    expect((await observer.post(`/api/spectra/${id}/readings`).send(good)).status).toBe(403);
+    const admin = await t.signIn('admin@demo.test');
+    expect((await admin.post(`/api/spectra/${id}/readings`).send(good)).status).toBe(403);
+    const outsider = t.agent();
+    await outsider.post('/api/campaigns').send({});
+    expect((await outsider.post(`/api/spectra/${id}/readings`).send(good)).status).toBe(401);
+  });
+});
+
+describe('spectrum data for plotting', () => {
+  it('packs vacuum wavelengths as float64 and flux, error, mask compactly', async () => {
+    const res = await reader1.get(`/api/spectra/${spectrumIds[2]}/data`).buffer(true).parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    expect(res.status).toBe(200);
+    const buf = res.body as Buffer;
+    const headerLength = buf.readUInt32LE(0);
+    const header = JSON.parse(buf.subarray(4, 4 + headerLength).toString('utf8'));
+    expect(header).toMatchObject({ pixels: 2000, medium: 'vacuum', convertedFromAir: false, sky: false });
+    const start = Math.ceil((4 + headerLength) / 8) * 8;
+    const copy = new Uint8Array(buf.subarray(start, start + 2000 * 8));
+    const wavelength = new Float64Array(copy.buffer);
+    // The synthetic spectra span 3600–9800 Å on a log-uniform grid (tests/helpers/spectrum-archives.ts).
+    expect(wavelength[0]).toBeCloseTo(3600, 2);
+    expect(wavelength[1999]).toBeCloseTo(9800, 2);
+    // float64 wavelength, float32 flux and error, uint8 mask; no sky column in these files.
+    expect(buf.length).toBe(start + 2000 * (8 + 4 + 4 + 1));
+  });
+
+  it('serves the χ²(z) curves and the line list of the comb', async () => {
+    const curves = (await reader1.get(`/api/spectra/${spectrumIds[2]}/scan-curves`)).body.curves;
+    expect(curves.length).toBeGreaterThan(2);
+    expect(curves[0].z.length).toBe(curves[0].chi2.length);
+    const lines = (await reader1.get('/api/line-list')).body;
+    expect(lines.medium).toBe('vacuum');
+    // NIST vacuum wavelength of Hα (reference-values.md §1): 6564.61 Å.
+    expect(lines.lines.find((l: { name: string }) => l.name === 'H-alpha').rest).toBeCloseTo(6564.61, 1);
+  });
+});
