@@ -29,7 +29,10 @@ beforeAll(async () => {
   });
   t.ctx.wakeJobRunner();
   for (let i = 0; i < 600 && t.ctx.db.select().from(jobs).where(eq(jobs.id, jobId)).get()!.state !== 'done'; i++) await new Promise((r) => setTimeout(r, 100));
-  [reader1, reader2, lead, observer] = await Promise.all(['reader1', 'reader2', 'lead', 'observer'].map((w) => t.signIn(`${w}@demo.test`)));
+  reader1 = await t.signIn('reader1@demo.test');
+  reader2 = await t.signIn('reader2@demo.test');
+  lead = await t.signIn('lead@demo.test');
+  observer = await t.signIn('observer@demo.test');
   spectrumIds = (await reader1.get('/api/me/queue?campaign=1')).body.map((q: { id: number }) => q.id);
 }, 60_000);
 afterAll(() => t.cleanup());
