@@ -37,6 +37,9 @@ export function bestAmplitudes(a: Float64Array, r: Float64Array, m: number, ampl
       amplitudes.fill(0, 0, m);
       for (let p = 0; p < k; p++) amplitudes[idx[p]!] = sol[p]!;
     }
+    // The unconstrained least-squares optimum over all m components, when non-negative, is the
+    // global optimum: no subset can reduce χ² further.
+    if (feasible && k === m) return best;
   }
   return best;
 }
