@@ -54,6 +54,9 @@ describe('uploading a zip of spectra', () => {
     expect(list.body.total).toBe(200);
     expect(list.body.rows[0]).toMatchObject({ fileName: 'night1.zip/night1/TST-0001.csv', scanState: 'scanned' });
     expect(typeof list.body.rows[0].zBest).toBe('number');
+    expect(list.body.rows[0]).toMatchObject({ readingsAssigned: 0, readingsDone: 0 });
+    const jobsList = await lead.get('/api/campaigns/1/jobs');
+    expect(jobsList.body.jobs[0]).toMatchObject({ id: res.body.jobId, kind: 'ingest', state: 'done', summary: { stored: 200, failed: 3 } });
   });
 
   it('recognises the same zip again as 200 duplicates and stores nothing twice', { timeout: 60_000 }, async () => {

@@ -60,6 +60,7 @@ const CASES: Case[] = [
   { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/1', expect: leadOnly(200) },
   { method: 'post', route: '/jobs/:jobId/cancel', url: '/api/jobs/1/cancel', expect: leadOnly(200) },
   { method: 'get', route: '/jobs/:jobId/events', url: '/api/jobs/1/events', expect: leadOnly(200) },
+  { method: 'get', route: '/campaigns/:id/jobs', url: '/api/campaigns/1/jobs', expect: leadOnly(200) },
   { method: 'get', route: '/campaigns/:id/scan-status', url: '/api/campaigns/1/scan-status', expect: signedIn(200) },
   // No spectra yet: the lead reaches the route and is told there is nothing to re-scan.
   { method: 'post', route: '/campaigns/:id/rescans', url: '/api/campaigns/1/rescans', body: () => ({}), expect: leadOnly(400) },

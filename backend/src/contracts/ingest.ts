@@ -1,5 +1,8 @@
 import { z } from 'zod';
 
+/** File name endings Redward reads as spectra (case-insensitive); zip archives hold any of them. */
+export const SPECTRUM_FILE_ENDINGS = ['.fits', '.fit', '.fts', '.fits.gz', '.fit.gz', '.fts.gz', '.csv', '.tsv', '.txt', '.dat', '.ascii'] as const;
+
 export const jobStateSchema = z.enum(['queued', 'running', 'done', 'failed', 'cancelled']);
 export type JobState = z.infer<typeof jobStateSchema>;
 
@@ -63,6 +66,9 @@ export const spectrumRowSchema = z.object({
   wavelengthMax: z.number(),
   snrMedian: z.number().nullable(),
   scanState: z.enum(['scanned', 'not scanned']),
+  /** Readers assigned and readings saved (first and second reading). */
+  readingsAssigned: z.number().int(),
+  readingsDone: z.number().int(),
   zBest: z.number().nullable(),
   zBestErr: z.number().nullable(),
   spectrumClass: z.string().nullable(),
@@ -91,3 +97,6 @@ export const scanStatusSchema = z.object({
 });
 export type ScanStatus = z.infer<typeof scanStatusSchema>;
 export const rescanResponseSchema = z.object({ jobId: z.number().int(), spectra: z.number().int() });
+
+export const jobListSchema = z.object({ jobs: z.array(jobProgressSchema.omit({ errors: true })) });
+export type JobSummaryRow = z.infer<typeof jobListSchema>['jobs'][number];

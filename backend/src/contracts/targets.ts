@@ -64,3 +64,4 @@ export const targetsQuerySchema = z.object({ q: z.string().trim().max(200).optio
 /** Links a spectrum to a target by hand (null unlinks). */
 export const linkSpectrumRequestSchema = z.object({ targetId: z.number().int().positive().nullable() }).strict();
 export type LinkSpectrumRequest = z.infer<typeof linkSpectrumRequestSchema>;
+export const linkSpectrumResponseSchema = z.object({ spectrumId: z.number().int(), targetId: z.number().int().nullable() });

@@ -1,5 +1,6 @@
-/** File name endings Redward reads as spectra (case-insensitive). */
-export const SPECTRUM_FILE_ENDINGS = ['.fits', '.fit', '.fts', '.fits.gz', '.fit.gz', '.fts.gz', '.csv', '.tsv', '.txt', '.dat', '.ascii'] as const;
+import { SPECTRUM_FILE_ENDINGS } from '../contracts/ingest';
+
+export { SPECTRUM_FILE_ENDINGS };
 
 export function isSpectrumFileName(name: string): boolean {
   const lower = name.toLowerCase();

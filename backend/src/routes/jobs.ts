@@ -3,7 +3,7 @@ import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
 import { rescanRequestSchema } from '../contracts/ingest';
-import { cancelJob, getJobProgress, jobCampaignId } from '../services/job-progress';
+import { cancelJob, getJobProgress, jobCampaignId, listCampaignJobs } from '../services/job-progress';
 import { getScanStatus, queueRescan } from '../services/queue-rescan';
 
 const jobId = (req: Request) => Number(req.params.jobId);
@@ -59,6 +59,13 @@ export function jobRoutes(ctx: ServiceContext): Router {
       req.on('close', () => clearInterval(timer));
       tick();
     },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/campaigns/:id/jobs',
+    access: access.campaign('lead'),
+    handle: ({ campaign }) => ({ jobs: listCampaignJobs(ctx, campaign!.id) }),
   });
 
   defineRoute(ctx, router, {

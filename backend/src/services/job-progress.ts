@@ -1,4 +1,4 @@
-import { and, count, eq, isNotNull, sql } from 'drizzle-orm';
+import { and, count, desc, eq, isNotNull, sql } from 'drizzle-orm';
 import type { JobProgress } from '../contracts/ingest';
 import { jobItems, jobs, spectra } from '../db/schema';
 import { badRequest, notFound } from '../http/errors';
@@ -56,6 +56,21 @@ export function getJobProgress(ctx: ServiceContext, jobId: number): JobProgress 
     createdAt: job.createdAt,
     finishedAt: job.finishedAt,
   };
+}
+
+/** A campaign's jobs, newest first, with their counts (errors are listed per job). */
+export function listCampaignJobs(ctx: ServiceContext, campaignId: number, limit = 50): Omit<JobProgress, 'errors'>[] {
+  return ctx.db
+    .select({ id: jobs.id })
+    .from(jobs)
+    .where(eq(jobs.campaignId, campaignId))
+    .orderBy(desc(jobs.id))
+    .limit(limit)
+    .all()
+    .map(({ id }) => {
+      const { errors: _errors, ...rest } = getJobProgress(ctx, id);
+      return rest;
+    });
 }
 
 /** Asks the runner to stop a job after the items in flight; a queued job stops at once. */

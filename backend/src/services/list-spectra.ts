@@ -1,7 +1,7 @@
-import { and, asc, count, desc, eq, isNotNull, isNull, like, or, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { SpectraPage, spectraQuerySchema } from '../contracts/ingest';
 import type { z } from 'zod';
-import { scanResults, spectra, targets } from '../db/schema';
+import { assignments, readings, scanResults, spectra, targets } from '../db/schema';
 import type { ServiceContext } from './context';
 
 type Query = z.output<typeof spectraQuerySchema>;
@@ -47,6 +47,8 @@ export function listSpectra(ctx: ServiceContext, campaignId: number, query: Quer
         zBestErr: scanResults.zBestErr,
         spectrumClass: scanResults.spectrumClass,
         createdAt: spectra.createdAt,
+        readingsAssigned: sql<number>`(select count(*) from ${assignments} where ${assignments.spectrumId} = ${spectra.id})`,
+        readingsDone: sql<number>`(select count(*) from ${readings} where ${readings.spectrumId} = ${spectra.id})`,
       })
       .from(spectra)
       .leftJoin(targets, eq(targets.id, spectra.targetId))
@@ -86,6 +88,8 @@ export function listSpectra(ctx: ServiceContext, campaignId: number, query: Quer
       zBestErr: r.zBestErr,
       spectrumClass: r.spectrumClass,
       createdAt: r.createdAt,
+      readingsAssigned: r.readingsAssigned,
+      readingsDone: r.readingsDone,
     })),
   };
 }
