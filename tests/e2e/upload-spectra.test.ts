@@ -1,0 +1,59 @@
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { brokenSpectrumFiles, syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
+import { launchBrowser, startE2eServer, type E2eServer } from './browser';
+
+let server: E2eServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startE2eServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.cleanup();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill('redward-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/campaigns/);
+}
+
+it('a lead imports a catalogue, uploads a zip, watches it scan, and sees the top solutions', async () => {
+  const page = await browser.newPage();
+  const pageErrors: string[] = [];
+  page.on('pageerror', (err) => pageErrors.push(err.message));
+  await signIn(page, 'lead@demo.test');
+
+  // The catalogue: ids that appear in the spectra's file names.
+  await page.goto(`${server.url}/campaigns/1/targets`);
+  const catalogue = ['id,ra,dec,zphot,zphot_l68,zphot_u68', ...Array.from({ length: 12 }, (_, i) => `E2E-${String(i + 1).padStart(4, '0')},160.5,-11.6,1.0,0.8,1.2`)].join('\n');
+  await page.getByLabel('Choose a catalogue').setInputFiles({ name: 'targets.csv', mimeType: 'text/csv', buffer: Buffer.from(catalogue) });
+  await page.getByRole('button', { name: 'Import targets' }).click();
+  await expect.poll(() => page.locator('dl[aria-label="Catalogue import result"]').textContent()).toMatch(/Created\s*12/);
+
+  // The upload: 12 spectra and the three broken files, in one zip.
+  await page.goto(`${server.url}/campaigns/1/upload`);
+  const archive = zip({ ...syntheticSpectrumFiles(12, { prefix: 'E2E' }), ...brokenSpectrumFiles() });
+  await page.getByLabel('Choose files').setInputFiles({ name: 'night-e2e.zip', mimeType: 'application/zip', buffer: archive });
+  await page.getByRole('button', { name: 'Upload', exact: true }).click();
+  const scan = page.getByRole('progressbar', { name: 'Scan progress' });
+  await scan.waitFor({ timeout: 30_000 });
+  await expect.poll(() => scan.getAttribute('aria-valuenow'), { timeout: 60_000 }).toBe('15');
+  const summary = page.locator('dl[aria-label="Upload summary"]');
+  await expect.poll(() => summary.textContent(), { timeout: 30_000 }).toMatch(/Stored\s*12.*Linked\s*12.*Failed\s*3/s);
+  const failed = page.getByRole('table', { name: 'Files that could not be read' });
+  await expect.poll(() => failed.textContent()).toContain('night-e2e.zip/broken/empty.txt');
+  await expect.poll(() => failed.textContent()).toContain('The file is empty.');
+
+  // The spectra list shows each spectrum's target and top solution.
+  await page.goto(`${server.url}/campaigns/1/spectra`);
+  const firstRow = page.getByRole('row').filter({ hasText: 'E2E-0001' }).first();
+  await firstRow.waitFor();
+  expect(await firstRow.textContent()).toMatch(/\d\.\d{5}/);
+  expect(pageErrors).toEqual([]);
+});
