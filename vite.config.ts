@@ -12,7 +12,23 @@ export default defineConfig({
   root: r('./frontend'),
   plugins: [react(), tailwindcss()],
   resolve: { alias: { '@contracts': r('./backend/src/contracts'), '@': r('./frontend/src') } },
-  build: { outDir: r('./frontend/dist'), emptyOutDir: true, sourcemap: true },
+  build: {
+    outDir: r('./frontend/dist'),
+    emptyOutDir: true,
+    sourcemap: true,
+    rolldownOptions: {
+      output: {
+        // Libraries change less often than our code: separate chunks stay cached across releases.
+        codeSplitting: {
+          groups: [
+            { name: 'react', test: /node_modules[\\/](react|react-dom|react-router|react-router-dom|scheduler)[\\/]/, priority: 3 },
+            { name: 'plot', test: /node_modules[\\/]uplot[\\/]/, priority: 2 },
+            { name: 'vendor', test: /node_modules[\\/]/, priority: 1 },
+          ],
+        },
+      },
+    },
+  },
   server: {
     port: Number(process.env.PORT ?? 3000),
     proxy: { '/api': { target: `http://127.0.0.1:${apiPort}`, changeOrigin: false } },
