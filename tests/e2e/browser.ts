@@ -2,7 +2,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { loadConfig } from '../../backend/src/config';
 import { startServer, type RunningServer } from '../../backend/src/server';
 
@@ -57,4 +57,13 @@ export async function startE2eServer(): Promise<E2eServer> {
       rmSync(dataDir, { recursive: true, force: true });
     },
   };
+}
+
+/** Signs in through the sign-in page, as a person would, and waits for the campaigns list. */
+export async function signInThroughPage(page: Page, baseUrl: string, email: string, password = 'redward-demo'): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password', { exact: true }).fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/campaigns/);
 }

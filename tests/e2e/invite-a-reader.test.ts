@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { launchBrowser, startE2eServer, type E2eServer } from './browser';
+import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
 
 let server: E2eServer;
 let browser: Browser;
@@ -15,13 +15,7 @@ afterAll(async () => {
   await server?.cleanup();
 });
 
-async function signIn(page: Page, email: string, password: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/campaigns/);
-}
+const signIn = (page: Page, email: string, password: string) => signInThroughPage(page, server.url, email, password);
 
 async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click();

@@ -1,7 +1,7 @@
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { brokenSpectrumFiles, syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
-import { launchBrowser, startE2eServer, type E2eServer } from './browser';
+import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
 
 let server: E2eServer;
 let browser: Browser;
@@ -15,19 +15,12 @@ afterAll(async () => {
   await server?.cleanup();
 });
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password', { exact: true }).fill('redward-demo');
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/campaigns/);
-}
 
 it('a lead imports a catalogue, uploads a zip, watches it scan, and sees the top solutions', async () => {
   const page = await browser.newPage();
   const pageErrors: string[] = [];
   page.on('pageerror', (err) => pageErrors.push(err.message));
-  await signIn(page, 'lead@demo.test');
+  await signInThroughPage(page, server.url, 'lead@demo.test');
 
   // The catalogue: ids that appear in the spectra's file names.
   await page.goto(`${server.url}/campaigns/1/targets`);
