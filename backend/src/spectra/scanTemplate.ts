@@ -34,6 +34,8 @@ export interface ScanData {
   w: Float64Array;
   /** Σ w f², the χ² of a zero model. */
   chi2Null: number;
+  /** Factor the flux was multiplied by (√ of the median positive ivar): amplitudes are in these units. */
+  fluxScale: number;
   normWf: number;
   normW: number;
   /** Padded data buffers (or their FFTs) per transform size and method. */
@@ -59,7 +61,7 @@ export function scanData(prepared: PreparedSpectrum): ScanData {
   }
   const origin = Math.floor(prepared.g0 / ALIGN) * ALIGN;
   const offset = prepared.g0 - origin;
-  return { prepared, origin, offset, span: offset + n, wf, w, chi2Null, normWf: norm(wf), normW: norm(w), buffers: new Map() };
+  return { prepared, origin, offset, span: offset + n, wf, w, chi2Null, fluxScale: Math.sqrt(typicalIvar), normWf: norm(wf), normW: norm(w), buffers: new Map() };
 }
 
 function dataBuffers(data: ScanData, corr: ShiftCorrelator): { wf: Float64Array; w: Float64Array } {
