@@ -81,7 +81,7 @@ function UploadPage({ campaign }: { campaign: Campaign }) {
         </p>
       ) : null}
       {jobId ? (
-        <Panel title="Reading and scanning">
+        <Panel title="Parsing and scanning">
           <JobProgressPanel key={jobId} jobId={jobId} onFinished={onFinished} />
         </Panel>
       ) : null}

@@ -11,6 +11,7 @@ import { CampaignFacts } from '@/features/campaigns/components/campaign-facts';
 import { CampaignSettingsForm } from '@/features/campaigns/components/campaign-settings-form';
 import { GradeSchemeTable } from '@/features/campaigns/components/grade-scheme-table';
 import { CampaignMembers } from '@/features/members/components/campaign-members';
+import { RescanNotice } from '@/features/spectra/components/rescan-notice';
 import { SpectraCounts } from '@/features/spectra/components/spectra-counts';
 import { NotFoundRoute } from './not-found';
 
@@ -45,6 +46,7 @@ function CampaignOverview({ id }: { id: number }) {
       <Panel>
         <CampaignFacts campaign={c} />
       </Panel>
+      <RescanNotice campaignId={c.id} isLead={isLead} />
       <DataPanel campaign={c} isLead={isLead} />
       <Panel>
         <CampaignMembers campaignId={c.id} isLead={isLead} />
