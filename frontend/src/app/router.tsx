@@ -32,6 +32,9 @@ export const createRouter = () =>
             { path: '/campaigns/:campaignId/upload', element: <CampaignUploadRoute /> },
             { path: '/campaigns/:campaignId/targets', element: <CampaignTargetsRoute /> },
             { path: '/campaigns/:campaignId/spectra', element: <CampaignSpectraRoute /> },
+            // The inspection screen and its plotting library load only when a reader opens it.
+            { path: '/campaigns/:campaignId/inspect', lazy: () => import('./routes/campaign-inspect').then((m) => ({ Component: m.CampaignInspectRoute })) },
+            { path: '/spectra/:spectrumId', lazy: () => import('./routes/spectrum').then((m) => ({ Component: m.SpectrumRoute })) },
             { path: '/account', element: <AccountRoute /> },
             {
               path: '/admin',

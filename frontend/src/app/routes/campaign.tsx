@@ -71,6 +71,11 @@ function DataPanel({ campaign, isLead }: { campaign: Campaign; isLead: boolean }
       <div className="flex flex-wrap items-end justify-between gap-4">
         <SpectraCounts campaignId={campaign.id} />
         <nav aria-label="Campaign data" className="flex flex-wrap gap-2">
+          {campaign.myRole === 'reader' || isLead ? (
+            <Link to={`${base}/inspect`} className={buttonClass(isLead ? 'secondary' : 'primary', 'sm')}>
+              Start reading
+            </Link>
+          ) : null}
           <Link to={`${base}/spectra`} className={buttonClass('secondary', 'sm')}>
             Spectra list
           </Link>

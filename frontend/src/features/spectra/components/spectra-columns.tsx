@@ -1,4 +1,5 @@
 import type { SpectrumRow } from '@contracts/ingest';
+import { Link } from 'react-router-dom';
 import { createColumnHelper, rowPaginationFeature, rowSortingFeature, tableFeatures } from '@tanstack/react-table';
 import { Badge } from '@/components/ui/badge';
 import { FilePath } from '@/components/ui/file-path';
@@ -39,7 +40,16 @@ function RedshiftCell({ row }: { row: SpectrumRow }) {
 /** Column ids are the server's sort keys, so a header click maps straight onto `sort=`. */
 export const spectraColumns = helper.columns([
   helper.accessor((r) => r.target?.catalogueId, { id: 'target', header: 'Target', cell: (c) => <TargetCell row={c.row.original} /> }),
-  helper.accessor('fileName', { id: 'fileName', header: 'File', cell: (c) => <FilePath path={c.getValue()} /> }),
+  helper.accessor('fileName', {
+    id: 'fileName',
+    header: 'File',
+    // The file name opens the spectrum on the inspection screen.
+    cell: (c) => (
+      <Link to={`/spectra/${c.row.original.id}`} className="text-blueend-600 hover:underline">
+        <FilePath path={c.getValue()} />
+      </Link>
+    ),
+  }),
   helper.accessor('instrument', { id: 'instrument', header: 'Instrument', cell: (c) => c.getValue() ?? <span className="text-ink-400">—</span> }),
   helper.display({
     id: 'pixels',

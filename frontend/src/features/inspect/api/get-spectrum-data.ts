@@ -1,0 +1,32 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiErrorFromBody, ApiError, NETWORK_ERROR_MESSAGE } from '@/lib/api-client';
+import { decodeSpectrumData } from '../utils/decode-spectrum-data';
+import type { SpectrumArrays } from '../utils/decode-spectrum-data';
+import { inspectKeys } from './keys';
+
+/** The packed arrays are binary, so this is the one fetch that does not go through api.get. */
+export async function getSpectrumData(spectrumId: number, signal?: AbortSignal): Promise<SpectrumArrays> {
+  let res: Response;
+  try {
+    res = await fetch(`/api/spectra/${spectrumId}/data`, { credentials: 'same-origin', headers: { Accept: 'application/octet-stream' }, signal: signal ?? null });
+  } catch (e) {
+    if (e instanceof DOMException && e.name === 'AbortError') throw e;
+    throw new ApiError(0, 'network_error', NETWORK_ERROR_MESSAGE);
+  }
+  if (!res.ok) throw apiErrorFromBody(res.status, res.statusText, await res.json().catch(() => null));
+  try {
+    return decodeSpectrumData(await res.arrayBuffer());
+  } catch (e) {
+    throw new ApiError(res.status, 'unexpected_response', `The spectrum's arrays could not be decoded: ${e instanceof Error ? e.message : String(e)}`);
+  }
+}
+
+export const getSpectrumDataQueryOptions = (spectrumId: number) =>
+  queryOptions({
+    queryKey: inspectKeys.data(spectrumId),
+    queryFn: ({ signal }) => getSpectrumData(spectrumId, signal),
+    // The arrays of a stored file never change; refetching would only rebuild the plot.
+    staleTime: Infinity,
+  });
+
+export const useSpectrumData = (spectrumId: number) => useQuery(getSpectrumDataQueryOptions(spectrumId));

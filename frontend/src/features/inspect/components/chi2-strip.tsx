@@ -1,0 +1,110 @@
+import { useEffect, useRef } from 'react';
+import uPlot from 'uplot';
+import type { Solution } from '../api/schemas';
+import type { Chi2StripData } from '../utils/chi2-strip-data';
+import { PLOT } from '../utils/plot-palette';
+import type { TrialZStore } from '../utils/trial-z-store';
+import { CLASS_NAMES } from './class-names';
+import { createOverlayCanvas } from './overlay-canvas';
+
+const HEIGHT = 170;
+
+/**
+ * χ²(z) per class under the spectrum: dips are candidate redshifts. The solutions are marked with
+ * their rank, the trial z is a cursor line on an overlay, and a click sets the trial z there.
+ */
+export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; solutions: Solution[]; store: TrialZStore }) {
+  const host = useRef<HTMLDivElement>(null);
+  const live = useRef({ solutions });
+  live.current.solutions = solutions;
+
+  useEffect(() => {
+    const el = host.current!;
+    let overlay: ReturnType<typeof createOverlayCanvas> | null = null;
+    let frame = 0;
+    const paint = () => {
+      const u = plotRef;
+      if (!overlay || !u) return;
+      overlay.paint((ctx, _w, h) => {
+        ctx.font = '10px "IBM Plex Mono", ui-monospace, monospace';
+        ctx.fillStyle = PLOT.solution;
+        ctx.strokeStyle = PLOT.solution;
+        live.current.solutions.forEach((s, i) => {
+          const x = Math.round(u.valToPos(s.z, 'x')) + 0.5;
+          ctx.setLineDash([2, 2]);
+          ctx.beginPath();
+          ctx.moveTo(x, 12);
+          ctx.lineTo(x, h);
+          ctx.stroke();
+          ctx.fillText(String(i + 1), x + 2, 2);
+        });
+        ctx.setLineDash([]);
+        const x = Math.round(u.valToPos(store.get(), 'x')) + 0.5;
+        ctx.strokeStyle = PLOT.cursor;
+        ctx.lineWidth = 2;
+        ctx.beginPath();
+        ctx.moveTo(x, 0);
+        ctx.lineTo(x, h);
+        ctx.stroke();
+        ctx.lineWidth = 1;
+      });
+    };
+    let plotRef: uPlot | null = null;
+    const u = new uPlot(
+      {
+        width: el.clientWidth || 800,
+        height: HEIGHT,
+        legend: { show: false },
+        cursor: { drag: { x: false, y: false }, points: { show: false }, y: false },
+        scales: { x: { time: false }, y: { distr: 3 } },
+        series: [{}, ...data.classes.map((c) => ({ label: c, stroke: PLOT.classes[c] ?? PLOT.axis, width: 1.25, spanGaps: false, points: { show: false } }))],
+        axes: [
+          { label: 'Redshift', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid } },
+          { label: 'χ² − min + 1', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64 },
+        ],
+        hooks: { draw: [paint], setSize: [() => (overlay?.fit(), paint())] },
+      },
+      [data.z, ...data.series] as uPlot.AlignedData,
+      el,
+    );
+    plotRef = u;
+    overlay = createOverlayCanvas(u);
+    paint();
+    const unsubscribe = store.subscribe(() => {
+      if (!frame) frame = requestAnimationFrame(() => ((frame = 0), paint()));
+    });
+    const click = (e: MouseEvent) => store.set(u.posToVal(e.clientX - u.over.getBoundingClientRect().left, 'x'));
+    u.over.addEventListener('click', click);
+    const resize = new ResizeObserver(() => {
+      const width = el.clientWidth;
+      if (width > 0 && width !== u.width) u.setSize({ width, height: HEIGHT });
+    });
+    resize.observe(el);
+    return () => {
+      cancelAnimationFrame(frame);
+      unsubscribe();
+      resize.disconnect();
+      u.over.removeEventListener('click', click);
+      u.destroy();
+    };
+  }, [data, store]);
+
+  return (
+    <figure className="flex flex-col gap-1">
+      <div ref={host} role="img" aria-label="χ² against z per class (a click moves the comb there)" className="w-full cursor-pointer" />
+      <figcaption className="flex flex-wrap gap-x-4 text-xs text-ink-600">
+        {data.classes.map((c) => (
+          <span key={c} className="inline-flex items-center gap-1.5">
+            <span aria-hidden="true" className="inline-block h-0.5 w-4" style={{ backgroundColor: PLOT.classes[c] ?? PLOT.axis }} />
+            {CLASS_NAMES[c as keyof typeof CLASS_NAMES] ?? c}
+          </span>
+        ))}
+        <span className="inline-flex items-center gap-1.5">
+          <span aria-hidden="true" className="inline-block h-3 w-0.5" style={{ backgroundColor: PLOT.cursor }} />
+          trial z
+        </span>
+        <span>numbers: solutions by rank</span>
+      </figcaption>
+    </figure>
+  );
+}

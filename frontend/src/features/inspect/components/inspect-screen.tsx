@@ -1,0 +1,58 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
+import type { ReactNode } from 'react';
+import { Loading } from '@/components/ui/loading';
+import { ErrorNotice } from '@/components/ui/notice';
+import { useLineList } from '../api/get-line-list';
+import { getScanCurvesQueryOptions, useScanCurves } from '../api/get-scan-curves';
+import { getSpectrumDataQueryOptions, useSpectrumData } from '../api/get-spectrum-data';
+import { getSpectrumDetailQueryOptions, useSpectrumDetail } from '../api/get-spectrum-detail';
+import type { SpectrumDetail } from '../api/schemas';
+import { InspectWorkspace } from './inspect-workspace';
+import type { QueueNavigation } from './inspect-workspace';
+
+interface Props {
+  spectrumId: number;
+  /** Prefetched while the reader works on this one, so moving on is instant. */
+  nextId: number | null;
+  nav: QueueNavigation;
+  header: (detail: SpectrumDetail | undefined) => ReactNode;
+}
+
+/** Loads what one spectrum needs (detail, arrays, χ² curves, line list) and opens the workspace. */
+export function InspectScreen({ spectrumId, nextId, nav, header }: Props) {
+  const detail = useSpectrumDetail(spectrumId);
+  const data = useSpectrumData(spectrumId);
+  const curves = useScanCurves(spectrumId);
+  const lines = useLineList();
+  usePrefetchSpectrum(nextId);
+
+  const failed = detail.error ?? data.error ?? lines.error;
+  if (failed) {
+    return (
+      <div className="mx-auto flex w-full max-w-[1680px] flex-col gap-3 px-4 py-4">
+        {header(detail.data)}
+        <ErrorNotice error={failed} title="This spectrum cannot be shown" />
+      </div>
+    );
+  }
+  if (!detail.data || !data.data || !lines.data) {
+    return (
+      <div className="mx-auto flex w-full max-w-[1680px] flex-col gap-3 px-4 py-4">
+        {header(detail.data)}
+        <Loading label="Loading the spectrum…" />
+      </div>
+    );
+  }
+  return <InspectWorkspace key={spectrumId} detail={detail.data} arrays={data.data} curves={curves.data} lines={lines.data} nav={nav} header={header(detail.data)} />;
+}
+
+function usePrefetchSpectrum(spectrumId: number | null) {
+  const queryClient = useQueryClient();
+  useEffect(() => {
+    if (spectrumId === null) return;
+    void queryClient.prefetchQuery(getSpectrumDetailQueryOptions(spectrumId));
+    void queryClient.prefetchQuery(getSpectrumDataQueryOptions(spectrumId));
+    void queryClient.prefetchQuery(getScanCurvesQueryOptions(spectrumId));
+  }, [queryClient, spectrumId]);
+}

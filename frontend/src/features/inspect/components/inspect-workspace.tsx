@@ -1,0 +1,230 @@
+import type { Reading } from '@contracts/readings';
+import { useMemo, useRef, useState } from 'react';
+import type { ReactNode } from 'react';
+import { Notice } from '@/components/ui/notice';
+import { Panel } from '@/components/ui/panel';
+import type { CombLine, SpectrumDetail } from '../api/schemas';
+import { useDisplayArrays } from '../hooks/use-display-arrays';
+import { useInspectKeys } from '../hooks/use-inspect-keys';
+import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
+import { useSaveReading } from '../hooks/use-save-reading';
+import { useTrialZPerFrame } from '../hooks/use-trial-z';
+import type { Chi2StripData } from '../utils/chi2-strip-data';
+import { linesOnData, nudgeZ, pixelStepFactor } from '../utils/comb';
+import type { SpectrumArrays } from '../utils/decode-spectrum-data';
+import type { Smoothing } from '../utils/smooth';
+import { createTrialZStore } from '../utils/trial-z-store';
+import { Chi2Strip } from './chi2-strip';
+import { asSpectrumClass } from './class-names';
+import { ContextPanel } from './context-panel';
+import { FeaturePanels } from './feature-panels';
+import { KeyHelp } from './key-help';
+import { PeaksPanel } from './peaks-panel';
+import { PlotToolbar } from './plot-toolbar';
+import { ReadingForm } from './reading-form';
+import { SolutionsList } from './solutions-list';
+import { SpectrumPlot } from './spectrum-plot';
+import type { PlotControls, PlotTool } from './spectrum-plot';
+import { TrialZInput } from './trial-z-input';
+
+export interface QueueNavigation {
+  /** e.g. "3 of 60 in your queue". */
+  position: ReactNode;
+  onNext: (() => void) | null;
+  onPrevious: (() => void) | null;
+  onSaved: (reading: Reading, detail: SpectrumDetail) => void;
+}
+
+interface Props {
+  detail: SpectrumDetail;
+  arrays: SpectrumArrays;
+  curves: Chi2StripData | undefined;
+  lines: CombLine[];
+  nav: QueueNavigation;
+  header: ReactNode;
+}
+
+/** One spectrum on the bench: plot and comb, solutions, close-ups, the reading and the context. Mounted per spectrum. */
+export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }: Props) {
+  const { campaign, scan } = detail;
+  const solutions = useMemo(() => scan?.solutions ?? [], [scan]);
+  const mine = detail.readings[0];
+  const top = solutions[0];
+  const [store] = useState(() => createTrialZStore(mine?.z ?? top?.z ?? Math.max(0, campaign.zMin), Math.max(-0.01, campaign.zMin - 0.01), campaign.zMax));
+  const [draft, setDraft] = useReadingDraft(mine, asSpectrumClass(mine?.class ?? top?.class ?? scan?.class));
+  const [tool, setTool] = useState<PlotTool>('comb');
+  const [smoothing, setSmoothing] = useState<Smoothing>({ kind: 'none', width: 5 });
+  const lastSmoothing = useRef<Smoothing>({ kind: 'boxcar', width: 5 });
+  const [restFrame, setRestFrame] = useState(false);
+  const [helpOpen, setHelpOpen] = useState(false);
+  const [pickedPeak, setPickedPeak] = useState<number | null>(null);
+  const controls = useRef<PlotControls>(null);
+  const zInput = useRef<HTMLInputElement>(null);
+  const noteRef = useRef<HTMLTextAreaElement>(null);
+  const display = useDisplayArrays(arrays, smoothing);
+  const z = useTrialZPerFrame(store);
+  const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
+
+  const onData = useMemo(() => linesOnData(lines, z, arrays.wavelength, arrays.mask, arrays.flux), [lines, z, arrays]);
+  const current = solutions.findIndex((s) => s.z === z);
+  const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
+
+  const { save, pending, error } = useSaveReading({
+    spectrumId: detail.spectrum.id,
+    campaignId: campaign.id,
+    store,
+    solutions,
+    lines: () => linesUsed(linesOnData(lines, store.get(), arrays.wavelength, arrays.mask, arrays.flux), draft),
+    onSaved: (reading) => nav.onSaved(reading, detail),
+  });
+
+  const snap = (i: number) => {
+    const s = solutions[i];
+    if (!s) return;
+    store.set(s.z);
+    setDraft((d) => ({ ...d, cls: asSpectrumClass(s.class), excluded: new Set(), added: new Set() }));
+  };
+  const setSmoothingKind = (s: Smoothing) => {
+    if (s.kind !== 'none') lastSmoothing.current = s;
+    setSmoothing(s);
+  };
+
+  useInspectKeys(
+    {
+      nudge: (px) => store.set(nudgeZ(store.get(), stepFactor, px)),
+      focusZ: () => zInput.current?.select(),
+      takeTop: () => snap(0),
+      stepSolution: (delta) => {
+        if (solutions.length === 0) return;
+        const from = current >= 0 ? current : delta > 0 ? -1 : 0;
+        snap((from + delta + solutions.length) % solutions.length);
+      },
+      setGrade: (code) => canRead && campaign.gradeScheme.some((g) => g.code === code) && setDraft((d) => ({ ...d, grade: code })),
+      gradeAndSave: (code) => {
+        if (!canRead || !campaign.gradeScheme.some((g) => g.code === code)) return;
+        setDraft((d) => ({ ...d, grade: code }));
+        save({ ...draft, grade: code }, code);
+      },
+      save: () => canRead && save(draft),
+      setClass: (cls) => canRead && setDraft((d) => ({ ...d, cls })),
+      focusNote: () => noteRef.current?.focus(),
+      nextSpectrum: () => nav.onNext?.(),
+      previousSpectrum: () => nav.onPrevious?.(),
+      toggleSmoothing: () => setSmoothing((s) => (s.kind === 'none' ? lastSmoothing.current : { ...s, kind: 'none' })),
+      toggleFrame: () => setRestFrame((r) => !r),
+      zoom: (f) => controls.current?.zoomBy(f),
+      pan: (f) => controls.current?.panBy(f),
+      resetZoom: () => controls.current?.resetZoom(),
+      toggleTool: () => setTool((t) => (t === 'comb' ? 'zoom' : 'comb')),
+      toggleHelp: () => setHelpOpen((o) => !o),
+    },
+    !helpOpen,
+  );
+
+  return (
+    <div className="mx-auto flex w-full max-w-[1680px] flex-col gap-3 px-4 py-4">
+      {header}
+      <div className="flex flex-wrap items-center justify-between gap-2 text-sm text-ink-600">
+        <span>{nav.position}</span>
+        <span className="flex items-center gap-2">
+          <button type="button" className="rounded-control border border-paper-300 bg-paper-50 px-2 py-0.5 hover:bg-paper-200 disabled:opacity-50" disabled={!nav.onPrevious} onClick={() => nav.onPrevious?.()}>
+            Previous spectrum
+          </button>
+          <button type="button" className="rounded-control border border-paper-300 bg-paper-50 px-2 py-0.5 hover:bg-paper-200 disabled:opacity-50" disabled={!nav.onNext} onClick={() => nav.onNext?.()}>
+            Next spectrum
+          </button>
+          <button type="button" className="rounded-control border border-paper-300 bg-paper-50 px-2 py-0.5 hover:bg-paper-200" onClick={() => setHelpOpen(true)} aria-keyshortcuts="?">
+            Keys <kbd className="num text-xs text-ink-500">?</kbd>
+          </button>
+        </span>
+      </div>
+
+      <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_24rem]">
+        <div className="flex min-w-0 flex-col gap-3">
+          <section aria-label="Spectrum and comb" className="flex flex-col gap-2 rounded-panel border border-paper-300 bg-paper-50 p-3">
+            <div className="flex flex-wrap items-end gap-x-5 gap-y-2">
+              <TrialZInput ref={zInput} store={store} />
+              <PlotToolbar tool={tool} onTool={setTool} smoothing={smoothing} onSmoothing={setSmoothingKind} restFrame={restFrame} onRestFrame={setRestFrame} controls={controls} />
+            </div>
+            <p id="plot-help" className="sr-only">
+              Arrow keys nudge the comb by one pixel in velocity, with Shift by ten. Plus and minus zoom, comma and full stop pan, r resets the zoom. Press question mark for all keys.
+            </p>
+            <SpectrumPlot
+              display={display}
+              lines={lines}
+              peaks={scan?.lineMatches.peaks ?? []}
+              store={store}
+              tool={tool}
+              restFrame={restFrame}
+              onPeak={setPickedPeak}
+              controls={controls}
+              describedBy="plot-help"
+            />
+            <Legend hasSky={arrays.sky !== null} />
+            {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
+          </section>
+          <Panel>
+            <FeaturePanels display={display} store={store} />
+          </Panel>
+        </div>
+
+        <div className="flex min-w-0 flex-col gap-3">
+          <Panel title="Solutions">
+            <SolutionsList solutions={solutions} current={current >= 0 ? current : null} target={detail.target} onSnap={snap} />
+            <p className="mt-2 text-xs text-ink-500">Template overlay of a solution: not yet available from the server.</p>
+          </Panel>
+          <Panel title="Reading">
+            {canRead ? (
+              <ReadingForm z={z} scheme={campaign.gradeScheme} draft={draft} onDraft={setDraft} onData={onData} mine={mine} pending={pending} error={error} onSave={() => save(draft)} noteRef={noteRef} />
+            ) : (
+              <Notice tone="info">You are not assigned to read this spectrum, so there is no reading form here. The comb and plots work as usual.</Notice>
+            )}
+          </Panel>
+          {scan ? (
+            <Panel title="Peaks and line pairs">
+              <PeaksPanel lineMatches={scan.lineMatches} lines={lines} zMin={store.min} zMax={store.max} picked={pickedPeak} onPick={setPickedPeak} onZ={(v) => store.set(v)} />
+            </Panel>
+          ) : null}
+          <Panel title="Context">
+            <ContextPanel detail={detail} arrays={arrays} />
+          </Panel>
+        </div>
+      </div>
+      <KeyHelp open={helpOpen} onClose={() => setHelpOpen(false)} />
+    </div>
+  );
+}
+
+function Legend({ hasSky }: { hasSky: boolean }) {
+  const item = 'inline-flex items-center gap-1.5';
+  return (
+    <ul aria-label="Plot legend" className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600">
+      <li className={item}>
+        <span aria-hidden="true" className="inline-block h-0.5 w-4 bg-ink-900" /> flux
+      </li>
+      <li className={item}>
+        <span aria-hidden="true" className="inline-block h-2.5 w-4 bg-blueend-400/30" /> ±1σ
+      </li>
+      {hasSky ? (
+        <li className={item}>
+          <span aria-hidden="true" className="inline-block h-0.5 w-4 bg-ink-400" /> sky
+        </li>
+      ) : null}
+      <li className={item}>
+        <span aria-hidden="true" className="inline-block h-2.5 w-4 bg-danger-600/15" /> masked
+      </li>
+      <li className={item}>
+        <span aria-hidden="true" className="inline-block h-3 w-0 border-l border-ember-600" /> emission (solid)
+      </li>
+      <li className={item}>
+        <span aria-hidden="true" className="inline-block h-3 w-0 border-l border-dashed border-blueend-600" /> absorption (dashed)
+      </li>
+      <li className={item}>
+        <span aria-hidden="true" className="inline-block h-3 w-0 border-l border-dotted border-ink-700" /> band / break (dotted)
+      </li>
+      <li className={item}>
+        <span aria-hidden="true" className="text-success-700">▲</span> detected peak (click to name it)
+      </li>
+    </ul>
+  );
+}

@@ -1,0 +1,65 @@
+import { Badge } from '@/components/ui/badge';
+import { formatRedshift, formatRedshiftError } from '@/lib/format';
+import type { DetailTarget, Solution } from '../api/schemas';
+import { photoZAgreement } from '../utils/photo-z';
+import { asSpectrumClass, CLASS_NAMES } from './class-names';
+
+interface Props {
+  solutions: Solution[];
+  /** Index of the solution the comb sits on, if any. */
+  current: number | null;
+  target: DetailTarget | null;
+  onSnap: (index: number) => void;
+}
+
+const MAX_LINES_SHOWN = 6;
+
+/** The engine's ranked solutions; pressing one snaps the comb (and the class) to it. */
+export function SolutionsList({ solutions, current, target, onSnap }: Props) {
+  if (solutions.length === 0) return <p className="text-ink-500">The scan proposed no solution.</p>;
+  return (
+    <ol className="flex flex-col gap-1.5" aria-label="Solutions">
+      {solutions.map((s, i) => {
+        const cls = CLASS_NAMES[asSpectrumClass(s.class)];
+        const agreement = photoZAgreement(s.z, target?.photoZLow, target?.photoZHigh);
+        const lines = s.lines.map((l) => l.name);
+        return (
+          <li key={`${s.template}-${s.z}`}>
+            <button
+              type="button"
+              onClick={() => onSnap(i)}
+              aria-label={`Solution ${i + 1}: z = ${formatRedshift(s.z)}, ${cls}`}
+              aria-current={current === i ? 'true' : undefined}
+              className={`w-full rounded-control border px-2.5 py-1.5 text-left transition-colors ${
+                current === i ? 'border-ember-500 bg-ember-50' : 'border-paper-300 bg-paper-50 hover:bg-paper-200'
+              }`}
+            >
+              <span className="flex flex-wrap items-baseline gap-x-3 gap-y-0.5">
+                <span className="num text-xs text-ink-500">{i + 1}</span>
+                <span className="num font-medium text-ink-900">
+                  z = {formatRedshift(s.z)} <span className="text-ink-500">± {formatRedshiftError(s.zErr)}</span>
+                </span>
+                <Badge tone={s.class === 'quasar' ? 'blue' : s.class === 'galaxy' ? 'ember' : s.class === 'lyman-break' ? 'success' : 'ink'}>{cls}</Badge>
+                <span className="text-xs text-ink-600">{s.template}</span>
+                <span className="num text-xs text-ink-600" title="χ² of the next distinct solution minus this one's">
+                  Δχ² {s.deltaChi2 === null ? '—' : Math.round(s.deltaChi2).toLocaleString('en')}
+                </span>
+                {agreement !== 'unknown' ? (
+                  <span className={`text-xs ${agreement === 'inside' ? 'text-success-700' : 'text-warning-700'}`}>
+                    {agreement === 'inside' ? 'inside' : 'outside'} photo-z 68 %
+                  </span>
+                ) : null}
+              </span>
+              {lines.length > 0 ? (
+                <span className="mt-0.5 block text-xs text-ink-600">
+                  {lines.slice(0, MAX_LINES_SHOWN).join(' · ')}
+                  {lines.length > MAX_LINES_SHOWN ? ` · +${lines.length - MAX_LINES_SHOWN} more` : ''}
+                </span>
+              ) : null}
+            </button>
+          </li>
+        );
+      })}
+    </ol>
+  );
+}

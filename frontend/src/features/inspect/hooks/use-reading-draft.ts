@@ -1,0 +1,27 @@
+import { useState } from 'react';
+import type { Reading, SpectrumClass } from '@contracts/readings';
+
+/** What the reader is composing; z is not here, it is the comb's (see TrialZStore). */
+export interface ReadingDraft {
+  grade: number | null;
+  cls: SpectrumClass;
+  /** Comb lines on data the reader unticked; everything else on data counts as used. */
+  excluded: ReadonlySet<string>;
+  /** Lines ticked by hand that the comb does not put on data (kept so a tick is never lost). */
+  added: ReadonlySet<string>;
+  note: string;
+}
+
+/** Starts from the reader's saved reading when there is one, else from the top solution's class. */
+export function useReadingDraft(mine: Reading | undefined, topClass: SpectrumClass) {
+  return useState<ReadingDraft>(() => ({
+    grade: mine?.grade ?? null,
+    cls: mine?.class ?? topClass,
+    excluded: new Set(),
+    added: new Set(),
+    note: mine?.note ?? '',
+  }));
+}
+
+/** The lines a save sends: the comb's lines on data minus the unticked, plus the hand-ticked. */
+export const linesUsed = (onData: string[], d: ReadingDraft) => [...new Set([...onData.filter((n) => !d.excluded.has(n)), ...d.added])];
