@@ -12,10 +12,11 @@ export function useSubmitReading(spectrumId: number, campaignId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (body: SubmitReadingRequest) => submitReading(spectrumId, body),
-    onSuccess: async ({ reading }) => {
+    onSuccess: ({ reading }) => {
       // The detail shows the reader's own reading; patch it in so going back shows it at once.
       queryClient.setQueryData<SpectrumDetail>(inspectKeys.detail(spectrumId), (d) => (d ? { ...d, readings: upsert(d.readings, reading) } : d));
-      await queryClient.invalidateQueries({ queryKey: inspectKeys.queue(campaignId) });
+      // Not awaited: the reader moves on at once; the queue catches up in the background.
+      void queryClient.invalidateQueries({ queryKey: inspectKeys.queue(campaignId) });
     },
   });
 }

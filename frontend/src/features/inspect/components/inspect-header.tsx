@@ -3,6 +3,7 @@ import { Notice } from '@/components/ui/notice';
 import { formatRedshift } from '@/lib/format';
 import type { SpectrumDetail } from '../api/schemas';
 import type { SavedFlash } from '../hooks/use-saved-flash';
+import { CLASS_NAMES } from './class-names';
 
 /** Page heading of the inspection screen: campaign, target or file, and the reading just saved. */
 export function InspectHeader({ detail, campaign, flash }: { detail: SpectrumDetail | undefined; campaign: { id: number; name: string } | null; flash: SavedFlash['saved'] | null }) {
@@ -34,7 +35,7 @@ export function InspectHeader({ detail, campaign, flash }: { detail: SpectrumDet
       </div>
       {flash ? (
         <Notice tone="success" role="status">
-          Saved {flash.fileName}: <span className="num">z = {formatRedshift(flash.reading.z)}</span>, grade {flash.reading.grade} ({flash.gradeLabel}), {flash.reading.class} — revision {flash.reading.revision}.
+          Saved {flash.fileName}: <span className="num">z = {formatRedshift(flash.reading.z)}</span>, grade {flash.reading.grade} ({flash.gradeLabel}), {CLASS_NAMES[flash.reading.class]} — revision {flash.reading.revision}.
         </Notice>
       ) : null}
     </header>

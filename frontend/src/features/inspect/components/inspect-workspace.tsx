@@ -8,7 +8,6 @@ import { useDisplayArrays } from '../hooks/use-display-arrays';
 import { useInspectKeys } from '../hooks/use-inspect-keys';
 import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
-import { useTrialZPerFrame } from '../hooks/use-trial-z';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
 import { linesOnData, nudgeZ, pixelStepFactor } from '../utils/comb';
 import type { SpectrumArrays } from '../utils/decode-spectrum-data';
@@ -62,11 +61,8 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }:
   const zInput = useRef<HTMLInputElement>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
   const display = useDisplayArrays(arrays, smoothing);
-  const z = useTrialZPerFrame(store);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
-  const onData = useMemo(() => linesOnData(lines, z, arrays.wavelength, arrays.mask, arrays.flux), [lines, z, arrays]);
-  const current = solutions.findIndex((s) => s.z === z);
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
 
   const { save, pending, error } = useSaveReading({
@@ -96,6 +92,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }:
       takeTop: () => snap(0),
       stepSolution: (delta) => {
         if (solutions.length === 0) return;
+        const current = solutions.findIndex((s) => s.z === store.get());
         const from = current >= 0 ? current : delta > 0 ? -1 : 0;
         snap((from + delta + solutions.length) % solutions.length);
       },
@@ -170,12 +167,23 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }:
 
         <div className="flex min-w-0 flex-col gap-3">
           <Panel title="Solutions">
-            <SolutionsList solutions={solutions} current={current >= 0 ? current : null} target={detail.target} onSnap={snap} />
+            <SolutionsList solutions={solutions} store={store} target={detail.target} onSnap={snap} />
             <p className="mt-2 text-xs text-ink-500">Template overlay of a solution: not yet available from the server.</p>
           </Panel>
           <Panel title="Reading">
             {canRead ? (
-              <ReadingForm z={z} scheme={campaign.gradeScheme} draft={draft} onDraft={setDraft} onData={onData} mine={mine} pending={pending} error={error} onSave={() => save(draft)} noteRef={noteRef} />
+              <ReadingForm
+                store={store}
+                onDataAt={(z) => linesOnData(lines, z, arrays.wavelength, arrays.mask, arrays.flux)}
+                scheme={campaign.gradeScheme}
+                draft={draft}
+                onDraft={setDraft}
+                mine={mine}
+                pending={pending}
+                error={error}
+                onSave={() => save(draft)}
+                noteRef={noteRef}
+              />
             ) : (
               <Notice tone="info">You are not assigned to read this spectrum, so there is no reading form here. The comb and plots work as usual.</Notice>
             )}

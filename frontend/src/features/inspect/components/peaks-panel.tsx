@@ -107,7 +107,7 @@ function PeakLineChooser({ wavelength, lines, zMin, zMax, onCancel, onZ }: { wav
         </select>
       </div>
       <Button type="submit" size="sm" disabled={!chosen}>
-        Set z
+        Put this line on the peak
       </Button>
       <Button variant="quiet" size="sm" onClick={onCancel}>
         Cancel

@@ -6,14 +6,17 @@ import { controlClass } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
+import { useTrialZPerFrame } from '../hooks/use-trial-z';
+import type { TrialZStore } from '../utils/trial-z-store';
 import { CLASS_NAMES, CLASS_ORDER } from './class-names';
 
 interface Props {
-  z: number;
+  store: TrialZStore;
+  /** The comb's lines on usable data at a redshift. */
+  onDataAt: (z: number) => string[];
   scheme: Grade[];
   draft: ReadingDraft;
   onDraft: (update: (d: ReadingDraft) => ReadingDraft) => void;
-  onData: string[];
   mine: Reading | undefined;
   pending: boolean;
   error: unknown;
@@ -24,7 +27,10 @@ interface Props {
 const kbd = 'num rounded-control border border-paper-400 bg-paper-100 px-1 text-xs';
 
 /** The reader's verdict: z from the comb, grade from the campaign's scheme, class, lines, note. */
-export function ReadingForm({ z, scheme, draft, onDraft, onData, mine, pending, error, onSave, noteRef }: Props) {
+export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pending, error, onSave, noteRef }: Props) {
+  // Follows the comb at most once a frame: the lines list below changes with z.
+  const z = useTrialZPerFrame(store);
+  const onData = onDataAt(z);
   const shown = [...new Set([...onData, ...draft.added])];
   const checked = (name: string) => (onData.includes(name) ? !draft.excluded.has(name) : draft.added.has(name));
   const toggle = (name: string, on: boolean) =>

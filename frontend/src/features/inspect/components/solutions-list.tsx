@@ -1,13 +1,15 @@
 import { Badge } from '@/components/ui/badge';
 import { formatRedshift, formatRedshiftError } from '@/lib/format';
 import type { DetailTarget, Solution } from '../api/schemas';
+import { useTrialZPerFrame } from '../hooks/use-trial-z';
 import { photoZAgreement } from '../utils/photo-z';
+import type { TrialZStore } from '../utils/trial-z-store';
 import { asSpectrumClass, CLASS_NAMES } from './class-names';
 
 interface Props {
   solutions: Solution[];
-  /** Index of the solution the comb sits on, if any. */
-  current: number | null;
+  /** The comb; the solution it sits on is highlighted. */
+  store: TrialZStore;
   target: DetailTarget | null;
   onSnap: (index: number) => void;
 }
@@ -15,7 +17,9 @@ interface Props {
 const MAX_LINES_SHOWN = 6;
 
 /** The engine's ranked solutions; pressing one snaps the comb (and the class) to it. */
-export function SolutionsList({ solutions, current, target, onSnap }: Props) {
+export function SolutionsList({ solutions, store, target, onSnap }: Props) {
+  const z = useTrialZPerFrame(store);
+  const current = solutions.findIndex((s) => s.z === z);
   if (solutions.length === 0) return <p className="text-ink-500">The scan proposed no solution.</p>;
   return (
     <ol className="flex flex-col gap-1.5" aria-label="Solutions">
