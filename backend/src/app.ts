@@ -18,6 +18,7 @@ import { jobRoutes } from './routes/jobs';
 import { lineListRoutes } from './routes/line-list';
 import { memberRoutes } from './routes/members';
 import { readingRoutes } from './routes/readings';
+import { releaseRoutes } from './routes/release';
 import { spectrumRoutes } from './routes/spectra';
 import { targetRoutes } from './routes/targets';
 import { uploadRoutes } from './routes/uploads';
@@ -56,6 +57,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     targetRoutes,
     readingRoutes,
     lineListRoutes,
+    releaseRoutes,
   ]) {
     api.use(routes(ctx));
   }

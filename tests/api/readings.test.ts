@@ -1,9 +1,7 @@
-import { writeFileSync } from 'node:fs';
 import { and, desc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { auditEvents, jobs, readings, users } from '../../backend/src/db/schema';
-import { receiveUpload } from '../../backend/src/services/receive-upload';
-import { syntheticSpectrumFiles } from '../helpers/spectrum-archives';
+import { auditEvents, readings } from '../../backend/src/db/schema';
+import { uploadAssignedSpectra } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let t: TestApp;
@@ -14,26 +12,13 @@ let reader2: Agent;
 let lead: Agent;
 let observer: Agent;
 
-const userId = (email: string) => t.ctx.db.select({ id: users.id }).from(users).where(eq(users.email, email)).get()!.id;
-
 beforeAll(async () => {
   t = await createTestApp({ SCAN_THREADS: '2' });
-  const leadActor = { id: userId('lead@demo.test'), email: 'lead@demo.test', name: 'Lena', isAdmin: false };
-  const files = Object.entries(syntheticSpectrumFiles(4, { prefix: 'READ' })).map(([name, bytes]) => {
-    const tempFile = t.ctx.store.tempPath();
-    writeFileSync(tempFile, bytes);
-    return { originalName: name, tempFile };
-  });
-  const { jobId } = await receiveUpload(t.ctx, t.ctx.store, leadActor, 1, files, {
-    assign: { first: userId('reader1@demo.test'), second: userId('reader2@demo.test') },
-  });
-  t.ctx.wakeJobRunner();
-  for (let i = 0; i < 600 && t.ctx.db.select().from(jobs).where(eq(jobs.id, jobId)).get()!.state !== 'done'; i++) await new Promise((r) => setTimeout(r, 100));
+  spectrumIds = await uploadAssignedSpectra(t, 4, 'READ');
   reader1 = await t.signIn('reader1@demo.test');
   reader2 = await t.signIn('reader2@demo.test');
   lead = await t.signIn('lead@demo.test');
   observer = await t.signIn('observer@demo.test');
-  spectrumIds = (await reader1.get('/api/me/queue?campaign=1')).body.map((q: { id: number }) => q.id);
 }, 60_000);
 afterAll(() => t.cleanup());
 

@@ -288,3 +288,58 @@ export const readings = sqliteTable(
   },
   (t) => [uniqueIndex('readings_spectrum_reader').on(t.spectrumId, t.readerId), index('readings_reader').on(t.readerId)],
 );
+
+// ── Release: confirmed redshifts and disagreements ──────────────────────────────────────────────
+
+/**
+ * The released redshift of a spectrum. Never changed in place: a correction adds a row that
+ * supersedes the current one (`is_current` moves, `supersedes_id` points back), so the history
+ * of every released value stays readable.
+ */
+export const confirmedRedshifts = sqliteTable(
+  'confirmed_redshifts',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    spectrumId: integer('spectrum_id').notNull().references(() => spectra.id),
+    z: real('z').notNull(),
+    zErr: real('z_err'),
+    grade: integer('grade').notNull(),
+    spectrumClass: text('spectrum_class', { enum: SPECTRUM_CLASSES }).notNull(),
+    lines: text('lines', { mode: 'json' }).$type<string[]>().notNull(),
+    method: text('method', { enum: ['agreement', 'settlement', 'correction'] }).notNull(),
+    firstReadingId: integer('first_reading_id').references(() => readings.id),
+    secondReadingId: integer('second_reading_id').references(() => readings.id),
+    /** Who settled or corrected; null when two readings agreed. */
+    decidedBy: integer('decided_by').references(() => users.id),
+    reason: text('reason'),
+    supersedesId: integer('supersedes_id'),
+    isCurrent: integer('is_current', { mode: 'boolean' }).notNull().default(true),
+    supersededAt: text('superseded_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex('confirmed_one_current').on(t.spectrumId).where(sql`${t.isCurrent} = 1`),
+    index('confirmed_spectrum').on(t.spectrumId),
+  ],
+);
+
+export const disagreements = sqliteTable(
+  'disagreements',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    spectrumId: integer('spectrum_id').notNull().references(() => spectra.id),
+    campaignId: integer('campaign_id').notNull().references(() => campaigns.id),
+    firstReadingId: integer('first_reading_id').notNull().references(() => readings.id),
+    secondReadingId: integer('second_reading_id').notNull().references(() => readings.id),
+    /** Which tests failed: 'z', 'grade', 'class'. */
+    reasons: text('reasons', { mode: 'json' }).$type<string[]>().notNull(),
+    state: text('state', { enum: ['open', 'settled', 'agreed-on-revision'] }).notNull().default('open'),
+    confirmedId: integer('confirmed_id').references(() => confirmedRedshifts.id),
+    openedAt: createdAt(),
+    closedAt: text('closed_at'),
+  },
+  (t) => [
+    uniqueIndex('disagreements_one_open').on(t.spectrumId).where(sql`${t.state} = 'open'`),
+    index('disagreements_campaign').on(t.campaignId, t.state),
+  ],
+);

@@ -10,6 +10,8 @@ import { spectrumCampaignId } from '../services/spectrum-access';
 import { submitReading } from '../services/submit-reading';
 import { findCampaignRole } from '../services/find-campaign-role';
 import { forbidden, notFound } from '../http/errors';
+import { appUrl } from '../http/app-url';
+import { notifyDisagreement } from '../services/notify-disagreement';
 
 const spectrumId = (req: Request) => Number(req.params.spectrumId);
 const ofSpectrum = (ctx: ServiceContext, req: Request) => spectrumCampaignId(ctx, spectrumId(req));
@@ -59,7 +61,12 @@ export function readingRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/readings',
     access: access.campaignOf(ofSpectrum, 'lead', 'reader'),
     body: submitReadingRequestSchema,
-    handle: ({ req, user, body }) => submitReading(ctx, user!, spectrumId(req), body),
+    handle: async ({ req, user, body }) => {
+      const { reading, changed, outcome } = submitReading(ctx, user!, spectrumId(req), body);
+      if (outcome.kind === 'disagreement' && outcome.opened) await notifyDisagreement(ctx, outcome.disagreementId, appUrl(ctx.config));
+      // The outcome stays on the server: telling the second reader "agreed" would unblind them.
+      return { reading, changed };
+    },
   });
 
   return router;

@@ -4,6 +4,7 @@ import { assignments, campaigns, readings, spectra, users } from '../db/schema';
 import { badRequest, conflict, forbidden } from '../http/errors';
 import { LINES } from '../spectra/lineList';
 import type { Actor, ServiceContext } from './context';
+import { checkAgreement, type AgreementOutcome } from './check-agreement';
 import { recordAudit } from './record-audit';
 
 const KNOWN_LINES = new Set(LINES.map((l) => l.name));
@@ -40,7 +41,7 @@ export function submitReading(
   actor: Actor,
   spectrumId: number,
   input: Omit<SubmitReadingRequest, 'lines'> & { lines: string[] },
-): { reading: Reading; changed: boolean } {
+): { reading: Reading; changed: boolean; outcome: AgreementOutcome } {
   return ctx.db.transaction((tx) => {
     const spectrum = tx.select({ campaignId: spectra.campaignId }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
     const assignment = tx
@@ -102,8 +103,9 @@ export function submitReading(
         after: { ...values, revision: row.revision },
       });
     }
+    const outcome: AgreementOutcome = changed ? checkAgreement(ctx, tx, spectrumId, actor.id) : { kind: 'waiting' };
     const reader = tx.select({ name: users.name }).from(users).where(eq(users.id, actor.id)).get()!;
-    return { reading: toReadingView(row, reader.name), changed };
+    return { reading: toReadingView(row, reader.name), changed, outcome };
   });
 }
 

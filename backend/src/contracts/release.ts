@@ -1,0 +1,49 @@
+import { z } from 'zod';
+import { readingSchema, spectrumClassSchema } from './readings';
+
+const decidedValueSchema = z.object({
+  z: z.number().finite().min(-0.01).max(12),
+  zErr: z.number().finite().positive().max(1).optional(),
+  grade: z.number().int().min(0).max(99),
+  class: spectrumClassSchema,
+  lines: z.array(z.string().min(1).max(60)).max(40).default([]),
+});
+
+/** A lead's decision on a disagreement: take one reading as it is, or enter a value — always with a reason. */
+export const settleRequestSchema = z.discriminatedUnion('choice', [
+  z.object({ choice: z.enum(['first', 'second']), reason: z.string().trim().min(3, 'Say why, in a few words.').max(2000) }).strict(),
+  decidedValueSchema.extend({ choice: z.literal('new'), reason: z.string().trim().min(3, 'Say why, in a few words.').max(2000) }).strict(),
+]);
+export type SettleRequest = z.input<typeof settleRequestSchema>;
+
+/** A correction of a released value: a new record that supersedes the current one. */
+export const correctionRequestSchema = decidedValueSchema.extend({ reason: z.string().trim().min(3, 'Say why, in a few words.').max(2000) }).strict();
+export type CorrectionRequest = z.input<typeof correctionRequestSchema>;
+
+export const confirmedRedshiftSchema = z.object({
+  id: z.number().int(),
+  spectrumId: z.number().int(),
+  z: z.number(),
+  zErr: z.number().nullable(),
+  grade: z.number().int(),
+  class: spectrumClassSchema,
+  lines: z.array(z.string()),
+  method: z.enum(['agreement', 'settlement', 'correction']),
+  reason: z.string().nullable(),
+  decidedBy: z.string().nullable(),
+  supersedesId: z.number().int().nullable(),
+  isCurrent: z.boolean(),
+  createdAt: z.string(),
+});
+export type ConfirmedRedshift = z.infer<typeof confirmedRedshiftSchema>;
+
+export const disagreementSchema = z.object({
+  id: z.number().int(),
+  spectrumId: z.number().int(),
+  fileName: z.string(),
+  target: z.object({ id: z.number().int(), catalogueId: z.string(), imageFamily: z.string().nullable() }).nullable(),
+  reasons: z.array(z.enum(['z', 'grade', 'class'])),
+  readings: z.array(readingSchema),
+  openedAt: z.string(),
+});
+export type Disagreement = z.infer<typeof disagreementSchema>;

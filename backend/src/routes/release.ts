@@ -1,0 +1,48 @@
+import { Router, type Request } from 'express';
+import { correctionRequestSchema, settleRequestSchema } from '../contracts/release';
+import { access } from '../http/access';
+import { defineRoute } from '../http/define-route';
+import type { ServiceContext } from '../services/context';
+import { confirmedHistory, correctConfirmed } from '../services/correct-confirmed';
+import { disagreementCampaignId, listOpenDisagreements, settleDisagreement } from '../services/settle-disagreement';
+import { spectrumCampaignId } from '../services/spectrum-access';
+
+const spectrumId = (req: Request) => Number(req.params.spectrumId);
+const disagreementId = (req: Request) => Number(req.params.disagreementId);
+
+export function releaseRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+  const ofSpectrum = (c: ServiceContext, req: Request) => spectrumCampaignId(c, spectrumId(req));
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/campaigns/:id/disagreements',
+    access: access.campaign('lead'),
+    handle: ({ campaign }) => listOpenDisagreements(ctx, campaign!.id),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/disagreements/:disagreementId/settle',
+    access: access.campaignOf((c, req) => disagreementCampaignId(c, disagreementId(req)), 'lead'),
+    body: settleRequestSchema,
+    handle: ({ req, user, body }) => settleDisagreement(ctx, user!, disagreementId(req), body),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/spectra/:spectrumId/corrections',
+    access: access.campaignOf(ofSpectrum, 'lead'),
+    body: correctionRequestSchema,
+    handle: ({ req, user, body }) => correctConfirmed(ctx, user!, spectrumId(req), body),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId/confirmed',
+    access: access.campaignOf(ofSpectrum, 'lead', 'reader', 'observer'),
+    handle: ({ req }) => ({ history: confirmedHistory(ctx, spectrumId(req)) }),
+  });
+
+  return router;
+}

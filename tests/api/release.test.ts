@@ -1,0 +1,99 @@
+import { desc, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { confirmedRedshifts, mailMessages } from '../../backend/src/db/schema';
+import { uploadAssignedSpectra } from '../helpers/assigned-spectra';
+import { createTestApp, type TestApp } from '../helpers/test-app';
+
+let t: TestApp;
+let ids: number[];
+type Agent = ReturnType<TestApp['agent']>;
+let reader1: Agent;
+let reader2: Agent;
+let lead: Agent;
+let observer: Agent;
+
+beforeAll(async () => {
+  t = await createTestApp({ SCAN_THREADS: '2' });
+  ids = await uploadAssignedSpectra(t, 3, 'REL');
+  reader1 = await t.signIn('reader1@demo.test');
+  reader2 = await t.signIn('reader2@demo.test');
+  lead = await t.signIn('lead@demo.test');
+  observer = await t.signIn('observer@demo.test');
+}, 60_000);
+afterAll(() => t.cleanup());
+
+describe('agreement', () => {
+  it('confirms two agreeing readings automatically with the inverse-variance mean and the lower grade', async () => {
+    const id = ids[0]!;
+    const first = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.0, zErr: 0.001, grade: 4, class: 'galaxy', lines: ['H-beta'] });
+    expect(first.body).not.toHaveProperty('outcome');
+    expect((await lead.get(`/api/spectra/${id}/confirmed`)).body.history).toEqual([]);
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 1.002, zErr: 0.002, grade: 3, class: 'galaxy', lines: ['[O III] 5008'] });
+    const history = (await observer.get(`/api/spectra/${id}/confirmed`)).body.history;
+    expect(history).toHaveLength(1);
+    // w = 1e6 and 2.5e5: z = (1e6·1.000 + 2.5e5·1.002)/1.25e6 = 1.0004; σ = 1/√1.25e6 = 8.944e-4
+    expect(history[0]).toMatchObject({ method: 'agreement', grade: 3, class: 'galaxy', isCurrent: true, lines: ['H-beta', '[O III] 5008'] });
+    expect(history[0].z).toBeCloseTo(1.0004, 10);
+    expect(history[0].zErr).toBeCloseTo(8.94427e-4, 8);
+    const locked = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.1, grade: 4, class: 'galaxy' });
+    expect(locked.status).toBe(409);
+    expect(locked.body.error.code).toBe('reading_locked');
+  });
+});
+
+describe('disagreement and settlement', () => {
+  it('opens a disagreement, e-mails the lead, and lets only the lead see both readings', async () => {
+    const id = ids[1]!;
+    await reader1.post(`/api/spectra/${id}/readings`).send({ z: 0.5, grade: 4, class: 'galaxy', lines: ['H-alpha'] });
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 2.1, grade: 4, class: 'galaxy', lines: ['C III] 1909'] });
+    const list = await lead.get('/api/campaigns/1/disagreements');
+    expect(list.status).toBe(200);
+    expect(list.body).toHaveLength(1);
+    expect(list.body[0]).toMatchObject({ spectrumId: id, reasons: ['z'] });
+    expect(list.body[0].readings.map((r: { z: number; readingOrder: string }) => [r.readingOrder, r.z])).toEqual([
+      ['first', 0.5],
+      ['second', 2.1],
+    ]);
+    expect((await reader1.get('/api/campaigns/1/disagreements')).status).toBe(403);
+    expect((await observer.get('/api/campaigns/1/disagreements')).status).toBe(403);
+    const mail = t.ctx.db.select().from(mailMessages).orderBy(desc(mailMessages.id)).get()!;
+    expect(mail.toAddress).toBe('lead@demo.test');
+    expect(mail.subject).toMatch(/^Disagreement to settle in Lantern Cluster arcs: /);
+    expect(mail.textBody).toContain('the redshifts differ beyond the tolerance');
+    expect(mail.textBody).toContain('http://redward.test/campaigns/1/disagreements');
+  });
+
+  it('settles with a new value and a reason; the observer may look but not settle', async () => {
+    const d = (await lead.get('/api/campaigns/1/disagreements')).body[0];
+    const byObserver = await observer.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'first', reason: 'looks right' });
+    expect(byObserver.status).toBe(403);
+    const noReason = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'first' });
+    expect(noReason.status).toBe(400);
+    const settled = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'new', z: 0.5003, grade: 3, class: 'galaxy', lines: ['H-alpha', '[N II] 6585'], reason: 'Hα + [N II] resolved; the 2.1 reading took Hα for C III].' });
+    expect(settled.status).toBe(200);
+    expect((await lead.get('/api/campaigns/1/disagreements')).body).toEqual([]);
+    const again = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'second', reason: 'changed my mind' });
+    expect(again.status).toBe(409);
+    const history = (await observer.get(`/api/spectra/${d.spectrumId}/confirmed`)).body.history;
+    expect(history).toEqual([
+      expect.objectContaining({ method: 'settlement', z: 0.5003, grade: 3, decidedBy: 'Lena Demo (lead)', reason: 'Hα + [N II] resolved; the 2.1 reading took Hα for C III].', isCurrent: true }),
+    ]);
+  });
+
+  it('corrects a released value with a new record that supersedes it, deleting nothing', async () => {
+    const id = ids[1]!;
+    const res = await lead.post(`/api/spectra/${id}/corrections`).send({ z: 0.50034, zErr: 0.00005, grade: 4, class: 'galaxy', lines: ['H-alpha'], reason: 'Refit with the sky-line mask.' });
+    expect(res.status).toBe(200);
+    const history = (await lead.get(`/api/spectra/${id}/confirmed`)).body.history;
+    expect(history.map((h: { method: string; isCurrent: boolean; z: number }) => [h.method, h.isCurrent, h.z])).toEqual([
+      ['settlement', false, 0.5003],
+      ['correction', true, 0.50034],
+    ]);
+    expect(history[1].supersedesId).toBe(history[0].id);
+    expect(t.ctx.db.select().from(confirmedRedshifts).where(eq(confirmedRedshifts.spectrumId, id)).all()).toHaveLength(2);
+    expect((await reader1.post(`/api/spectra/${id}/corrections`).send({ z: 1, grade: 4, class: 'galaxy', reason: 'mine' })).status).toBe(403);
+    const unconfirmed = await lead.post(`/api/spectra/${ids[2]}/corrections`).send({ z: 1, grade: 4, class: 'galaxy', reason: 'nothing to correct' });
+    expect(unconfirmed.status).toBe(409);
+    expect(unconfirmed.body.error.code).toBe('not_confirmed');
+  });
+});
