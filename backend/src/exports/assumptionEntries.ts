@@ -1,0 +1,41 @@
+import type { ExportColumn } from './confirmedColumns';
+import type { ExportAssumptions } from './types';
+
+/** A named statement about the export, written as a header line, an INFO element or a meta key. */
+export type Entry = [key: string, value: string];
+
+export const DERIVED_NOTE =
+  'lookback_time and luminosity_distance: flat LCDM without radiation (Hogg 1999, astro-ph/9905116); for z <= 0 lookback_time is 0 and luminosity_distance is null';
+export const NULL_NOTE = 'an empty field is null (no value); empty text and empty lists are exported as null';
+
+/**
+ * The assumptions as ordered key/value statements shared by the CSV comment header and the
+ * VOTable INFO elements, so both say the same thing in the same words.
+ */
+export function assumptionEntries(a: ExportAssumptions): Entry[] {
+  const c = a.cosmology;
+  return [
+    ['campaign', a.campaign],
+    ['wavelengths', a.wavelengths],
+    ['cosmology', `${c.name}: flat LCDM, H0 = ${c.h0} km/s/Mpc, Omega_m = ${c.omegaM}, Omega_Lambda = ${c.omegaLambda}`],
+    ['cosmology_name', c.name],
+    ['cosmology_h0', String(c.h0)],
+    ['cosmology_omega_m', String(c.omegaM)],
+    ['cosmology_omega_lambda', String(c.omegaLambda)],
+    ['agreement_tolerance', `${a.tolerance} in |dz|/(1+z)`],
+    ['exported_at', a.exportedAt],
+    ['software', a.software],
+    ['derived_columns', DERIVED_NOTE],
+    ['nulls', NULL_NOTE],
+  ];
+}
+
+/** One statement per grade of the scheme: `grade.4` → `firm: two or more clear features …`. */
+export function gradeEntries(a: ExportAssumptions): Entry[] {
+  return a.gradeScheme.map((g) => [`grade.${g.code}`, `${g.label}: ${g.meaning}`]);
+}
+
+/** One statement per column: its meaning and unit. */
+export function columnEntries(columns: readonly ExportColumn[]): Entry[] {
+  return columns.map((col) => [`column.${col.name}`, col.unit ? `${col.description} [${col.unit}]` : col.description]);
+}

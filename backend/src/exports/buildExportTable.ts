@@ -1,0 +1,53 @@
+import { checkExportInput } from './checkExportInput';
+import { CONFIRMED_COLUMNS, type ExportColumn } from './confirmedColumns';
+import { cosmicColumns } from './cosmicColumns';
+import type { ConfirmedRow, ExportAssumptions } from './types';
+
+/** A cell: numbers for int/long/double columns, strings for string columns, null when absent. */
+export type Cell = number | string | null;
+
+/** The confirmed rows flattened to the export columns, shared by every writer. */
+export interface ExportTable {
+  columns: readonly ExportColumn[];
+  cells: Cell[][];
+}
+
+/** Empty text carries no information and no format below can tell it from a missing value. */
+const text = (s: string | null): string | null => (s === null || s === '' ? null : s);
+
+/**
+ * Checks the input and lays the rows out as the columns of CONFIRMED_COLUMNS, with the derived
+ * lookback time and luminosity distance. Convention shared by all formats: an empty string or an
+ * empty list is written as null.
+ */
+export function buildExportTable(rows: readonly ConfirmedRow[], assumptions: ExportAssumptions): ExportTable {
+  checkExportInput(rows, assumptions);
+  const cells = rows.map((r): Cell[] => {
+    const derived = cosmicColumns(r.z, assumptions.cosmology);
+    return [
+      r.id,
+      text(r.targetId),
+      r.spectrumId,
+      text(r.fileName),
+      r.ra,
+      r.dec,
+      r.z,
+      r.zErr,
+      r.gradeCode,
+      text(r.gradeLabel),
+      r.spectrumClass,
+      text(r.lines.join(';')),
+      r.photoZ,
+      r.photoZLow,
+      r.photoZHigh,
+      text(r.imageFamily),
+      text(r.readers.join(';')),
+      r.confirmedBy,
+      text(r.confirmedAt),
+      r.supersedes,
+      derived.lookbackGyr,
+      derived.luminosityMpc,
+    ];
+  });
+  return { columns: CONFIRMED_COLUMNS, cells };
+}

@@ -1,0 +1,55 @@
+/** Classes a confirmed redshift can carry (PRODUCT.md vocabulary). */
+export type SpectrumClass = 'galaxy' | 'quasar' | 'star' | 'lyman-break' | 'unknown';
+
+/** One released redshift, as the export writers receive it (the lead maps database rows onto this). */
+export interface ConfirmedRow {
+  /** Catalogue id of the target, if the spectrum is linked to one. */
+  targetId: string | null;
+  spectrumId: number;
+  fileName: string;
+  /** Degrees, J2000. */
+  ra: number | null;
+  dec: number | null;
+  z: number;
+  zErr: number | null;
+  gradeCode: number;
+  gradeLabel: string;
+  spectrumClass: SpectrumClass;
+  /** Names of the features that support the redshift. */
+  lines: string[];
+  photoZ: number | null;
+  /** Lower and upper ends of the photometric redshift's 68 % range. */
+  photoZLow: number | null;
+  photoZHigh: number | null;
+  imageFamily: string | null;
+  /** Names of the people whose readings back this value. */
+  readers: string[];
+  confirmedBy: 'agreement' | 'settlement' | 'correction';
+  /** ISO-8601 UTC. */
+  confirmedAt: string;
+  /** Id of the confirmed record this one corrects. */
+  supersedes: number | null;
+  /** Id of this confirmed record. */
+  id: number;
+}
+
+/** Everything a reader of an export needs to interpret the numbers; written into every format. */
+export interface ExportAssumptions {
+  campaign: string;
+  wavelengths: 'vacuum';
+  cosmology: { name: string; h0: number; omegaM: number; omegaLambda: number; flat: true };
+  /** Agreement tolerance on |Δz|/(1+z). */
+  tolerance: number;
+  gradeScheme: { code: number; label: string; meaning: string }[];
+  /** ISO-8601 UTC. */
+  exportedAt: string;
+  /** e.g. "Redward 0.1.0 / redward-engine/0.2.0". */
+  software: string;
+}
+
+/** A member of an image family that has no confirmed redshift yet. */
+export interface UnconfirmedMember {
+  imageFamily: string;
+  targetId: string | null;
+  spectrumId: number | null;
+}

@@ -1,0 +1,70 @@
+import type { ConfirmedRow, ExportAssumptions } from '../../../backend/src/exports/types';
+
+/** Planck 2018 VI abstract values (A&A 641, A6): H0 = 67.4, Ω_m = 0.315; reference-values.md §4. */
+export const ASSUMPTIONS: ExportAssumptions = {
+  campaign: 'Abell 2744 "arcs" & dropouts',
+  wavelengths: 'vacuum',
+  cosmology: { name: 'Planck18 (abstract)', h0: 67.4, omegaM: 0.315, omegaLambda: 0.685, flat: true },
+  tolerance: 0.002,
+  gradeScheme: [
+    { code: 4, label: 'firm', meaning: 'two or more clear features, or one resolved doublet / unmistakable profile' },
+    { code: 3, label: 'probable', meaning: 'one clear feature plus supporting evidence (break, weak lines, photo-z)' },
+    { code: 2, label: 'tentative', meaning: 'a single weak feature or break; another redshift remains possible' },
+    { code: 1, label: 'undetermined', meaning: 'signal present, no redshift' },
+    { code: 0, label: 'unusable', meaning: 'no usable signal, artefact or reduction failure' },
+  ],
+  exportedAt: '2025-03-14T09:26:53.000Z',
+  software: 'Redward 0.1.0 / redward-engine/0.2.0',
+};
+
+export function row(overrides: Partial<ConfirmedRow> = {}): ConfirmedRow {
+  return {
+    targetId: 'A2744-1021',
+    spectrumId: 17,
+    fileName: 'mask3_slit12.fits',
+    ra: 3.5878125,
+    dec: -30.3972778,
+    z: 6.2,
+    zErr: 0.0004,
+    gradeCode: 4,
+    gradeLabel: 'firm',
+    spectrumClass: 'lyman-break',
+    lines: ['Lya', 'NV'],
+    photoZ: 6.05,
+    photoZLow: 5.8,
+    photoZHigh: 6.3,
+    imageFamily: '5',
+    readers: ['Ada Reader', 'Ben Second'],
+    confirmedBy: 'agreement',
+    confirmedAt: '2025-03-10T12:00:00.000Z',
+    supersedes: null,
+    id: 101,
+    ...overrides,
+  };
+}
+
+/** Three rows covering nulls, a star at z < 0, text needing quotes and escapes, and a correction. */
+export const ROWS: ConfirmedRow[] = [
+  row(),
+  row({
+    id: 102,
+    targetId: null,
+    spectrumId: 18,
+    fileName: 'star, "cool" <M9>.txt',
+    ra: null,
+    dec: null,
+    z: -0.0002,
+    zErr: null,
+    gradeCode: 3,
+    gradeLabel: 'probable',
+    spectrumClass: 'star',
+    lines: [],
+    photoZ: null,
+    photoZLow: null,
+    photoZHigh: null,
+    imageFamily: null,
+    readers: ['Zoë Ångström'],
+    confirmedBy: 'settlement',
+  }),
+  row({ id: 103, targetId: '#7 & <b>', spectrumId: 19, z: 1, zErr: 0.001, spectrumClass: 'galaxy', lines: ['[OII]3727', 'Hb', '[OIII]5007'], confirmedBy: 'correction', supersedes: 99, imageFamily: '5' }),
+];
