@@ -14,7 +14,7 @@ const EMAIL: Record<Exclude<Who, 'anonymous'>, string> = {
 };
 
 interface Case {
-  method: 'get' | 'post' | 'patch';
+  method: 'get' | 'post' | 'patch' | 'put';
   /** The route pattern as registered; `url` fills in the parameters. */
   route: string;
   url: string;
@@ -76,6 +76,8 @@ const CASES: Case[] = [
   { method: 'post', route: '/disagreements/:disagreementId/settle', url: '/api/disagreements/999/settle', body: () => ({ choice: 'first', reason: 'test' }), expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/spectra/:spectrumId/corrections', url: '/api/spectra/999/corrections', body: () => ({ z: 1, grade: 4, class: 'galaxy', reason: 'test' }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/confirmed', url: '/api/spectra/999/confirmed', expect: { ...all(404), anonymous: 401 } },
+  { method: 'post', route: '/campaigns/:id/assignments', url: '/api/campaigns/1/assignments', body: () => ({ readerIds: [3, 4] }), expect: leadOnly(200) },
+  { method: 'put', route: '/spectra/:spectrumId/assignments', url: '/api/spectra/999/assignments', body: () => ({ readingOrder: 'first', readerId: 3 }), expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];
 

@@ -47,3 +47,12 @@ export const disagreementSchema = z.object({
   openedAt: z.string(),
 });
 export type Disagreement = z.infer<typeof disagreementSchema>;
+
+export const assignReadersRequestSchema = z.object({ readerIds: z.array(z.number().int().positive()).min(2, 'Choose at least two readers.').max(200) }).strict();
+export type AssignReadersRequest = z.infer<typeof assignReadersRequestSchema>;
+export const assignReadersResponseSchema = z.object({
+  assigned: z.number().int(),
+  perReader: z.array(z.object({ readerId: z.number().int(), name: z.string(), first: z.number().int(), second: z.number().int() })),
+});
+
+export const reassignRequestSchema = z.object({ readingOrder: z.enum(['first', 'second']), readerId: z.number().int().positive() }).strict();

@@ -1,5 +1,7 @@
 import { Router, type Request } from 'express';
-import { correctionRequestSchema, settleRequestSchema } from '../contracts/release';
+import { assignReadersRequestSchema, correctionRequestSchema, reassignRequestSchema, settleRequestSchema } from '../contracts/release';
+import { appUrl } from '../http/app-url';
+import { assignReaders, reassignReading } from '../services/assign-readers';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -42,6 +44,22 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/confirmed',
     access: access.campaignOf(ofSpectrum, 'lead', 'reader', 'observer'),
     handle: ({ req }) => ({ history: confirmedHistory(ctx, spectrumId(req)) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/campaigns/:id/assignments',
+    access: access.campaign('lead'),
+    body: assignReadersRequestSchema,
+    handle: ({ user, campaign, body }) => assignReaders(ctx, user!, campaign!.id, body.readerIds, appUrl(ctx.config)),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'put',
+    path: '/spectra/:spectrumId/assignments',
+    access: access.campaignOf(ofSpectrum, 'lead'),
+    body: reassignRequestSchema,
+    handle: ({ req, user, body }) => reassignReading(ctx, user!, spectrumId(req), body.readingOrder, body.readerId),
   });
 
   return router;

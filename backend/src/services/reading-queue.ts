@@ -5,7 +5,7 @@ import type { Actor, ServiceContext } from './context';
 
 /**
  * The reader's assigned spectra in a campaign that they have not read yet, in reading order:
- * first readings before second, then by target priority (1 = most wanted), then by target id.
+ * first readings before second, then by target priority (1 = most wanted), target id, file name.
  */
 export function readingQueue(ctx: ServiceContext, actor: Actor, campaignId: number): QueueItem[] {
   return ctx.db
@@ -27,7 +27,7 @@ export function readingQueue(ctx: ServiceContext, actor: Actor, campaignId: numb
     .leftJoin(scanResults, and(eq(scanResults.spectrumId, spectra.id), eq(scanResults.isCurrent, true)))
     .leftJoin(readings, and(eq(readings.spectrumId, spectra.id), eq(readings.readerId, actor.id)))
     .where(and(eq(assignments.readerId, actor.id), eq(spectra.campaignId, campaignId), isNull(readings.id)))
-    .orderBy(asc(assignments.readingOrder), sql`coalesce(${targets.priority}, 99)`, asc(targets.catalogueId), asc(spectra.id))
+    .orderBy(asc(assignments.readingOrder), sql`coalesce(${targets.priority}, 99)`, asc(targets.catalogueId), asc(spectra.fileName), asc(spectra.id))
     .all()
     .map((r) => ({
       id: r.id,
