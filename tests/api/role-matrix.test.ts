@@ -14,7 +14,7 @@ const EMAIL: Record<Exclude<Who, 'anonymous'>, string> = {
 };
 
 interface Case {
-  method: 'get' | 'post' | 'patch' | 'put';
+  method: 'get' | 'post' | 'patch' | 'put' | 'delete';
   /** The route pattern as registered; `url` fills in the parameters. */
   route: string;
   url: string;
@@ -78,6 +78,9 @@ const CASES: Case[] = [
   { method: 'get', route: '/spectra/:spectrumId/confirmed', url: '/api/spectra/999/confirmed', expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/campaigns/:id/assignments', url: '/api/campaigns/1/assignments', body: () => ({ readerIds: [3, 4] }), expect: leadOnly(200) },
   { method: 'put', route: '/spectra/:spectrumId/assignments', url: '/api/spectra/999/assignments', body: () => ({ readingOrder: 'first', readerId: 3 }), expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/account/tokens', url: '/api/account/tokens', expect: signedIn(200) },
+  { method: 'post', route: '/account/tokens', url: '/api/account/tokens', body: () => ({ name: 'matrix' }), expect: signedIn(201) },
+  { method: 'delete', route: '/account/tokens/:tokenId', url: '/api/account/tokens/999', expect: signedIn(404) },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];
 

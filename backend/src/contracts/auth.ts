@@ -35,3 +35,17 @@ export type User = z.infer<typeof userSchema>;
 
 export const meResponseSchema = z.object({ user: userSchema });
 export type MeResponse = z.infer<typeof meResponseSchema>;
+
+export const createTokenRequestSchema = z.object({ name: z.string().trim().min(1, 'Name the token (e.g. the script that uses it).').max(80) }).strict();
+export const apiTokenSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  prefix: z.string(),
+  createdAt: z.string(),
+  lastUsedAt: z.string().nullable(),
+  revokedAt: z.string().nullable(),
+});
+export type ApiToken = z.infer<typeof apiTokenSchema>;
+export const apiTokenListSchema = z.object({ tokens: z.array(apiTokenSchema) });
+/** The token itself appears only in this response. */
+export const createdTokenSchema = z.object({ token: z.string(), apiToken: apiTokenSchema });

@@ -343,3 +343,20 @@ export const disagreements = sqliteTable(
     index('disagreements_campaign').on(t.campaignId, t.state),
   ],
 );
+
+/** Personal access tokens for scripts. Only a hash is stored; the token is shown once. */
+export const apiTokens = sqliteTable(
+  'api_tokens',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    userId: integer('user_id').notNull().references(() => users.id),
+    name: text('name').notNull(),
+    tokenHash: text('token_hash').notNull().unique(),
+    /** The first characters, so a person can tell their tokens apart. */
+    prefix: text('prefix').notNull(),
+    lastUsedAt: text('last_used_at'),
+    revokedAt: text('revoked_at'),
+    createdAt: createdAt(),
+  },
+  (t) => [index('api_tokens_user').on(t.userId)],
+);

@@ -1,7 +1,9 @@
 import type { NextFunction, Request, Response } from 'express';
 import { getIronSession, type IronSession } from 'iron-session';
 import type { Actor, ServiceContext } from '../services/context';
+import { findTokenUser } from '../services/api-tokens';
 import { findSessionUser } from '../services/find-session-user';
+import { AppError } from './errors';
 
 export interface SessionData {
   userId?: number;
@@ -29,6 +31,14 @@ export function sessionMiddleware(ctx: ServiceContext, password: string) {
         ttl: SESSION_TTL_SECONDS,
         cookieOptions: { httpOnly: true, sameSite: 'lax', secure: req.secure, path: '/' },
       });
+      const bearer = /^Bearer\s+(\S+)$/i.exec(req.get('authorization') ?? '')?.[1];
+      if (bearer !== undefined) {
+        // Scripts authenticate with a personal access token; a bad one is refused outright
+        // rather than falling back to any cookie the client may also send.
+        req.user = findTokenUser(ctx, bearer);
+        if (!req.user) return next(new AppError(401, 'invalid_token', 'The access token is not valid (unknown, revoked, or its account is disabled).'));
+        return next();
+      }
       const { userId, epoch } = req.session;
       req.user = userId === undefined ? null : findSessionUser(ctx, userId, epoch ?? 0);
       if (userId !== undefined && req.user === null) req.session.destroy();

@@ -1,5 +1,6 @@
 import { Router } from 'express';
-import { changePasswordRequestSchema, updateAccountRequestSchema } from '../contracts/auth';
+import { changePasswordRequestSchema, createTokenRequestSchema, updateAccountRequestSchema } from '../contracts/auth';
+import { createApiToken, listApiTokens, revokeApiToken } from '../services/api-tokens';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { changePassword } from '../services/change-password';
@@ -29,6 +30,29 @@ export function accountRoutes(ctx: ServiceContext): Router {
       await req.session.save();
       return undefined;
     },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/account/tokens',
+    access: access.signedIn,
+    handle: ({ user }) => ({ tokens: listApiTokens(ctx, user!) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/account/tokens',
+    access: access.signedIn,
+    body: createTokenRequestSchema,
+    status: 201,
+    handle: ({ user, body }) => createApiToken(ctx, user!, body.name),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'delete',
+    path: '/account/tokens/:tokenId',
+    access: access.signedIn,
+    handle: ({ req, user }) => ({ apiToken: revokeApiToken(ctx, user!, Number(req.params.tokenId)) }),
   });
 
   return router;
