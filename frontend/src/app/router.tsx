@@ -1,5 +1,6 @@
 import { createBrowserRouter, Navigate } from 'react-router-dom';
 import { RequireAdmin } from './guards/require-admin';
+import { Loading } from '@/components/ui/loading';
 import { RequireAuth } from './guards/require-auth';
 import { RootLayout } from './layout/root-layout';
 import { AccountRoute } from './routes/account';
@@ -14,6 +15,9 @@ import { InvitationRoute } from './routes/invitation';
 import { NotFoundRoute } from './routes/not-found';
 import { RouteError } from './routes/route-error';
 import { SignInRoute } from './routes/sign-in';
+
+// Shown while the lazily loaded inspection code arrives on a first visit straight to its URL.
+const inspectFallback = <Loading label="Loading the inspection screen…" />;
 
 export const createRouter = () =>
   createBrowserRouter([
@@ -33,8 +37,16 @@ export const createRouter = () =>
             { path: '/campaigns/:campaignId/targets', element: <CampaignTargetsRoute /> },
             { path: '/campaigns/:campaignId/spectra', element: <CampaignSpectraRoute /> },
             // The inspection screen and its plotting library load only when a reader opens it.
-            { path: '/campaigns/:campaignId/inspect', lazy: () => import('./routes/campaign-inspect').then((m) => ({ Component: m.CampaignInspectRoute })) },
-            { path: '/spectra/:spectrumId', lazy: () => import('./routes/spectrum').then((m) => ({ Component: m.SpectrumRoute })) },
+            {
+              path: '/campaigns/:campaignId/inspect',
+              lazy: () => import('./routes/campaign-inspect').then((m) => ({ Component: m.CampaignInspectRoute })),
+              hydrateFallbackElement: inspectFallback,
+            },
+            {
+              path: '/spectra/:spectrumId',
+              lazy: () => import('./routes/spectrum').then((m) => ({ Component: m.SpectrumRoute })),
+              hydrateFallbackElement: inspectFallback,
+            },
             { path: '/account', element: <AccountRoute /> },
             {
               path: '/admin',

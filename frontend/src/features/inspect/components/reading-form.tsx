@@ -6,7 +6,7 @@ import { controlClass } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
-import { useTrialZPerFrame } from '../hooks/use-trial-z';
+import { useTrialZ, useTrialZDerived } from '../hooks/use-trial-z';
 import type { TrialZStore } from '../utils/trial-z-store';
 import { CLASS_NAMES, CLASS_ORDER } from './class-names';
 
@@ -28,23 +28,6 @@ const kbd = 'num rounded-control border border-paper-400 bg-paper-100 px-1 text-
 
 /** The reader's verdict: z from the comb, grade from the campaign's scheme, class, lines, note. */
 export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pending, error, onSave, noteRef }: Props) {
-  // Follows the comb at most once a frame: the lines list below changes with z.
-  const z = useTrialZPerFrame(store);
-  const onData = onDataAt(z);
-  const shown = [...new Set([...onData, ...draft.added])];
-  const checked = (name: string) => (onData.includes(name) ? !draft.excluded.has(name) : draft.added.has(name));
-  const toggle = (name: string, on: boolean) =>
-    onDraft((d) => {
-      const excluded = new Set(d.excluded);
-      const added = new Set(d.added);
-      if (onData.includes(name)) {
-        if (on) excluded.delete(name);
-        else excluded.add(name);
-      } else if (on) added.add(name);
-      else added.delete(name);
-      return { ...d, excluded, added };
-    });
-
   return (
     <form
       aria-label="Reading"
@@ -61,7 +44,7 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
         </Notice>
       ) : null}
       <p className="text-sm text-ink-700">
-        Redshift from the comb: <span className="num text-md font-semibold text-ink-900">{formatRedshift(z)}</span>
+        Redshift from the comb: <CombZ store={store} />
       </p>
       <fieldset>
         <legend className="mb-1 text-sm font-medium text-ink-800">Grade</legend>
@@ -88,32 +71,7 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
           ))}
         </select>
       </div>
-      <fieldset>
-        <legend className="mb-1 flex w-full items-baseline justify-between text-sm font-medium text-ink-800">
-          <span>Lines used</span>
-          <span className="text-xs font-normal text-ink-500">comb markers on data at this z</span>
-        </legend>
-        {shown.length === 0 ? (
-          <p className="text-sm text-ink-500">No comb marker falls on usable data here.</p>
-        ) : (
-          <div className="flex max-h-40 flex-wrap gap-x-3 gap-y-0.5 overflow-y-auto rounded-control border border-paper-200 p-1.5">
-            {shown.map((name) => (
-              <label key={name} className="flex items-center gap-1 text-sm">
-                <input type="checkbox" checked={checked(name)} onChange={(e) => toggle(name, e.target.checked)} className="accent-ink-900" />
-                {name}
-              </label>
-            ))}
-          </div>
-        )}
-        <div className="mt-1 flex gap-2">
-          <Button variant="quiet" size="sm" onClick={() => onDraft((d) => ({ ...d, excluded: new Set(onData), added: new Set() }))}>
-            Untick all
-          </Button>
-          <Button variant="quiet" size="sm" onClick={() => onDraft((d) => ({ ...d, excluded: new Set() }))}>
-            Tick all on data
-          </Button>
-        </div>
-      </fieldset>
+      <LinesUsedField store={store} onDataAt={onDataAt} draft={draft} onDraft={onDraft} />
       <div className="flex flex-col gap-1">
         <label htmlFor="reading-note" className="text-sm font-medium text-ink-800">
           Note
@@ -139,5 +97,56 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
         </span>
       </div>
     </form>
+  );
+}
+
+function CombZ({ store }: { store: TrialZStore }) {
+  return <span className="num text-md font-semibold text-ink-900">{formatRedshift(useTrialZ(store))}</span>;
+}
+
+/** The lines list re-renders only when the set of lines on data changes, not on every step of a drag. */
+function LinesUsedField({ store, onDataAt, draft, onDraft }: Pick<Props, 'store' | 'onDataAt' | 'draft' | 'onDraft'>) {
+  const joined = useTrialZDerived(store, (z) => onDataAt(z).join('\n'));
+  const onData = joined ? joined.split('\n') : [];
+  const shown = [...new Set([...onData, ...draft.added])];
+  const checked = (name: string) => (onData.includes(name) ? !draft.excluded.has(name) : draft.added.has(name));
+  const toggle = (name: string, on: boolean) =>
+    onDraft((d) => {
+      const excluded = new Set(d.excluded);
+      const added = new Set(d.added);
+      if (onData.includes(name)) {
+        if (on) excluded.delete(name);
+        else excluded.add(name);
+      } else if (on) added.add(name);
+      else added.delete(name);
+      return { ...d, excluded, added };
+    });
+  return (
+    <fieldset>
+      <legend className="mb-1 flex w-full items-baseline justify-between text-sm font-medium text-ink-800">
+        <span>Lines used</span>
+        <span className="text-xs font-normal text-ink-500">comb markers on data at this z</span>
+      </legend>
+      {shown.length === 0 ? (
+        <p className="text-sm text-ink-500">No comb marker falls on usable data here.</p>
+      ) : (
+        <div className="flex max-h-40 flex-wrap gap-x-3 gap-y-0.5 overflow-y-auto rounded-control border border-paper-200 p-1.5">
+          {shown.map((name) => (
+            <label key={name} className="flex items-center gap-1 text-sm">
+              <input type="checkbox" checked={checked(name)} onChange={(e) => toggle(name, e.target.checked)} className="accent-ink-900" />
+              {name}
+            </label>
+          ))}
+        </div>
+      )}
+      <div className="mt-1 flex gap-2">
+        <Button variant="quiet" size="sm" onClick={() => onDraft((d) => ({ ...d, excluded: new Set(onData), added: new Set() }))}>
+          Untick all
+        </Button>
+        <Button variant="quiet" size="sm" onClick={() => onDraft((d) => ({ ...d, excluded: new Set() }))}>
+          Tick all on data
+        </Button>
+      </div>
+    </fieldset>
   );
 }

@@ -1,7 +1,7 @@
 import { Badge } from '@/components/ui/badge';
 import { formatRedshift, formatRedshiftError } from '@/lib/format';
 import type { DetailTarget, Solution } from '../api/schemas';
-import { useTrialZPerFrame } from '../hooks/use-trial-z';
+import { useTrialZDerived } from '../hooks/use-trial-z';
 import { photoZAgreement } from '../utils/photo-z';
 import type { TrialZStore } from '../utils/trial-z-store';
 import { asSpectrumClass, CLASS_NAMES } from './class-names';
@@ -18,8 +18,7 @@ const MAX_LINES_SHOWN = 6;
 
 /** The engine's ranked solutions; pressing one snaps the comb (and the class) to it. */
 export function SolutionsList({ solutions, store, target, onSnap }: Props) {
-  const z = useTrialZPerFrame(store);
-  const current = solutions.findIndex((s) => s.z === z);
+  const current = useTrialZDerived(store, (z) => solutions.findIndex((s) => s.z === z));
   if (solutions.length === 0) return <p className="text-ink-500">The scan proposed no solution.</p>;
   return (
     <ol className="flex flex-col gap-1.5" aria-label="Solutions">
