@@ -54,7 +54,9 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     }
     const fraction = pass / total;
     console.log(`${lines.join('\n')}\nreliable rows within tolerance: ${pass}/${total} = ${(100 * fraction).toFixed(1)} %`);
-    // Issue 3 asks for ≥ 95 %. This guards the level reached so far (97/109 = 89.0 % when written)
+    // Issue 3 asks for ≥ 95 %. This guards the level reached so far (97/109 = 89.0 %, unchanged in
+    // engine 0.3.0: the M1 dwarf spec-0935-52643-0464 is now a star at z = 0, the low-S/N quiescent
+    // galaxy MQG_CP-540713 now loses its z = 2.04 by Δχ² ≈ 26 to z = 0.94)
     // against regressions. Two of the misses disagree with their own data, not with the engine:
     // cg922 is written in the rest frame by its WCS ([O II], Hβ, [O III], Hα at rest wavelengths),
     // and spSpec-51630-0266-637 shows Hα, [N II], [S II], Hβ and [O II] at z = 0.0847, not 0.0880.
@@ -73,9 +75,12 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
       lines.push(`${ok ? 'ok ' : 'BAD'} ${r.file.padEnd(46)} want ${want.join('/').padEnd(18)} top z ${top.z.toFixed(4).padStart(8)} ${top.template}`);
     }
     console.log(`${lines.join('\n')}\nz ≈ 0 with the right class: ${pass}/${chosen.length}`);
-    // Issue 3 asks for all of them. Guard at the level reached (10/32 when written: the star
-    // templates do not yet reproduce M/L/T dwarf band shapes, galaxy composites with an old
-    // population are read as 4000 Å-break galaxies at z ≈ 0.8–1.8, LBG composites as quasars).
-    expect(pass).toBeGreaterThanOrEqual(10);
+    // Issue 3 asks for all of them. Guard at the level reached (23/32 with the M–L–T dwarf opacity
+    // templates and the old-stars + A-stars absorption galaxy, engine 0.3.0; was 10/32). Still
+    // missed: the KC96 bulge (old population read at z ≈ 1), the two LBG composites (quasar at
+    // z ≈ 0: no UV-absorption galaxy template below z = 2.5), Kesseli L3 (median S/N 0.2) and five
+    // SpeX near-infrared dwarfs (M0, L5, L8, T5, T8) whose R ≈ 100 band envelopes the recipes do not
+    // yet reproduce well enough to beat broad emission lines placed on the J/H/K peaks.
+    expect(pass).toBeGreaterThanOrEqual(23);
   });
 });

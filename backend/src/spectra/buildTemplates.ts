@@ -87,7 +87,7 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
   const binned: Array<{ label: string; rest: Float64Array }> = [];
   const used = new Set<SpectralLine>();
   for (const comp of recipe.components) {
-    const lines = selectLines(recipe.strengthKey ?? recipe.id, comp);
+    const lines = selectLines(strengthKeyOf(recipe, comp), comp);
     lines.forEach((l) => used.add(l));
     const rest = componentSpectrum(recipe, comp, lines, lambda, step);
     if (comp.igm === 'red-only') {
@@ -131,6 +131,10 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
   };
 }
 
+function strengthKeyOf(recipe: TemplateRecipe, comp: ComponentRecipe): string {
+  return comp.strengthKey ?? recipe.strengthKey ?? recipe.id;
+}
+
 function selectLines(recipeId: string, comp: ComponentRecipe): SpectralLine[] {
   return LINES.filter(
     (l) =>
@@ -148,12 +152,6 @@ function continuumAt(c: ContinuumRecipe | undefined, lam: number): number {
       return (lam / 1500) ** c.slope;
     case 'blackbody':
       return planck(lam, c.temperatureK) / planck(5000, c.temperatureK);
-    case 'old-stellar': {
-      // D4000 ≈ 1.8 break (Balogh et al. 1999 definition, from memory) and a steep UV fall-off.
-      const breakFactor = 0.55 + 0.45 / (1 + Math.exp(-(lam - 4000) / 25));
-      const uv = lam < 2900 ? (lam / 2900) ** 3 : 1;
-      return (planck(lam, 5200) / planck(5000, 5200)) * breakFactor * uv;
-    }
   }
 }
 
@@ -169,13 +167,20 @@ function componentSpectrum(recipe: TemplateRecipe, comp: ComponentRecipe, lines:
   for (let j = 0; j < n; j++) out[j] = continuumAt(comp.continuum, lambda[j]!);
   const sigmaLogLine = recipe.sigmaKms / C_KMS / Math.LN10;
   const logStart = Math.log10(lambda[0]!);
+  const key = strengthKeyOf(recipe, comp);
   const absorb = new Float64Array(n).fill(1);
+  const tau = new Float64Array(n);
   for (const line of lines) {
-    const strength = line.strength[recipe.strengthKey ?? recipe.id]!;
-    const kind = comp.as ?? line.kind;
+    const strength = line.strength[key]!;
+    const kind = comp.as && line.kind === 'emission' ? comp.as : line.kind;
     const logC = Math.log10(line.rest);
     const centre = (logC - logStart) / step;
-    if (kind === 'band') {
+    if (kind === 'break' && comp.opacity) {
+      const w = line.widthA ?? 20;
+      for (let j = 0; j < n && lambda[j]! < line.rest + 20 * w; j++) tau[j]! += strength / (1 + Math.exp((lambda[j]! - line.rest) / w));
+    } else if (kind === 'band' && comp.opacity) {
+      addBandOpacity(tau, lambda, line, strength, centre);
+    } else if (kind === 'band') {
       const w = line.widthA ?? 100;
       if (line.profile === 'broad') {
         const sig = w / 2.355 / (line.rest * Math.LN10) / step;
@@ -185,6 +190,8 @@ function componentSpectrum(recipe: TemplateRecipe, comp: ComponentRecipe, lines:
           absorb[j]! *= 1 - strength * (1 - (lambda[j]! - line.rest) / w);
         }
       }
+    } else if (kind === 'absorption' && comp.opacity) {
+      addLorentzOpacity(tau, lambda, line.rest, line.dampingA ?? 0.5, strength, centre);
     } else if (kind === 'absorption') {
       const sigLog = Math.max(sigmaLogLine, (line.widthA ?? 0) / 2.355 / (line.rest * Math.LN10));
       applyGaussian(absorb, centre, sigLog / step, -strength, true);
@@ -195,8 +202,42 @@ function componentSpectrum(recipe: TemplateRecipe, comp: ComponentRecipe, lines:
       applyGaussian(out, centre, sigPx, area / (sigA * Math.sqrt(2 * Math.PI)), false);
     }
   }
-  if (comp.continuum) for (let j = 0; j < n; j++) out[j]! *= absorb[j]!;
+  // The intrinsic line width (sigmaKms) of an opacity component is applied to its transmission.
+  const transmission = comp.opacity ? gaussianSmooth(tau.map((t) => Math.exp(-t)), sigmaLogLine / step) : undefined;
+  if (comp.continuum) for (let j = 0; j < n; j++) out[j]! *= absorb[j]! * (transmission ? transmission[j]! : 1);
   return out;
+}
+
+/**
+ * Molecular band opacity: a red-degraded band rises sharply at its head and fades redward as
+ * τ₀·exp(−(λ − λ_head)/widthA) (the rotational lines thin out away from the head); a 'broad'
+ * band (H₂O, CH₄, H₂ CIA) is a Gaussian in λ of FWHM widthA.
+ */
+function addBandOpacity(tau: Float64Array, lambda: Float64Array, line: SpectralLine, tau0: number, centre: number): void {
+  const n = lambda.length;
+  const w = line.widthA ?? 100;
+  if (line.profile === 'broad') {
+    const sigma = w / 2.355;
+    for (let j = 0; j < n; j++) {
+      const x = (lambda[j]! - line.rest) / sigma;
+      if (x > -5 && x < 5) tau[j]! += tau0 * Math.exp(-0.5 * x * x);
+    }
+    return;
+  }
+  for (let j = Math.max(0, Math.floor(centre)); j < n; j++) {
+    const d = lambda[j]! - line.rest;
+    if (d > 8 * w) break;
+    if (d >= 0) tau[j]! += tau0 * Math.exp(-d / w);
+  }
+}
+
+/** Lorentzian opacity τ₀ / (1 + ((λ − λ₀)/γ)²) out to where it falls below 10⁻³ (and ≤ 4000 Å). */
+function addLorentzOpacity(tau: Float64Array, lambda: Float64Array, rest: number, gammaA: number, tau0: number, centre: number): void {
+  const reach = Math.min(4000, gammaA * Math.sqrt(Math.max(0, tau0 / 1e-3 - 1)));
+  const n = lambda.length;
+  const c = Math.round(centre);
+  for (let j = Math.max(0, c); j < n && lambda[j]! - rest <= reach; j++) tau[j]! += tau0 / (1 + ((lambda[j]! - rest) / gammaA) ** 2);
+  for (let j = Math.min(n - 1, c - 1); j >= 0 && rest - lambda[j]! <= reach; j--) tau[j]! += tau0 / (1 + ((lambda[j]! - rest) / gammaA) ** 2);
 }
 
 /** Adds (or, multiplicatively, applies 1 + peak·g) a Gaussian of σ pixels centred at `centre`. */

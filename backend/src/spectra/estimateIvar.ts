@@ -16,6 +16,10 @@ export function estimateIvar(flux: Float64Array, valid: Uint8Array, halfWidth = 
     if (valid[i - 1] && valid[i] && valid[i + 1]) d2[i] = Math.abs(flux[i - 1]! - 2 * flux[i]! + flux[i + 1]!);
   }
   const ivar = new Float64Array(n);
+  // A stretch of smooth flux (a noise-free model, an interpolated gap, an extrapolated end) has
+  // second differences near zero and would get an almost infinite weight that swamps the rest of
+  // the spectrum: no estimate may fall below a quarter of the spectrum's median estimate.
+  const floor = 0.25 * robustGlobalSigma(d2);
   // Windows move by `stride` pixels so the cost stays O(n · window / stride) on long spectra.
   const stride = Math.max(1, Math.floor(halfWidth / 2));
   const buf: number[] = [];
@@ -33,6 +37,7 @@ export function estimateIvar(flux: Float64Array, valid: Uint8Array, halfWidth = 
       if (Number.isNaN(globalFallback)) globalFallback = robustGlobalSigma(d2);
       sigma = globalFallback;
     }
+    if (floor > 0 && sigma < floor) sigma = floor;
     const iv = sigma > 0 ? 1 / (sigma * sigma) : 0;
     for (let i = c; i < Math.min(n, c + stride); i++) ivar[i] = valid[i] ? iv : 0;
   }

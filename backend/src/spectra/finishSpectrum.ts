@@ -72,6 +72,17 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
   }
   let errorsEstimated = false;
   if (!hasErrors) {
+    // Without uncertainties nothing marks the zero padding some files carry at their ends; it is
+    // not a measurement (and would get the weight of a noise-free stretch), so it is masked.
+    let head = 0;
+    while (head < m && flux[head] === 0) head++;
+    let tail = 0;
+    while (tail < m - head && flux[m - 1 - tail] === 0) tail++;
+    if (head + tail > 0 && head + tail < m) {
+      for (let k = 0; k < head; k++) mask[k] = 1;
+      for (let k = m - tail; k < m; k++) mask[k] = 1;
+      warnings.push(`${head + tail} pixels of exactly zero flux at the ends were taken as padding and masked.`);
+    }
     const valid = new Uint8Array(m);
     for (let k = 0; k < m; k++) valid[k] = mask[k] ? 0 : 1;
     const est = estimateIvar(flux, valid);

@@ -18,6 +18,8 @@ export interface SpectralLine {
   widthA?: number;
   /** Band shape: a sharp head with absorption to the red, or a symmetric broad trough. */
   profile?: 'head-red' | 'broad';
+  /** Lorentzian half width of the line's opacity, Å (pressure-broadened lines in opacity components). */
+  dampingA?: number;
 }
 
 /** All features, sorted by rest wavelength. The JSON is the single source of truth. */

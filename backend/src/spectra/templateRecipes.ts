@@ -5,8 +5,7 @@ import type { TemplateClass } from './types';
 /** Continuum shape of a template component (see line-lists/templates.json "about"). */
 export type ContinuumRecipe =
   | { shape: 'power-law'; slope: number }
-  | { shape: 'blackbody'; temperatureK: number }
-  | { shape: 'old-stellar' };
+  | { shape: 'blackbody'; temperatureK: number };
 
 export interface ComponentRecipe {
   name: string;
@@ -14,6 +13,10 @@ export interface ComponentRecipe {
   select: { kind: LineKind[]; species?: string[]; names?: string[] };
   igm?: 'madau1995' | 'red-only';
   as?: 'absorption';
+  /** Line strengths of this key for this component alone (overrides the recipe's). */
+  strengthKey?: string;
+  /** Strengths of absorption lines and bands are optical depths; the continuum is multiplied by exp(−Στ). */
+  opacity?: boolean;
 }
 
 export interface TemplateRecipe {

@@ -34,6 +34,20 @@ describe('scanSpectrum on seeded synthetic spectra', () => {
     expect(r.solutions[0]!.deltaChi2).toBeGreaterThan(0);
   });
 
+  it.each([
+    ['star-cool', 3600, 9800],
+    ['star-ultracool', 6500, 13500],
+  ] as const)('a %s dwarf at z = 0 on %s–%s Å is a star, not a Lyman-break source or a galaxy', (template, lo, hi) => {
+    const s = generateSyntheticSpectrum({ class: 'star', template, z: 0, snr: 10, seed: 23, wavelengthMin: lo, wavelengthMax: hi });
+    const r = scanSpectrum(s);
+    expect(r.class).toBe('star');
+    expect(r.solutions[0]!.template).toBe(template);
+    expect(Math.abs(r.solutions[0]!.z)).toBeLessThanOrEqual(0.002);
+    // The best non-star solution is clearly worse: the band heads are not a redshifted galaxy.
+    const other = r.solutions.find((x) => x.class !== 'star');
+    if (other) expect(other.chi2 - r.solutions[0]!.chi2).toBeGreaterThan(25);
+  });
+
   it('pure noise gives no class decision', () => {
     const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.5, snr: 1e-6, seed: 4 });
     expect(scanSpectrum(s).class).toBe('unknown');
