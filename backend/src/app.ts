@@ -12,6 +12,7 @@ import { accountRoutes } from './routes/account';
 import { adminRoutes } from './routes/admin';
 import { authRoutes } from './routes/auth';
 import { campaignRoutes } from './routes/campaigns';
+import { confirmedRoutes } from './routes/confirmed';
 import { healthRoutes } from './routes/health';
 import { invitationRoutes } from './routes/invitations';
 import { jobRoutes } from './routes/jobs';
@@ -58,6 +59,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     readingRoutes,
     lineListRoutes,
     releaseRoutes,
+    confirmedRoutes,
   ]) {
     api.use(routes(ctx));
   }

@@ -81,6 +81,8 @@ const CASES: Case[] = [
   { method: 'get', route: '/account/tokens', url: '/api/account/tokens', expect: signedIn(200) },
   { method: 'post', route: '/account/tokens', url: '/api/account/tokens', body: () => ({ name: 'matrix' }), expect: signedIn(201) },
   { method: 'delete', route: '/account/tokens/:tokenId', url: '/api/account/tokens/999', expect: signedIn(404) },
+  { method: 'get', route: '/campaigns/:id/confirmed', url: '/api/campaigns/1/confirmed', expect: signedIn(200) },
+  { method: 'get', route: '/campaigns/:id/families', url: '/api/campaigns/1/families', expect: signedIn(200) },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];
 

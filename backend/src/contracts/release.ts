@@ -56,3 +56,53 @@ export const assignReadersResponseSchema = z.object({
 });
 
 export const reassignRequestSchema = z.object({ readingOrder: z.enum(['first', 'second']), readerId: z.number().int().positive() }).strict();
+
+export const EXPORT_FORMATS = ['json', 'csv', 'ecsv', 'votable', 'fits'] as const;
+export const confirmedQuerySchema = z.object({
+  format: z.enum(EXPORT_FORMATS).default('json'),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(1000).default(100),
+  grade: z.coerce.number().int().optional(),
+  class: spectrumClassSchema.optional(),
+  family: z.string().trim().max(80).optional(),
+});
+export type ConfirmedQuery = z.input<typeof confirmedQuerySchema>;
+
+export const SPECTRUM_STATES = ['unread', 'one reading', 'agreed', 'disagreement', 'settled'] as const;
+
+export const confirmedRowSchema = z.object({
+  id: z.number().int(),
+  spectrumId: z.number().int(),
+  fileName: z.string(),
+  targetId: z.string().nullable(),
+  ra: z.number().nullable(),
+  dec: z.number().nullable(),
+  z: z.number(),
+  zErr: z.number().nullable(),
+  gradeCode: z.number().int(),
+  gradeLabel: z.string(),
+  spectrumClass: spectrumClassSchema,
+  lines: z.array(z.string()),
+  photoZ: z.number().nullable(),
+  photoZLow: z.number().nullable(),
+  photoZHigh: z.number().nullable(),
+  imageFamily: z.string().nullable(),
+  readers: z.array(z.string()),
+  confirmedBy: z.enum(['agreement', 'settlement', 'correction']),
+  confirmedAt: z.string(),
+  supersedes: z.number().int().nullable(),
+});
+export const confirmedPageSchema = z.object({
+  rows: z.array(confirmedRowSchema),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+  /** How many spectra of the campaign are in each state. */
+  states: z.record(z.enum(SPECTRUM_STATES), z.number().int()),
+  assumptions: z.object({
+    wavelengths: z.literal('vacuum'),
+    cosmology: z.object({ name: z.string(), h0: z.number(), omegaM: z.number(), omegaLambda: z.number(), flat: z.literal(true) }),
+    tolerance: z.number(),
+  }),
+});
+export type ConfirmedPage = z.infer<typeof confirmedPageSchema>;

@@ -1,4 +1,5 @@
 import { and, eq, inArray, sql } from 'drizzle-orm';
+import { qualified } from '../db/qualified';
 import { assignments, campaigns, memberships, readings, spectra, targets, users } from '../db/schema';
 import { badRequest, conflict } from '../http/errors';
 import { planAssignments } from '../release/plan-assignments';
@@ -39,8 +40,8 @@ export async function assignReaders(ctx: ServiceContext, actor: Actor, campaignI
       .select({
         spectrumId: spectra.id,
         priority: targets.priority,
-        first: sql<number | null>`(select ${assignments.readerId} from ${assignments} where ${assignments.spectrumId} = ${spectra.id} and ${assignments.readingOrder} = 'first')`,
-        second: sql<number | null>`(select ${assignments.readerId} from ${assignments} where ${assignments.spectrumId} = ${spectra.id} and ${assignments.readingOrder} = 'second')`,
+        first: sql<number | null>`(select ${qualified(assignments.readerId)} from ${assignments} where ${qualified(assignments.spectrumId)} = ${qualified(spectra.id)} and ${qualified(assignments.readingOrder)} = 'first')`,
+        second: sql<number | null>`(select ${qualified(assignments.readerId)} from ${assignments} where ${qualified(assignments.spectrumId)} = ${qualified(spectra.id)} and ${qualified(assignments.readingOrder)} = 'second')`,
       })
       .from(spectra)
       .leftJoin(targets, eq(targets.id, spectra.targetId))

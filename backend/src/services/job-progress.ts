@@ -1,5 +1,6 @@
 import { and, count, desc, eq, isNotNull, sql } from 'drizzle-orm';
 import type { JobProgress } from '../contracts/ingest';
+import { qualified } from '../db/qualified';
 import { jobItems, jobs, spectra } from '../db/schema';
 import { badRequest, notFound } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
@@ -25,7 +26,7 @@ export function getJobProgress(ctx: ServiceContext, jobId: number): JobProgress 
     .all();
   const countOf = (pred: (o: (typeof outcomes)[number]) => boolean) => outcomes.filter(pred).reduce((s, o) => s + o.n, 0);
   const linkCounts = ctx.db
-    .select({ linked: sql<number>`sum(case when ${spectra.targetId} is not null then 1 else 0 end)`, all: count() })
+    .select({ linked: sql<number>`sum(case when ${qualified(spectra.targetId)} is not null then 1 else 0 end)`, all: count() })
     .from(jobItems)
     .innerJoin(spectra, eq(spectra.id, jobItems.spectrumId))
     .where(and(eq(jobItems.jobId, jobId), eq(jobItems.outcome, 'stored')))

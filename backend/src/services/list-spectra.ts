@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { SpectraPage, spectraQuerySchema } from '../contracts/ingest';
 import type { z } from 'zod';
+import { qualified } from '../db/qualified';
 import { assignments, readings, scanResults, spectra, targets } from '../db/schema';
 import type { ServiceContext } from './context';
 
@@ -47,8 +48,8 @@ export function listSpectra(ctx: ServiceContext, campaignId: number, query: Quer
         zBestErr: scanResults.zBestErr,
         spectrumClass: scanResults.spectrumClass,
         createdAt: spectra.createdAt,
-        readingsAssigned: sql<number>`(select count(*) from ${assignments} where ${assignments.spectrumId} = ${spectra.id})`,
-        readingsDone: sql<number>`(select count(*) from ${readings} where ${readings.spectrumId} = ${spectra.id})`,
+        readingsAssigned: sql<number>`(select count(*) from ${assignments} where ${qualified(assignments.spectrumId)} = ${qualified(spectra.id)})`,
+        readingsDone: sql<number>`(select count(*) from ${readings} where ${qualified(readings.spectrumId)} = ${qualified(spectra.id)})`,
       })
       .from(spectra)
       .leftJoin(targets, eq(targets.id, spectra.targetId))

@@ -1,0 +1,127 @@
+import { and, asc, eq, inArray, sql, type SQL } from 'drizzle-orm';
+import type { z } from 'zod';
+import type { ConfirmedPage, confirmedQuerySchema } from '../contracts/release';
+import { qualified } from '../db/qualified';
+import { campaigns, confirmedRedshifts, disagreements, readings, spectra, targets, users } from '../db/schema';
+import type { ConfirmedRow, ExportAssumptions } from '../exports';
+import { PLANCK18 } from '../spectra/flatLcdm';
+import { ENGINE_VERSION } from '../spectra/version';
+import type { ServiceContext } from './context';
+
+type Query = z.output<typeof confirmedQuerySchema>;
+
+export const EXPORT_COSMOLOGY = { name: 'Planck 2018 (A&A 641, A6) abstract values, flat ΛCDM without radiation', h0: PLANCK18.h0, omegaM: PLANCK18.omegaM, omegaLambda: 1 - PLANCK18.omegaM, flat: true as const };
+
+function filtersFor(campaignId: number, query: Pick<Query, 'grade' | 'class' | 'family'>): SQL {
+  const f: SQL[] = [eq(spectra.campaignId, campaignId), eq(confirmedRedshifts.isCurrent, true)];
+  if (query.grade !== undefined) f.push(eq(confirmedRedshifts.grade, query.grade));
+  if (query.class) f.push(eq(confirmedRedshifts.spectrumClass, query.class));
+  if (query.family) f.push(eq(targets.imageFamily, query.family));
+  return and(...f)!;
+}
+
+/** The current confirmed redshifts of a campaign as export rows, in target order. */
+export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Pick<Query, 'grade' | 'class' | 'family'>, page?: { limit: number; offset: number }): { rows: ConfirmedRow[]; total: number } {
+  const campaign = ctx.db.select({ gradeScheme: campaigns.gradeScheme }).from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
+  const where = filtersFor(campaignId, query);
+  const base = ctx.db
+    .select({ c: confirmedRedshifts, s: { id: spectra.id, fileName: spectra.fileName, ra: spectra.ra, dec: spectra.dec }, t: targets })
+    .from(confirmedRedshifts)
+    .innerJoin(spectra, eq(spectra.id, confirmedRedshifts.spectrumId))
+    .leftJoin(targets, eq(targets.id, spectra.targetId))
+    .where(where)
+    .orderBy(asc(targets.catalogueId), asc(spectra.fileName));
+  const found = page ? base.limit(page.limit).offset(page.offset).all() : base.all();
+  const total = ctx.db
+    .select({ n: sql<number>`count(*)` })
+    .from(confirmedRedshifts)
+    .innerJoin(spectra, eq(spectra.id, confirmedRedshifts.spectrumId))
+    .leftJoin(targets, eq(targets.id, spectra.targetId))
+    .where(where)
+    .get()!.n;
+  const readingIds = found.flatMap((r) => [r.c.firstReadingId, r.c.secondReadingId]).filter((id): id is number => id !== null);
+  const readerNames = new Map(
+    readingIds.length
+      ? ctx.db.select({ id: readings.id, name: users.name }).from(readings).innerJoin(users, eq(users.id, readings.readerId)).where(inArray(readings.id, readingIds)).all().map((r) => [r.id, r.name])
+      : [],
+  );
+  const label = new Map(campaign.gradeScheme.map((g) => [g.code, g.label]));
+  return {
+    total,
+    rows: found.map(({ c, s, t }) => ({
+      id: c.id,
+      spectrumId: s.id,
+      fileName: s.fileName,
+      targetId: t?.catalogueId ?? null,
+      // Catalogue positions are the reference; the spectrum's own header is the fallback.
+      ra: t?.ra ?? s.ra,
+      dec: t?.dec ?? s.dec,
+      z: c.z,
+      zErr: c.zErr,
+      gradeCode: c.grade,
+      gradeLabel: label.get(c.grade) ?? `grade ${c.grade}`,
+      spectrumClass: c.spectrumClass,
+      lines: c.lines,
+      photoZ: t?.photoZ ?? null,
+      photoZLow: t?.photoZLow ?? null,
+      photoZHigh: t?.photoZHigh ?? null,
+      imageFamily: t?.imageFamily ?? null,
+      readers: [c.firstReadingId, c.secondReadingId].map((id) => (id === null ? undefined : readerNames.get(id))).filter((n): n is string => n !== undefined),
+      confirmedBy: c.method,
+      confirmedAt: c.createdAt,
+      supersedes: c.supersedesId,
+    })),
+  };
+}
+
+/** How many spectra are unread, have one reading, agreed, disagree, or were settled. */
+export function spectrumStates(ctx: ServiceContext, campaignId: number): ConfirmedPage['states'] {
+  const rows = ctx.db
+    .select({
+      readings: sql<number>`(select count(*) from ${readings} where ${qualified(readings.spectrumId)} = ${qualified(spectra.id)})`,
+      method: sql<string | null>`(select ${qualified(confirmedRedshifts.method)} from ${confirmedRedshifts} where ${qualified(confirmedRedshifts.spectrumId)} = ${qualified(spectra.id)} and ${qualified(confirmedRedshifts.isCurrent)} = 1)`,
+      open: sql<number>`(select count(*) from ${disagreements} where ${qualified(disagreements.spectrumId)} = ${qualified(spectra.id)} and ${qualified(disagreements.state)} = 'open')`,
+    })
+    .from(spectra)
+    .where(eq(spectra.campaignId, campaignId))
+    .all();
+  const states = { unread: 0, 'one reading': 0, agreed: 0, disagreement: 0, settled: 0 };
+  for (const r of rows) {
+    if (r.method === 'agreement') states.agreed += 1;
+    else if (r.method) states.settled += 1;
+    else if (r.open > 0) states.disagreement += 1;
+    else if (r.readings >= 1) states['one reading'] += 1;
+    else states.unread += 1;
+  }
+  return states;
+}
+
+export function exportAssumptions(ctx: ServiceContext, campaignId: number): ExportAssumptions {
+  const c = ctx.db.select().from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
+  return {
+    campaign: c.name,
+    wavelengths: 'vacuum',
+    cosmology: EXPORT_COSMOLOGY,
+    tolerance: c.tolerance,
+    gradeScheme: c.gradeScheme,
+    exportedAt: ctx.now().toISOString(),
+    software: `Redward ${ctx.config.version} / ${ENGINE_VERSION}`,
+  };
+}
+
+/** Image-family members that have a spectrum but no current confirmed redshift yet. */
+export function unconfirmedFamilyMembers(ctx: ServiceContext, campaignId: number) {
+  return ctx.db
+    .select({ imageFamily: targets.imageFamily, targetId: targets.catalogueId, spectrumId: spectra.id })
+    .from(targets)
+    .leftJoin(spectra, eq(spectra.targetId, targets.id))
+    .where(
+      and(
+        eq(targets.campaignId, campaignId),
+        sql`${targets.imageFamily} is not null`,
+        sql`not exists (select 1 from ${confirmedRedshifts} where ${qualified(confirmedRedshifts.spectrumId)} = ${qualified(spectra.id)} and ${qualified(confirmedRedshifts.isCurrent)} = 1)`,
+      ),
+    )
+    .all()
+    .map((r) => ({ imageFamily: r.imageFamily!, targetId: r.targetId, spectrumId: r.spectrumId }));
+}
