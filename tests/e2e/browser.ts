@@ -36,7 +36,7 @@ export interface E2eServer extends RunningServer {
  * A real Redward on a free port with a fresh data folder and demo data. PUBLIC_URL must be
  * known before boot so the links in invitation e-mails point at this server.
  */
-export async function startE2eServer(): Promise<E2eServer> {
+export async function startE2eServer(options: { demoSpectra?: boolean } = {}): Promise<E2eServer> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'redward-e2e-'));
   const port = await freePort();
   const server = await startServer(
@@ -47,7 +47,7 @@ export async function startE2eServer(): Promise<E2eServer> {
       PUBLIC_URL: `http://localhost:${port}`,
       MAIL_CATCHER_PORT: '0',
       LOG_LEVEL: 'silent',
-      REDWARD_DEMO_SPECTRA: process.env.E2E_DEMO_SPECTRA ?? '0',
+      REDWARD_DEMO_SPECTRA: options.demoSpectra ? '1' : '0',
     }),
   );
   return {

@@ -1,0 +1,73 @@
+import { eq, inArray } from 'drizzle-orm';
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { jobs } from '../../backend/src/db/schema';
+import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
+
+let server: E2eServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  // The demo campaigns with their 120 synthetic spectra, assigned to both demo readers.
+  server = await startE2eServer({ demoSpectra: true });
+  browser = await launchBrowser();
+  const db = server.ctx.db;
+  for (let i = 0; i < 1200; i++) {
+    const states = db.select({ state: jobs.state }).from(jobs).where(inArray(jobs.id, [1, 2])).all();
+    if (states.length === 2 && states.every((s) => s.state === 'done')) break;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  expect(db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, 1)).get()!.state).toBe('done');
+}, 180_000);
+afterAll(async () => {
+  await browser?.close();
+  await server?.cleanup();
+});
+
+it('a reader drags the comb, snaps to the top solution and saves a graded reading from the keyboard', async () => {
+  const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+  const pageErrors: string[] = [];
+  page.on('pageerror', (err) => pageErrors.push(err.message));
+  await signInThroughPage(page, server.url, 'reader1@demo.test');
+  await page.goto(`${server.url}/campaigns/1/inspect`);
+
+  const plot = page.getByRole('group', { name: 'Spectrum plot' });
+  const trialZ = page.getByRole('textbox', { name: 'Trial redshift' });
+  await plot.waitFor({ timeout: 30_000 });
+  await expect.poll(() => trialZ.inputValue(), { timeout: 30_000 }).toMatch(/^\d+\.\d{5}$/);
+  // The queue opens at its first item.
+  const queue = await page.evaluate(async () => (await fetch('/api/me/queue?campaign=1')).json());
+  const spectrumId: number = queue[0].id;
+  const currentId = () => Number(new URL(page.url()).searchParams.get('spectrum') ?? spectrumId);
+
+  // Drag across the plotting area with the comb tool: the trial redshift follows.
+  const before = await trialZ.inputValue();
+  const area = await plot.locator('.u-over').first().boundingBox();
+  expect(area).not.toBeNull();
+  const y = area!.y + area!.height / 2;
+  await page.mouse.move(area!.x + area!.width * 0.4, y);
+  await page.mouse.down();
+  for (let dx = 10; dx <= 120; dx += 10) await page.mouse.move(area!.x + area!.width * 0.4 + dx, y);
+  await page.mouse.up();
+  await expect.poll(() => trialZ.inputValue()).not.toBe(before);
+
+  // Snapping to the top solution sets the trial redshift to its z.
+  const detail = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), spectrumId);
+  const topZ: number = detail.scan.solutions[0].z;
+  await page.getByRole('button', { name: /^Solution 1:/ }).click();
+  await expect.poll(() => trialZ.inputValue()).toBe(topZ.toFixed(5));
+
+  // Keyboard only: leave the button, give grade 4 with Shift — it saves and moves on.
+  await page.keyboard.press('Escape');
+  await page.locator('body').focus();
+  await page.keyboard.press('Shift+Digit4');
+  await expect.poll(currentId, { timeout: 15_000 }).not.toBe(spectrumId);
+  expect(currentId()).toBe(queue[1].id);
+  await expect.poll(() => page.getByRole('status').allTextContents()).toContainEqual(expect.stringMatching(/^Saved .*grade 4/));
+
+  const saved = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), spectrumId);
+  expect(saved.readings).toHaveLength(1);
+  expect(saved.readings[0]).toMatchObject({ grade: 4, readingOrder: 'first' });
+  expect(saved.readings[0].z).toBeCloseTo(topZ, 5);
+  expect(pageErrors).toEqual([]);
+});
