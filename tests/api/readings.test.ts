@@ -130,6 +130,21 @@ describe('spectrum data for plotting', () => {
     expect(buf.length).toBe(start + 2000 * (8 + 4 + 4 + 1));
   });
 
+  it('serves the best-fit model of a solution on the spectrum pixels', async () => {
+    const res = await reader1.get(`/api/spectra/${spectrumIds[2]}/solutions/1/model`).buffer(true).parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    expect(res.status).toBe(200);
+    const model = new Float32Array(new Uint8Array(res.body as Buffer).buffer);
+    expect(model.length).toBe(2000);
+    const finite = Array.from(model).filter(Number.isFinite);
+    expect(finite.length).toBeGreaterThan(1500);
+    expect(Math.max(...finite)).toBeGreaterThan(Math.min(...finite));
+    expect((await reader1.get(`/api/spectra/${spectrumIds[2]}/solutions/99/model`)).status).toBe(404);
+  });
+
   it('serves the χ²(z) curves and the line list of the comb', async () => {
     const curves = (await reader1.get(`/api/spectra/${spectrumIds[2]}/scan-curves`)).body.curves;
     expect(curves.length).toBeGreaterThan(2);

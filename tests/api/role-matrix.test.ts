@@ -71,6 +71,7 @@ const CASES: Case[] = [
   { method: 'get', route: '/spectra/:spectrumId', url: '/api/spectra/999', expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/data', url: '/api/spectra/999/data', expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/scan-curves', url: '/api/spectra/999/scan-curves', expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/spectra/:spectrumId/solutions/:rank/model', url: '/api/spectra/999/solutions/1/model', expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/spectra/:spectrumId/readings', url: '/api/spectra/999/readings', body: () => ({ z: 1, grade: 4, class: 'galaxy' }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/campaigns/:id/disagreements', url: '/api/campaigns/1/disagreements', expect: leadOnly(200) },
   { method: 'post', route: '/disagreements/:disagreementId/settle', url: '/api/disagreements/999/settle', body: () => ({ choice: 'first', reason: 'test' }), expect: { ...all(404), anonymous: 401 } },

@@ -5,6 +5,7 @@ import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
 import { readingQueue } from '../services/reading-queue';
 import { getScanCurves, getSpectrumDetail } from '../services/spectrum-detail';
+import { packSolutionModel } from '../services/solution-model';
 import { packSpectrumData } from '../services/spectrum-data';
 import { spectrumCampaignId } from '../services/spectrum-access';
 import { submitReading } from '../services/submit-reading';
@@ -54,6 +55,18 @@ export function readingRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/scan-curves',
     access: viewer,
     handle: ({ req }) => getScanCurves(ctx, spectrumId(req)),
+  });
+
+  // float32[n] on the spectrum's pixels, the same n as /data.
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId/solutions/:rank/model',
+    access: viewer,
+    handle: ({ req, res }) => {
+      const rank = Number(req.params.rank);
+      if (!Number.isInteger(rank) || rank < 1) throw notFound('Solutions are numbered from 1.', 'solution_not_found');
+      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(packSolutionModel(ctx, spectrumId(req), rank));
+    },
   });
 
   defineRoute(ctx, router, {
