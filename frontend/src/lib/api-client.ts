@@ -91,4 +91,8 @@ export const api = {
     apiRequest<S>(path, { method: 'POST', body, ...(schema ? { schema } : {}) }),
   patch: <S extends z.ZodType | undefined = undefined>(path: string, body: unknown, schema?: S) =>
     apiRequest<S>(path, { method: 'PATCH', body, ...(schema ? { schema } : {}) }),
+  put: <S extends z.ZodType | undefined = undefined>(path: string, body: unknown, schema?: S) =>
+    apiRequest<S>(path, { method: 'PUT', body, ...(schema ? { schema } : {}) }),
+  delete: <S extends z.ZodType | undefined = undefined>(path: string, schema?: S) =>
+    apiRequest<S>(path, { method: 'DELETE', ...(schema ? { schema } : {}) }),
 };

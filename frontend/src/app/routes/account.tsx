@@ -1,5 +1,6 @@
 import { Page } from '@/components/layout/page';
 import { Panel } from '@/components/ui/panel';
+import { ApiTokens } from '@/features/account/components/api-tokens';
 import { NameForm } from '@/features/account/components/name-form';
 import { PasswordForm } from '@/features/account/components/password-form';
 import { useCurrentUser } from '../current-user';
@@ -17,6 +18,9 @@ export function AccountRoute() {
           <PasswordForm />
         </Panel>
       </div>
+      <Panel title="Personal access tokens" className="max-w-4xl">
+        <ApiTokens />
+      </Panel>
     </Page>
   );
 }
