@@ -18,6 +18,7 @@ import { invitationRoutes } from './routes/invitations';
 import { jobRoutes } from './routes/jobs';
 import { lineListRoutes } from './routes/line-list';
 import { memberRoutes } from './routes/members';
+import { openApiRoutes } from './routes/openapi';
 import { readingRoutes } from './routes/readings';
 import { releaseRoutes } from './routes/release';
 import { spectrumRoutes } from './routes/spectra';
@@ -60,6 +61,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     lineListRoutes,
     releaseRoutes,
     confirmedRoutes,
+    openApiRoutes,
   ]) {
     api.use(routes(ctx));
   }

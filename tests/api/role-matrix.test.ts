@@ -84,6 +84,8 @@ const CASES: Case[] = [
   { method: 'delete', route: '/account/tokens/:tokenId', url: '/api/account/tokens/999', expect: signedIn(404) },
   { method: 'get', route: '/campaigns/:id/confirmed', url: '/api/campaigns/1/confirmed', expect: signedIn(200) },
   { method: 'get', route: '/campaigns/:id/families', url: '/api/campaigns/1/families', expect: signedIn(200) },
+  { method: 'get', route: '/openapi.json', url: '/api/openapi.json', expect: all(200) },
+  { method: 'get', route: '/docs', url: '/api/docs', expect: all(200) },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },
 ];
 

@@ -21,6 +21,8 @@ export interface RouteSpec<B, Q> {
   before?: RequestHandler[];
   /** Status for a returned value; `undefined` results always answer 204. */
   status?: number;
+  /** The JSON answer, for the OpenAPI document (routes that send files leave it out). */
+  response?: z.ZodType;
   handle: (input: RouteInput<B, Q>) => unknown;
 }
 
@@ -28,7 +30,31 @@ export interface RouteSpec<B, Q> {
  * Registers one route as a chain: limits → authorize → validate → use-case. The handler
  * returns the JSON body; errors it throws reach the error middleware.
  */
+export interface RouteDoc {
+  method: string;
+  path: string;
+  access: Access;
+  body?: z.ZodType;
+  query?: z.ZodType;
+  response?: z.ZodType;
+  status: number;
+}
+
+/** Every route defined for an application, for the OpenAPI document; one list per context. */
+export const routeDocs = new WeakMap<ServiceContext, RouteDoc[]>();
+
 export function defineRoute<B = undefined, Q = undefined>(ctx: ServiceContext, router: Router, spec: RouteSpec<B, Q>): void {
+  const docs = routeDocs.get(ctx) ?? [];
+  routeDocs.set(ctx, docs);
+  docs.push({
+    method: spec.method,
+    path: spec.path,
+    access: spec.access,
+    ...(spec.body ? { body: spec.body } : {}),
+    ...(spec.query ? { query: spec.query } : {}),
+    ...(spec.response ? { response: spec.response } : {}),
+    status: spec.status ?? 200,
+  });
   const run = async (req: Request, res: Response, next: NextFunction) => {
     try {
       const auth = authorize(ctx, req, spec.access);
