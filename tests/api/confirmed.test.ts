@@ -77,6 +77,18 @@ describe('the confirmed table', () => {
     ]);
   });
 
+  it('computes the pictures from real records: photo-z outliers, grades, reader agreement', async () => {
+    const observer = await t.signIn('observer@demo.test');
+    const res = await observer.get('/api/campaigns/1/statistics');
+    expect(res.status).toBe(200);
+    // One confirmed value (z ≈ 1.0005) whose target has z_phot = 1.1: |Δz|/(1+z) = 0.0497, not an outlier.
+    expect(res.body.photoZ).toMatchObject({ threshold: 0.15, n: 1, outlierFraction: 0 });
+    expect(res.body.photoZ.points[0]).toMatchObject({ targetId: 'CNF-0001', zPhot: 1.1, outlier: false });
+    expect(res.body.gradeDistribution.find((g: { code: number }) => g.code === 4).count).toBe(1);
+    // Two complete pairs: one agreed (Δz/(1+z) = 0.0005), one did not (0.004 > 0.003).
+    expect(res.body.readerPairs).toEqual([{ readers: ['Rafael Demo (reader 1)', 'Rosa Demo (reader 2)'], n: 2, agreeFraction: 0.5, kappaOnGrades: 1 }]);
+  });
+
   it('flags image families whose members are not all confirmed', async () => {
     const lead = await t.signIn('lead@demo.test');
     const res = await lead.get('/api/campaigns/1/families');

@@ -83,6 +83,7 @@ const CASES: Case[] = [
   { method: 'post', route: '/account/tokens', url: '/api/account/tokens', body: () => ({ name: 'matrix' }), expect: signedIn(201) },
   { method: 'delete', route: '/account/tokens/:tokenId', url: '/api/account/tokens/999', expect: signedIn(404) },
   { method: 'get', route: '/campaigns/:id/confirmed', url: '/api/campaigns/1/confirmed', expect: signedIn(200) },
+  { method: 'get', route: '/campaigns/:id/statistics', url: '/api/campaigns/1/statistics', expect: signedIn(200) },
   { method: 'get', route: '/campaigns/:id/families', url: '/api/campaigns/1/families', expect: signedIn(200) },
   { method: 'get', route: '/openapi.json', url: '/api/openapi.json', expect: all(200) },
   { method: 'get', route: '/docs', url: '/api/docs', expect: all(200) },

@@ -5,6 +5,7 @@ import { familyTable, familyTableCsv, toCsv, toEcsv, toFitsTable, toVotable } fr
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { confirmedRows, EXPORT_COSMOLOGY, exportAssumptions, spectrumStates, unconfirmedFamilyMembers } from '../services/confirmed-table';
+import { campaignStatistics } from '../services/campaign-statistics';
 import type { ServiceContext } from '../services/context';
 
 const FILES = {
@@ -62,6 +63,13 @@ export function confirmedRoutes(ctx: ServiceContext): Router {
         .send(familyTableCsv(families, assumptions));
       return undefined;
     },
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/campaigns/:id/statistics',
+    access: access.campaignViewer,
+    handle: ({ campaign }) => campaignStatistics(ctx, campaign!.id),
   });
 
   return router;
