@@ -18,6 +18,7 @@ import { SignInRoute } from './routes/sign-in';
 
 // Shown while the lazily loaded inspection code arrives on a first visit straight to its URL.
 const inspectFallback = <Loading label="Loading the inspection screen…" />;
+const pageFallback = <Loading label="Loading the page…" />;
 
 export const createRouter = () =>
   createBrowserRouter([
@@ -46,6 +47,12 @@ export const createRouter = () =>
               path: '/spectra/:spectrumId',
               lazy: () => import('./routes/spectrum').then((m) => ({ Component: m.SpectrumRoute })),
               hydrateFallbackElement: inspectFallback,
+            },
+            // The release pages (assignment, settlement, confirmed table, families) are used by few people, rarely: loaded on demand.
+            {
+              path: '/campaigns/:campaignId/assign',
+              lazy: () => import('./routes/campaign-assign').then((m) => ({ Component: m.CampaignAssignRoute })),
+              hydrateFallbackElement: pageFallback,
             },
             { path: '/account', element: <AccountRoute /> },
             {

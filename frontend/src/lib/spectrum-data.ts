@@ -1,8 +1,10 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { apiErrorFromBody, ApiError, NETWORK_ERROR_MESSAGE } from '@/lib/api-client';
-import { decodeSpectrumData } from '../utils/decode-spectrum-data';
-import type { SpectrumArrays } from '../utils/decode-spectrum-data';
-import { inspectKeys } from './keys';
+import { apiErrorFromBody, ApiError, NETWORK_ERROR_MESSAGE } from './api-client';
+import { decodeSpectrumData } from './decode-spectrum-data';
+import type { SpectrumArrays } from './decode-spectrum-data';
+
+/** Shared by every page that plots a spectrum (inspection, settlement), so they share one cache entry. */
+export const spectrumDataKey = (spectrumId: number) => ['spectrum-data', spectrumId] as const;
 
 /** The packed arrays are binary, so this is the one fetch that does not go through api.get. */
 export async function getSpectrumData(spectrumId: number, signal?: AbortSignal): Promise<SpectrumArrays> {
@@ -23,7 +25,7 @@ export async function getSpectrumData(spectrumId: number, signal?: AbortSignal):
 
 export const getSpectrumDataQueryOptions = (spectrumId: number) =>
   queryOptions({
-    queryKey: inspectKeys.data(spectrumId),
+    queryKey: spectrumDataKey(spectrumId),
     queryFn: ({ signal }) => getSpectrumData(spectrumId, signal),
     // The arrays of a stored file never change; refetching would only rebuild the plot.
     staleTime: Infinity,

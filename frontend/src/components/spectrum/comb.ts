@@ -1,4 +1,4 @@
-import type { CombLine } from '../api/schemas';
+import type { CombLine } from '@/lib/line-list';
 import { lowerBound } from './robust-range';
 
 /**

@@ -1,4 +1,4 @@
-import type { CombLine } from '../api/schemas';
+import type { CombLine } from '@/lib/line-list';
 import { staggerLabels } from './comb';
 import { LABEL_FONT, PLOT } from './plot-palette';
 
@@ -23,11 +23,32 @@ const ROW_HEIGHT = 12;
 const MAX_ROWS = 4;
 
 /**
+ * How one comb looks. The inspection screen colours markers by kind; a plot with two combs (the
+ * two readings of a disagreement) gives each comb one colour and its own label band, top or
+ * bottom, so the two sets of names never interleave. Dash patterns still tell the kinds apart.
+ */
+export interface CombLook {
+  colour: string | null;
+  labels: 'top' | 'bottom';
+}
+
+export const KIND_COLOURED: CombLook = { colour: null, labels: 'top' };
+
+/**
  * Draws the comb at z on a transparent canvas covering the plotting area (CSS px, already scaled
  * for devicePixelRatio). `toX` maps an observed wavelength to CSS px. Lines are sorted by rest
  * wavelength, so their observed positions come out sorted too and labels can be staggered.
  */
-export function drawComb(ctx: CanvasRenderingContext2D, lines: CombLine[], z: number, toX: (lambda: number) => number, width: number, height: number, s: CombScratch) {
+export function drawComb(
+  ctx: CanvasRenderingContext2D,
+  lines: CombLine[],
+  z: number,
+  toX: (lambda: number) => number,
+  width: number,
+  height: number,
+  s: CombScratch,
+  look: CombLook = KIND_COLOURED,
+) {
   ctx.font = LABEL_FONT;
   ctx.textBaseline = 'top';
   const k = 1 + z;
@@ -48,16 +69,21 @@ export function drawComb(ctx: CanvasRenderingContext2D, lines: CombLine[], z: nu
     count++;
   }
   staggerLabels(s.xs, s.widths, count, s.rows, MAX_ROWS);
-  const top = MAX_ROWS * ROW_HEIGHT + 2;
+  const band = MAX_ROWS * ROW_HEIGHT + 2;
+  const below = look.labels === 'bottom';
+  // The marker spans the plot except the label band; labels sit in rows counted from their edge.
+  const top = below ? 0 : band;
+  const bottom = below ? height - band : height;
+  const rowY = (row: number) => (below ? height - (row + 1) * ROW_HEIGHT : 1 + row * ROW_HEIGHT);
   for (let c = 0; c < count; c++) {
     const l = lines[s.order[c]!]!;
     const x = Math.round(s.xs[c]!) + 0.5;
-    const colour = l.kind === 'emission' ? PLOT.emission : l.kind === 'absorption' ? PLOT.absorption : l.kind === 'break' ? PLOT.break : PLOT.bandLine;
+    const colour = look.colour ?? (l.kind === 'emission' ? PLOT.emission : l.kind === 'absorption' ? PLOT.absorption : l.kind === 'break' ? PLOT.break : PLOT.bandLine);
     if (l.kind === 'band' && l.widthA) {
       const x0 = toX((l.rest - l.widthA / 2) * k);
       const x1 = toX((l.rest + l.widthA / 2) * k);
       ctx.fillStyle = PLOT.band;
-      ctx.fillRect(x0, top, x1 - x0, height - top);
+      ctx.fillRect(x0, top, x1 - x0, bottom - top);
     }
     ctx.strokeStyle = colour;
     ctx.lineWidth = l.kind === 'break' ? 2 : 1;
@@ -65,20 +91,21 @@ export function drawComb(ctx: CanvasRenderingContext2D, lines: CombLine[], z: nu
     ctx.setLineDash(l.kind === 'emission' ? [] : l.kind === 'absorption' ? [5, 3] : [2, 3]);
     ctx.beginPath();
     ctx.moveTo(x, top);
-    ctx.lineTo(x, height);
+    ctx.lineTo(x, bottom);
     ctx.stroke();
     const row = s.rows[c]!;
     if (row >= 0) {
+      const y = rowY(row);
       // A paper ground under the label keeps it legible over a noisy spectrum.
       ctx.fillStyle = PLOT.labelGround;
-      ctx.fillRect(x + 1, 1 + row * ROW_HEIGHT, s.widths[c]! + 2, ROW_HEIGHT - 1);
+      ctx.fillRect(x + 1, y, s.widths[c]! + 2, ROW_HEIGHT - 1);
       ctx.fillStyle = colour;
-      ctx.fillText(l.name, x + 2, 2 + row * ROW_HEIGHT);
+      ctx.fillText(l.name, x + 2, y + 1);
       ctx.setLineDash([1, 2]);
       ctx.lineWidth = 1;
       ctx.beginPath();
-      ctx.moveTo(x, 2 + row * ROW_HEIGHT + ROW_HEIGHT - 2);
-      ctx.lineTo(x, top);
+      ctx.moveTo(x, below ? y : y + ROW_HEIGHT - 1);
+      ctx.lineTo(x, below ? bottom : top);
       ctx.stroke();
     }
   }

@@ -2,15 +2,16 @@ import { useEffect, useImperativeHandle, useRef } from 'react';
 import type { Ref } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
-import type { CombLine } from '../api/schemas';
-import type { DisplayArrays } from '../hooks/use-display-arrays';
-import { createCombScratch, drawComb, drawPeaks } from '../utils/draw-comb';
-import { dragZ } from '../utils/comb';
-import { maskRuns } from '../utils/mask-runs';
-import { PLOT } from '../utils/plot-palette';
-import { decimalsFor, niceStep, restFrameSplits } from '../utils/rest-frame-axis';
-import { lowerBound, robustRange } from '../utils/robust-range';
-import type { TrialZStore } from '../utils/trial-z-store';
+import type { CombLine } from '@/lib/line-list';
+import type { DisplayArrays } from './use-display-arrays';
+import { createCombScratch, drawComb, drawPeaks, KIND_COLOURED } from './draw-comb';
+import type { CombLook } from './draw-comb';
+import { dragZ } from './comb';
+import { maskRuns } from './mask-runs';
+import { PLOT } from './plot-palette';
+import { decimalsFor, niceStep, restFrameSplits } from './rest-frame-axis';
+import { lowerBound, robustRange } from './robust-range';
+import type { TrialZStore } from './trial-z-store';
 import { createOverlayCanvas } from './overlay-canvas';
 
 export type PlotTool = 'comb' | 'zoom';
@@ -23,17 +24,28 @@ export interface PlotControls {
   panBy: (fraction: number) => void;
 }
 
+/** One comb on the plot: its trial redshift and, when there are several, its own colour and label band. */
+export interface PlotComb {
+  store: TrialZStore;
+  look?: CombLook;
+}
+
 interface Props {
   display: DisplayArrays;
   lines: CombLine[];
-  peaks: Array<{ wavelength: number }>;
-  store: TrialZStore;
+  /** The first comb is the one a comb drag moves and the rest-frame axis follows. Keep the array stable (memoise it). */
+  combs: readonly PlotComb[];
   tool: PlotTool;
   restFrame: boolean;
-  onPeak: (index: number) => void;
-  controls: Ref<PlotControls>;
-  describedBy: string;
+  peaks?: Array<{ wavelength: number }>;
+  onPeak?: (index: number) => void;
+  controls?: Ref<PlotControls>;
+  describedBy?: string;
+  label?: string;
 }
+
+const NO_PEAKS: Array<{ wavelength: number }> = [];
+const ignorePeak = () => {};
 
 const HEIGHT = 340;
 const CLICK_SLOP_PX = 3;
@@ -44,7 +56,7 @@ const PEAK_HIT_PX = 7;
  * created once per mount; a new spectrum or smoothing arrives through setData, zoom through
  * setScale, and a comb move repaints only the overlay.
  */
-export function SpectrumPlot({ display, lines, peaks, store, tool, restFrame, onPeak, controls, describedBy }: Props) {
+export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
   const live = useRef({ display, lines, peaks, tool, restFrame, onPeak, masks: maskRuns(display.source.wavelength, display.source.mask) });
@@ -53,6 +65,7 @@ export function SpectrumPlot({ display, lines, peaks, store, tool, restFrame, on
   live.current.peaks = peaks;
   live.current.tool = tool;
   live.current.onPeak = onPeak;
+  const store = combs[0]!.store;
 
   useImperativeHandle(controls, () => ({
     resetZoom: () => {
@@ -89,7 +102,7 @@ export function SpectrumPlot({ display, lines, peaks, store, tool, restFrame, on
       const toX = (lambda: number) => u.valToPos(lambda, 'x');
       const { lines, peaks } = live.current;
       overlay.paint((ctx, w, h) => {
-        drawComb(ctx, lines, store.get(), toX, w, h, scratch);
+        for (const comb of combs) drawComb(ctx, lines, comb.store.get(), toX, w, h, scratch, comb.look ?? KIND_COLOURED);
         drawPeaks(ctx, peaks, toX, w, h);
       });
     };
@@ -177,7 +190,7 @@ export function SpectrumPlot({ display, lines, peaks, store, tool, restFrame, on
     overlay = createOverlayCanvas(u);
     repaint();
 
-    const unsubscribe = store.subscribe(scheduleRepaint);
+    const unsubscribes = combs.map((c) => c.store.subscribe(scheduleRepaint));
     const detachPointer = attachPointer(u, store, live, scheduleRepaint);
     const resize = new ResizeObserver(() => {
       const width = el.clientWidth;
@@ -187,14 +200,14 @@ export function SpectrumPlot({ display, lines, peaks, store, tool, restFrame, on
 
     return () => {
       cancelAnimationFrame(frame);
-      unsubscribe();
+      for (const off of unsubscribes) off();
       detachPointer();
       resize.disconnect();
       u.destroy();
       plot.current = null;
     };
-    // uPlot is built once per store (per spectrum); later props reach it through `live` and the effects below.
-  }, [store]);
+    // uPlot is built once per set of combs (per spectrum); later props reach it through `live` and the effects below.
+  }, [combs, store]);
 
   // New spectrum: new data and the full range. New smoothing only: same window, y re-ranged.
   const shown = useRef(display);
@@ -241,7 +254,7 @@ export function SpectrumPlot({ display, lines, peaks, store, tool, restFrame, on
     <div
       ref={host}
       role="group"
-      aria-label="Spectrum plot"
+      aria-label={label}
       aria-describedby={describedBy}
       tabIndex={0}
       className={`spectrum-plot relative w-full select-none rounded-control ${tool === 'comb' ? 'cursor-ew-resize' : 'cursor-crosshair'}`}

@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
-import type { SpectrumArrays } from '../utils/decode-spectrum-data';
-import { smoothFlux } from '../utils/smooth';
-import type { Smoothing } from '../utils/smooth';
+import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
+import { smoothFlux } from './smooth';
+import type { Smoothing } from './smooth';
 
 /** What the plot draws: the (optionally smoothed) flux and the error band around it. */
 export interface DisplayArrays {

@@ -4,7 +4,5 @@ export const inspectKeys = {
   queue: (campaignId: number) => [...inspectKeys.queues(), campaignId] as const,
   spectrum: (spectrumId: number) => [...inspectKeys.all(), 'spectrum', spectrumId] as const,
   detail: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'detail'] as const,
-  data: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'data'] as const,
   curves: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'curves'] as const,
-  lineList: () => [...inspectKeys.all(), 'line-list'] as const,
 };

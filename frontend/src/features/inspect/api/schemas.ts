@@ -116,14 +116,6 @@ export const scanCurvesSchema = z.object({
 });
 export type ScanCurves = z.infer<typeof scanCurvesSchema>;
 
-export const lineKindSchema = z.enum(['emission', 'absorption', 'band', 'break']);
-export type LineKind = z.infer<typeof lineKindSchema>;
-
-export const lineListSchema = z.object({
-  medium: z.literal('vacuum'),
-  unit: z.literal('Angstrom'),
-  lines: z.array(z.object({ name: z.string(), species: z.string(), rest: z.number(), kind: lineKindSchema, source: z.string(), widthA: z.number().optional() })),
-});
-export type CombLine = z.infer<typeof lineListSchema>['lines'][number];
+export type { CombLine, LineKind } from '@/lib/line-list';
 
 export { spectrumClassSchema };

@@ -2,10 +2,10 @@ import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import type { Solution } from '../api/schemas';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
-import { PLOT } from '../utils/plot-palette';
-import type { TrialZStore } from '../utils/trial-z-store';
+import { PLOT } from '@/components/spectrum/plot-palette';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES } from './class-names';
-import { createOverlayCanvas } from './overlay-canvas';
+import { createOverlayCanvas } from '@/components/spectrum/overlay-canvas';
 
 const HEIGHT = 170;
 

@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDate, formatDegrees, formatRedshift } from '@/lib/format';
 import type { SpectrumDetail } from '../api/schemas';
-import type { SpectrumArrays } from '../utils/decode-spectrum-data';
+import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatDec, formatRa } from '../utils/sky-position';
 import { CLASS_NAMES } from './class-names';
 

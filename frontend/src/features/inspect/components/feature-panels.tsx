@@ -1,12 +1,12 @@
 import { useEffect, useRef, useState } from 'react';
 import { SelectField } from '@/components/ui/field';
-import type { DisplayArrays } from '../hooks/use-display-arrays';
+import type { DisplayArrays } from '@/components/spectrum/use-display-arrays';
 import { useTrialZPerFrame } from '../hooks/use-trial-z';
 import { FEATURE_WINDOWS, velocityOf, windowSpan } from '../utils/feature-windows';
 import type { FeatureWindow } from '../utils/feature-windows';
-import { PLOT } from '../utils/plot-palette';
-import { lowerBound, robustRange } from '../utils/robust-range';
-import type { TrialZStore } from '../utils/trial-z-store';
+import { PLOT } from '@/components/spectrum/plot-palette';
+import { lowerBound, robustRange } from '@/components/spectrum/robust-range';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 
 const HALF_WIDTHS = [1000, 3000, 6000] as const;
 const W = 220;

@@ -4,15 +4,15 @@ import type { ReactNode } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { Panel } from '@/components/ui/panel';
 import type { CombLine, SpectrumDetail } from '../api/schemas';
-import { useDisplayArrays } from '../hooks/use-display-arrays';
+import { useDisplayArrays } from '@/components/spectrum/use-display-arrays';
 import { useInspectKeys } from '../hooks/use-inspect-keys';
 import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
-import { linesOnData, nudgeZ, pixelStepFactor } from '../utils/comb';
-import type { SpectrumArrays } from '../utils/decode-spectrum-data';
-import type { Smoothing } from '../utils/smooth';
-import { createTrialZStore } from '../utils/trial-z-store';
+import { linesOnData, nudgeZ, pixelStepFactor } from '@/components/spectrum/comb';
+import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
+import type { Smoothing } from '@/components/spectrum/smooth';
+import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { Chi2Strip } from './chi2-strip';
 import { asSpectrumClass } from './class-names';
 import { ContextPanel } from './context-panel';
@@ -22,8 +22,8 @@ import { PeaksPanel } from './peaks-panel';
 import { PlotToolbar } from './plot-toolbar';
 import { ReadingForm } from './reading-form';
 import { SolutionsList } from './solutions-list';
-import { SpectrumPlot } from './spectrum-plot';
-import type { PlotControls, PlotTool } from './spectrum-plot';
+import { SpectrumPlot } from '@/components/spectrum/spectrum-plot';
+import type { PlotControls, PlotTool } from '@/components/spectrum/spectrum-plot';
 import { TrialZInput } from './trial-z-input';
 
 export interface QueueNavigation {
@@ -50,6 +50,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }:
   const mine = detail.readings[0];
   const top = solutions[0];
   const [store] = useState(() => createTrialZStore(mine?.z ?? top?.z ?? Math.max(0, campaign.zMin), Math.max(-0.01, campaign.zMin - 0.01), campaign.zMax));
+  const combs = useMemo(() => [{ store }], [store]);
   const [draft, setDraft] = useReadingDraft(mine, asSpectrumClass(mine?.class ?? top?.class ?? scan?.class));
   const [tool, setTool] = useState<PlotTool>('comb');
   const [smoothing, setSmoothing] = useState<Smoothing>({ kind: 'none', width: 5 });
@@ -150,7 +151,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }:
               display={display}
               lines={lines}
               peaks={scan?.lineMatches.peaks ?? []}
-              store={store}
+              combs={combs}
               tool={tool}
               restFrame={restFrame}
               onPeak={setPickedPeak}

@@ -1,8 +1,8 @@
 import type { RefObject } from 'react';
 import { Button } from '@/components/ui/button';
 import { controlClass } from '@/components/ui/field';
-import type { Smoothing, SmoothingKind } from '../utils/smooth';
-import type { PlotControls, PlotTool } from './spectrum-plot';
+import type { Smoothing, SmoothingKind } from '@/components/spectrum/smooth';
+import type { PlotControls, PlotTool } from '@/components/spectrum/spectrum-plot';
 
 interface Props {
   tool: PlotTool;

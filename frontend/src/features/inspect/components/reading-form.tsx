@@ -7,7 +7,7 @@ import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
 import { useTrialZ, useTrialZDerived } from '../hooks/use-trial-z';
-import type { TrialZStore } from '../utils/trial-z-store';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES, CLASS_ORDER } from './class-names';
 
 interface Props {

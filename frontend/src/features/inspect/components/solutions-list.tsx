@@ -3,7 +3,7 @@ import { formatRedshift, formatRedshiftError } from '@/lib/format';
 import type { DetailTarget, Solution } from '../api/schemas';
 import { useTrialZDerived } from '../hooks/use-trial-z';
 import { photoZAgreement } from '../utils/photo-z';
-import type { TrialZStore } from '../utils/trial-z-store';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { asSpectrumClass, CLASS_NAMES } from './class-names';
 
 interface Props {

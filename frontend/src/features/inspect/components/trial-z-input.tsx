@@ -1,7 +1,7 @@
 import { forwardRef, useState } from 'react';
 import { controlClass } from '@/components/ui/field';
 import { useTrialZ } from '../hooks/use-trial-z';
-import type { TrialZStore } from '../utils/trial-z-store';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 
 /**
  * The comb's redshift as text. It follows drags and keys to 5 decimals; while the reader types,

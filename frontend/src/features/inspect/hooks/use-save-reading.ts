@@ -3,7 +3,7 @@ import type { Reading, SubmitReadingRequest } from '@contracts/readings';
 import { useRef, useState } from 'react';
 import { useSubmitReading } from '../api/submit-reading';
 import type { Solution } from '../api/schemas';
-import type { TrialZStore } from '../utils/trial-z-store';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import type { ReadingDraft } from './use-reading-draft';
 
 interface Options {

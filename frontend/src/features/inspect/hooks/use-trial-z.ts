@@ -1,5 +1,5 @@
 import { useEffect, useState, useSyncExternalStore } from 'react';
-import type { TrialZStore } from '../utils/trial-z-store';
+import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 
 /** The trial z on every change: for small things (the input) that must follow a drag exactly. */
 export const useTrialZ = (store: TrialZStore) => useSyncExternalStore(store.subscribe, store.get);
