@@ -54,6 +54,16 @@ export const createRouter = () =>
               lazy: () => import('./routes/campaign-assign').then((m) => ({ Component: m.CampaignAssignRoute })),
               hydrateFallbackElement: pageFallback,
             },
+            {
+              path: '/campaigns/:campaignId/disagreements',
+              lazy: () => import('./routes/campaign-disagreements').then((m) => ({ Component: m.CampaignDisagreementsRoute })),
+              hydrateFallbackElement: pageFallback,
+            },
+            {
+              path: '/campaigns/:campaignId/confirmed',
+              lazy: () => import('./routes/campaign-confirmed').then((m) => ({ Component: m.CampaignConfirmedRoute })),
+              hydrateFallbackElement: pageFallback,
+            },
             { path: '/account', element: <AccountRoute /> },
             {
               path: '/admin',

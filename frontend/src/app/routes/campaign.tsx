@@ -14,6 +14,7 @@ import { CampaignMembers } from '@/features/members/components/campaign-members'
 import { RescanNotice } from '@/features/spectra/components/rescan-notice';
 import { SpectraCounts } from '@/features/spectra/components/spectra-counts';
 import { NotFoundRoute } from './not-found';
+import { ReleasePanel } from './release-links';
 
 const backLink = (
   <Link to="/campaigns" className="hover:underline">
@@ -48,6 +49,7 @@ function CampaignOverview({ id }: { id: number }) {
       </Panel>
       <RescanNotice campaignId={c.id} isLead={isLead} />
       <DataPanel campaign={c} isLead={isLead} />
+      <ReleasePanel campaign={c} />
       <Panel>
         <CampaignMembers campaignId={c.id} isLead={isLead} />
       </Panel>

@@ -20,6 +20,9 @@ export const PLOT = {
   peak: '#2c623d',
   cursor: '#d4592a',
   solution: '#37415d',
+  // The two readings of a disagreement, each comb in one colour (kinds told apart by dash).
+  readingFirst: '#b7461b',
+  readingSecond: '#2f5985',
   classes: {
     galaxy: '#b7461b',
     quasar: '#2f5985',

@@ -1,0 +1,59 @@
+import type { Reading } from '@contracts/readings';
+import { useMemo, useRef, useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { PLOT } from '@/components/spectrum/plot-palette';
+import { SpectrumPlot } from '@/components/spectrum/spectrum-plot';
+import type { PlotControls } from '@/components/spectrum/spectrum-plot';
+import { createTrialZStore } from '@/components/spectrum/trial-z-store';
+import { useDisplayArrays } from '@/components/spectrum/use-display-arrays';
+import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
+import { formatRedshift } from '@/lib/format';
+import type { CombLine } from '@/lib/line-list';
+
+const NO_SMOOTHING = { kind: 'none', width: 5 } as const;
+
+/**
+ * The spectrum with both readings' combs at once: the first reading's labels run along the top,
+ * the second's along the bottom, each comb in its own colour. Neither comb moves; dragging zooms.
+ */
+export function TwoReadingsPlot({ arrays, lines, first, second }: { arrays: SpectrumArrays; lines: CombLine[]; first: Reading; second: Reading }) {
+  const display = useDisplayArrays(arrays, NO_SMOOTHING);
+  const controls = useRef<PlotControls>(null);
+  // Stores are per pair of readings; the page mounts this per disagreement.
+  const [combs] = useState(() => [
+    { store: createTrialZStore(first.z, -0.01, 12), look: { colour: PLOT.readingFirst, labels: 'top' as const } },
+    { store: createTrialZStore(second.z, -0.01, 12), look: { colour: PLOT.readingSecond, labels: 'bottom' as const } },
+  ]);
+  const description = useMemo(
+    () => `The first reading's comb is drawn at z = ${formatRedshift(first.z)} with its line names along the top; the second reading's at z = ${formatRedshift(second.z)} with its names along the bottom. Drag across the plot to zoom in.`,
+    [first.z, second.z],
+  );
+
+  return (
+    <div className="flex flex-col gap-2">
+      <p id="two-combs-help" className="sr-only">
+        {description}
+      </p>
+      <SpectrumPlot display={display} lines={lines} combs={combs} tool="zoom" restFrame={false} controls={controls} describedBy="two-combs-help" label="Spectrum with both readings' combs" />
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <ul aria-label="Combs" className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600">
+          <CombKey colour={PLOT.readingFirst} text={`first reading, z = ${formatRedshift(first.z)} (names on top)`} />
+          <CombKey colour={PLOT.readingSecond} text={`second reading, z = ${formatRedshift(second.z)} (names below)`} />
+          <li>solid emission · dashed absorption · dotted band or break</li>
+        </ul>
+        <Button variant="secondary" size="sm" onClick={() => controls.current?.resetZoom()}>
+          Reset zoom
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+function CombKey({ colour, text }: { colour: string; text: string }) {
+  return (
+    <li className="inline-flex items-center gap-1.5">
+      <span aria-hidden="true" className="inline-block h-3 w-0.5" style={{ backgroundColor: colour }} />
+      <span className="num">{text}</span>
+    </li>
+  );
+}
