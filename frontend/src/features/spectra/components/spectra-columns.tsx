@@ -94,6 +94,21 @@ export const spectraColumns = helper.columns([
       return isSpectrumClass(v) ? <Badge tone={CLASS_TONES[v]}>{CLASS_LABELS[v]}</Badge> : <Badge>{v}</Badge>;
     },
   }),
+  helper.accessor('readingsDone', {
+    id: 'readings',
+    header: 'Readings',
+    enableSorting: false,
+    // Counts only: who read what stays blind here.
+    cell: (c) => {
+      const { readingsDone, readingsAssigned } = c.row.original;
+      if (readingsAssigned === 0) return <span className="text-ink-500">not assigned</span>;
+      return (
+        <span className="num" title={`${readingsDone} of ${readingsAssigned} assigned readings saved`}>
+          {readingsDone} / {readingsAssigned}
+        </span>
+      );
+    },
+  }),
 ]);
 
 export const NUMERIC_COLUMNS = new Set(['snr', 'z']);
