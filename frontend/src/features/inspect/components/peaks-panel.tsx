@@ -32,7 +32,8 @@ export function PeaksPanel({ lineMatches, lines, zMin, zMax, picked, onPick, onZ
           <ul className="mt-1 flex flex-col gap-1">
             {singleLine.alternatives.map((a) => (
               <li key={a.line} className="flex flex-wrap items-baseline gap-x-2">
-                <Button variant="quiet" size="sm" onClick={() => onZ(a.z)} aria-label={`Try ${a.line} at z = ${formatRedshift(a.z)}`}>
+                <Button variant="quiet" size="sm" onClick={() => onZ(a.z)}>
+                  <span className="sr-only">Try </span>
                   {a.line} → <span className="num">z = {formatRedshift(a.z)}</span>
                 </Button>
                 <span className="text-xs">tell-tale: {a.separator}</span>
@@ -47,7 +48,8 @@ export function PeaksPanel({ lineMatches, lines, zMin, zMax, picked, onPick, onZ
           <ul className="mt-1 flex flex-col gap-1">
             {matches.map((m) => (
               <li key={m.z}>
-                <Button variant="quiet" size="sm" onClick={() => onZ(m.z)} aria-label={`Try line pair z = ${formatRedshift(m.z)}`}>
+                <Button variant="quiet" size="sm" onClick={() => onZ(m.z)}>
+                  <span className="sr-only">Try line pair </span>
                   <span className="num">z = {formatRedshift(m.z)}</span>
                   <span className="text-xs text-ink-600">{m.lines.map((l) => l.name).join(' + ')}</span>
                 </Button>
@@ -67,9 +69,11 @@ export function PeaksPanel({ lineMatches, lines, zMin, zMax, picked, onPick, onZ
                 {picked === i ? (
                   <PeakLineChooser wavelength={p.wavelength} lines={emission} zMin={zMin} zMax={zMax} onCancel={() => onPick(null)} onZ={(z) => (onZ(z), onPick(null))} />
                 ) : (
-                  <Button variant="quiet" size="sm" onClick={() => onPick(i)} aria-label={`Peak at ${p.wavelength.toFixed(1)} Å: choose its line`}>
+                  <Button variant="quiet" size="sm" onClick={() => onPick(i)}>
+                    <span className="sr-only">Peak at </span>
                     <span className="num">{p.wavelength.toFixed(1)} Å</span>
                     <span className="text-xs text-ink-600">S/N {p.snr.toFixed(1)}</span>
+                    <span className="sr-only">: choose its line</span>
                   </Button>
                 )}
               </li>

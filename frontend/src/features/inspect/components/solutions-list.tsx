@@ -31,14 +31,18 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
             <button
               type="button"
               onClick={() => onSnap(i)}
-              aria-label={`Solution ${i + 1}: z = ${formatRedshift(s.z)}, ${cls}`}
               aria-current={current === i ? 'true' : undefined}
               className={`w-full rounded-control border px-2.5 py-1.5 text-left transition-colors ${
                 current === i ? 'border-ember-500 bg-ember-50' : 'border-paper-300 bg-paper-50 hover:bg-paper-200'
               }`}
             >
               <span className="flex flex-wrap items-baseline gap-x-3 gap-y-0.5">
-                <span className="num text-xs text-ink-500">{i + 1}</span>
+                {/* The name read out is the visible text with "Solution n:" in front (axe: label-content-name-mismatch). */}
+                <span className="num text-xs text-ink-500">
+                  <span className="sr-only">Solution </span>
+                  {i + 1}
+                  <span className="sr-only">:</span>
+                </span>
                 <span className="num font-medium text-ink-900">
                   z = {formatRedshift(s.z)} <span className="text-ink-500">± {formatRedshiftError(s.zErr)}</span>
                 </span>
