@@ -1,4 +1,6 @@
 import type { Grade } from '@contracts/grades';
+import { SPECTRUM_CLASSES } from '@contracts/readings';
+import type { SpectrumClass } from '@contracts/readings';
 import type { Disagreement, SettleRequest } from '@contracts/release';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
@@ -13,6 +15,9 @@ import { ReadingCard } from './reading-card';
 import { SettleForm } from './settle-form';
 import type { Suggestion } from './settle-form';
 import { TwoReadingsPlot } from './two-readings-plot';
+
+// The engine names classes like ours; anything it adds later settles as unknown rather than failing.
+const asClass = (c: string): SpectrumClass => ((SPECTRUM_CLASSES as readonly string[]).includes(c) ? (c as SpectrumClass) : 'unknown');
 
 const REASON_TEXT = { z: 'redshifts differ beyond the tolerance', grade: 'grades more than one step apart', class: 'classes differ' } as const;
 
@@ -64,7 +69,7 @@ export function DisagreementDetail({ disagreement: d, scheme, pending, error, on
       </div>
 
       <Panel title="Engine solutions" level={3}>
-        <EngineSolutions spectrumId={d.spectrumId} onUse={(z) => setSuggestion({ z, nonce: Date.now() })} />
+        <EngineSolutions spectrumId={d.spectrumId} onUse={(s) => setSuggestion({ z: s.z, cls: asClass(s.class), lines: s.lines.map((l) => l.name), nonce: Date.now() })} />
       </Panel>
 
       <Panel title="Settle" level={3}>

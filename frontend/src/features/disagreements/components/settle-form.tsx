@@ -10,6 +10,8 @@ import { CLASS_NAMES, CLASS_ORDER } from '@/lib/spectrum-class';
 
 export interface Suggestion {
   z: number;
+  cls: SpectrumClass;
+  lines: string[];
   /** Changes on every click, so choosing the same solution twice still fills the field again. */
   nonce: number;
 }
@@ -31,12 +33,12 @@ export function SettleForm({ scheme, defaults, suggestion, pending, error, onSet
   const [value, setValue] = useState({ z: '', zErr: '', grade: String(defaults.grade), cls: defaults.cls, lines: '' });
   const [problems, setProblems] = useState<Record<string, string>>({});
 
-  // An engine solution picked beside the form opens the value fields with its z.
+  // An engine solution picked beside the form opens the value fields with its z, class and lines.
   const [seen, setSeen] = useState(suggestion?.nonce);
   if (suggestion && suggestion.nonce !== seen) {
     setSeen(suggestion.nonce);
     setEntering(true);
-    setValue((v) => ({ ...v, z: suggestion.z.toFixed(5) }));
+    setValue((v) => ({ ...v, z: suggestion.z.toFixed(5), cls: suggestion.cls, lines: suggestion.lines.join(', ') }));
   }
 
   const submit = (body: Record<string, unknown>) => {

@@ -17,10 +17,11 @@ interface Props {
   nextId: number | null;
   nav: QueueNavigation;
   header: (detail: SpectrumDetail | undefined) => ReactNode;
+  aside?: (detail: SpectrumDetail) => ReactNode;
 }
 
 /** Loads what one spectrum needs (detail, arrays, χ² curves, line list) and opens the workspace. */
-export function InspectScreen({ spectrumId, nextId, nav, header }: Props) {
+export function InspectScreen({ spectrumId, nextId, nav, header, aside }: Props) {
   const detail = useSpectrumDetail(spectrumId);
   const data = useSpectrumData(spectrumId);
   const curves = useScanCurves(spectrumId);
@@ -44,7 +45,7 @@ export function InspectScreen({ spectrumId, nextId, nav, header }: Props) {
       </div>
     );
   }
-  return <InspectWorkspace key={spectrumId} detail={detail.data} arrays={data.data} curves={curves.data} lines={lines.data} nav={nav} header={header(detail.data)} />;
+  return <InspectWorkspace key={spectrumId} detail={detail.data} arrays={data.data} curves={curves.data} lines={lines.data} nav={nav} header={header(detail.data)} aside={aside?.(detail.data)} />;
 }
 
 function usePrefetchSpectrum(spectrumId: number | null) {

@@ -41,10 +41,12 @@ interface Props {
   lines: CombLine[];
   nav: QueueNavigation;
   header: ReactNode;
+  /** Extra context from other features, composed by the route (e.g. the confirmed value and its history). */
+  aside?: ReactNode;
 }
 
 /** One spectrum on the bench: plot and comb, solutions, close-ups, the reading and the context. Mounted per spectrum. */
-export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }: Props) {
+export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, aside }: Props) {
   const { campaign, scan } = detail;
   const solutions = useMemo(() => scan?.solutions ?? [], [scan]);
   const mine = detail.readings[0];
@@ -194,6 +196,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header }:
               <PeaksPanel lineMatches={scan.lineMatches} lines={lines} zMin={store.min} zMax={store.max} picked={pickedPeak} onPick={setPickedPeak} onZ={(v) => store.set(v)} />
             </Panel>
           ) : null}
+          {aside}
           <Panel title="Context">
             <ContextPanel detail={detail} arrays={arrays} />
           </Panel>

@@ -1,4 +1,5 @@
 import type { Reading } from '@contracts/readings';
+import type { ReactNode } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { useQueue } from '../api/get-queue';
 import { useSpectrumDetail } from '../api/get-spectrum-detail';
@@ -11,7 +12,7 @@ import { InspectScreen } from './inspect-screen';
  * One spectrum by id (from the spectra list or an image family). When it is in the reader's
  * unread queue, next/previous and "save and next" follow the queue.
  */
-export function SpectrumInspector({ spectrumId }: { spectrumId: number }) {
+export function SpectrumInspector({ spectrumId, aside }: { spectrumId: number; aside?: (detail: SpectrumDetail) => ReactNode }) {
   const detail = useSpectrumDetail(spectrumId);
   const navigate = useNavigate();
   const flash = useSavedFlash();
@@ -33,6 +34,7 @@ export function SpectrumInspector({ spectrumId }: { spectrumId: number }) {
     <InspectScreen
       spectrumId={spectrumId}
       nextId={nextId}
+      aside={aside}
       header={(d) => <InspectHeader detail={d} campaign={campaign} flash={flash} />}
       nav={{
         position: index >= 0 ? `${index + 1} of ${items.length} unread in your queue` : hasQueue ? 'Not in your unread queue' : 'Read-only view',
