@@ -64,6 +64,11 @@ export const createRouter = () =>
               lazy: () => import('./routes/campaign-confirmed').then((m) => ({ Component: m.CampaignConfirmedRoute })),
               hydrateFallbackElement: pageFallback,
             },
+            {
+              path: '/campaigns/:campaignId/families',
+              lazy: () => import('./routes/campaign-families').then((m) => ({ Component: m.CampaignFamiliesRoute })),
+              hydrateFallbackElement: pageFallback,
+            },
             { path: '/account', element: <AccountRoute /> },
             {
               path: '/admin',

@@ -27,9 +27,10 @@ export function CreateTokenForm({ onCreated }: { onCreated: (token: string, name
   );
 
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-end gap-3">
+    <form onSubmit={onSubmit} noValidate className="flex flex-wrap items-start gap-3">
       <TextField label="Token name" hint="Say where it is used, e.g. “nightly catalogue pull”." fieldClassName="min-w-64 flex-1" error={formState.errors.name?.message} {...register('name')} />
-      <Button type="submit" pending={create.isPending} pendingLabel="Creating…">
+      {/* Level with the input, not with its hint below. */}
+      <Button type="submit" className="mt-6" pending={create.isPending} pendingLabel="Creating…">
         Create token
       </Button>
       <div className="basis-full empty:hidden">
