@@ -1,12 +1,11 @@
 import { and, desc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEvents, readings } from '../../backend/src/db/schema';
-import { uploadAssignedSpectra } from '../helpers/assigned-spectra';
+import { signInDemoMembers, uploadAssignedSpectra, type Agent } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let t: TestApp;
 let spectrumIds: number[];
-type Agent = ReturnType<TestApp['agent']>;
 let reader1: Agent;
 let reader2: Agent;
 let lead: Agent;
@@ -15,10 +14,7 @@ let observer: Agent;
 beforeAll(async () => {
   t = await createTestApp({ SCAN_THREADS: '2' });
   spectrumIds = await uploadAssignedSpectra(t, 4, 'READ');
-  reader1 = await t.signIn('reader1@demo.test');
-  reader2 = await t.signIn('reader2@demo.test');
-  lead = await t.signIn('lead@demo.test');
-  observer = await t.signIn('observer@demo.test');
+  ({ reader1, reader2, lead, observer } = await signInDemoMembers(t));
 }, 60_000);
 afterAll(() => t.cleanup());
 

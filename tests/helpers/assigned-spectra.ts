@@ -34,3 +34,15 @@ export async function uploadAssignedSpectra(t: TestApp, count: number, prefix: s
   const leadAgent = await t.signIn('lead@demo.test');
   return ((await leadAgent.get(`/api/campaigns/1/spectra?q=${prefix}&pageSize=500&sort=fileName`)).body.rows as { id: number }[]).map((r) => r.id);
 }
+
+export type Agent = ReturnType<TestApp['agent']>;
+
+/** Signed-in clients for the four demo campaign members. */
+export async function signInDemoMembers(t: TestApp): Promise<{ reader1: Agent; reader2: Agent; lead: Agent; observer: Agent }> {
+  return {
+    reader1: await t.signIn('reader1@demo.test'),
+    reader2: await t.signIn('reader2@demo.test'),
+    lead: await t.signIn('lead@demo.test'),
+    observer: await t.signIn('observer@demo.test'),
+  };
+}
