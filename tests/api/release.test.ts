@@ -1,7 +1,7 @@
 import { desc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { confirmedRedshifts, mailMessages } from '../../backend/src/db/schema';
-import { signInDemoMembers, uploadAssignedSpectra, type Agent } from '../helpers/assigned-spectra';
+import { confirmedRedshifts, mailMessages, memberships } from '../../backend/src/db/schema';
+import { signInDemoMembers, uploadAssignedSpectra, userIdOf, type Agent } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
 let t: TestApp;
@@ -50,7 +50,10 @@ describe('disagreement and settlement', () => {
       ['first', 0.5],
       ['second', 2.1],
     ]);
-    expect((await reader1.get('/api/campaigns/1/disagreements')).status).toBe(403);
+    // Readers see only disagreements a lead handed to them: none here.
+    const forReader = await reader1.get('/api/campaigns/1/disagreements');
+    expect(forReader.status).toBe(200);
+    expect(forReader.body).toEqual([]);
     expect((await observer.get('/api/campaigns/1/disagreements')).status).toBe(403);
     const mail = t.ctx.db.select().from(mailMessages).orderBy(desc(mailMessages.id)).get()!;
     expect(mail.toAddress).toBe('lead@demo.test');
@@ -91,5 +94,34 @@ describe('disagreement and settlement', () => {
     const unconfirmed = await lead.post(`/api/spectra/${ids[2]}/corrections`).send({ z: 1, grade: 4, class: 'galaxy', reason: 'nothing to correct' });
     expect(unconfirmed.status).toBe(409);
     expect(unconfirmed.body.error.code).toBe('not_confirmed');
+  });
+});
+
+describe('a third reader', () => {
+  it('settles a disagreement the lead hands over, and only that one', async () => {
+    const id = ids[2]!;
+    await reader1.post(`/api/spectra/${id}/readings`).send({ z: 0.7, grade: 4, class: 'galaxy' });
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 0.7, grade: 4, class: 'quasar' });
+    const d = (await lead.get('/api/campaigns/1/disagreements')).body.find((x: { spectrumId: number }) => x.spectrumId === id);
+    expect(d.reasons).toEqual(['class']);
+
+    // The installation admin joins as a reader, so there is someone who made neither reading.
+    const adminId = userIdOf(t, 'admin@demo.test');
+    t.ctx.db.insert(memberships).values({ userId: adminId, campaignId: 1, role: 'reader' }).run();
+    expect((await lead.post(`/api/disagreements/${d.id}/delegate`).send({ readerId: userIdOf(t, 'reader1@demo.test') })).body.error.code).toBe('not_independent');
+    expect((await lead.post(`/api/disagreements/${d.id}/delegate`).send({ readerId: userIdOf(t, 'observer@demo.test') })).body.error.code).toBe('not_a_reader');
+    const delegated = await lead.post(`/api/disagreements/${d.id}/delegate`).send({ readerId: adminId });
+    expect(delegated.status).toBe(200);
+    const mail = t.ctx.db.select().from(mailMessages).orderBy(desc(mailMessages.id)).get()!;
+    expect(mail).toMatchObject({ toAddress: 'admin@demo.test', subject: 'A disagreement for you to settle' });
+
+    const third = await t.signIn('admin@demo.test');
+    const mine = (await third.get('/api/campaigns/1/disagreements')).body;
+    expect(mine.map((x: { id: number; delegatedTo: { name: string } }) => [x.id, x.delegatedTo.name])).toEqual([[d.id, 'Ada Demo (admin)']]);
+    expect((await reader2.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'second', reason: 'mine is right' })).status).toBe(403);
+    const settled = await third.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'first', reason: 'No broad lines: a galaxy.' });
+    expect(settled.status).toBe(200);
+    const history = (await lead.get(`/api/spectra/${id}/confirmed`)).body.history;
+    expect(history[0]).toMatchObject({ method: 'settlement', class: 'galaxy', z: 0.7, decidedBy: 'Ada Demo (admin)' });
   });
 });

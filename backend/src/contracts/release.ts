@@ -44,8 +44,12 @@ export const disagreementSchema = z.object({
   target: z.object({ id: z.number().int(), catalogueId: z.string(), imageFamily: z.string().nullable() }).nullable(),
   reasons: z.array(z.enum(['z', 'grade', 'class'])),
   readings: z.array(readingSchema),
+  /** The third reader asked to settle it, if any. */
+  delegatedTo: z.object({ id: z.number().int(), name: z.string() }).nullable(),
   openedAt: z.string(),
 });
+
+export const delegateRequestSchema = z.object({ readerId: z.number().int().positive() }).strict();
 export type Disagreement = z.infer<typeof disagreementSchema>;
 
 export const assignReadersRequestSchema = z.object({ readerIds: z.array(z.number().int().positive()).min(2, 'Choose at least two readers.').max(200) }).strict();

@@ -334,6 +334,8 @@ export const disagreements = sqliteTable(
     /** Which tests failed: 'z', 'grade', 'class'. */
     reasons: text('reasons', { mode: 'json' }).$type<string[]>().notNull(),
     state: text('state', { enum: ['open', 'settled', 'agreed-on-revision'] }).notNull().default('open'),
+    /** A third reader the lead asked to settle it (null: the lead settles). */
+    delegatedTo: integer('delegated_to').references(() => users.id),
     confirmedId: integer('confirmed_id').references(() => confirmedRedshifts.id),
     openedAt: createdAt(),
     closedAt: text('closed_at'),

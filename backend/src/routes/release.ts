@@ -1,12 +1,12 @@
 import { Router, type Request } from 'express';
-import { assignReadersRequestSchema, correctionRequestSchema, reassignRequestSchema, settleRequestSchema } from '../contracts/release';
+import { assignReadersRequestSchema, correctionRequestSchema, delegateRequestSchema, reassignRequestSchema, settleRequestSchema } from '../contracts/release';
 import { appUrl } from '../http/app-url';
 import { assignReaders, reassignReading } from '../services/assign-readers';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
 import { confirmedHistory, correctConfirmed } from '../services/correct-confirmed';
-import { disagreementCampaignId, listOpenDisagreements, settleDisagreement } from '../services/settle-disagreement';
+import { delegateDisagreement, disagreementCampaignId, listOpenDisagreements, settleDisagreement } from '../services/settle-disagreement';
 import { spectrumCampaignId } from '../services/spectrum-access';
 
 const spectrumId = (req: Request) => Number(req.params.spectrumId);
@@ -16,19 +16,28 @@ export function releaseRoutes(ctx: ServiceContext): Router {
   const router = Router();
   const ofSpectrum = (c: ServiceContext, req: Request) => spectrumCampaignId(c, spectrumId(req));
 
+  // Leads see every open disagreement; readers only those a lead delegated to them.
   defineRoute(ctx, router, {
     method: 'get',
     path: '/campaigns/:id/disagreements',
-    access: access.campaign('lead'),
-    handle: ({ campaign }) => listOpenDisagreements(ctx, campaign!.id),
+    access: access.campaign('lead', 'reader'),
+    handle: ({ user, campaign }) => listOpenDisagreements(ctx, campaign!.id, campaign!.role === 'lead' ? undefined : user!.id),
   });
 
   defineRoute(ctx, router, {
     method: 'post',
     path: '/disagreements/:disagreementId/settle',
-    access: access.campaignOf((c, req) => disagreementCampaignId(c, disagreementId(req)), 'lead'),
+    access: access.campaignOf((c, req) => disagreementCampaignId(c, disagreementId(req)), 'lead', 'reader'),
     body: settleRequestSchema,
-    handle: ({ req, user, body }) => settleDisagreement(ctx, user!, disagreementId(req), body),
+    handle: ({ req, user, campaign, body }) => settleDisagreement(ctx, user!, campaign!.role, disagreementId(req), body),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/disagreements/:disagreementId/delegate',
+    access: access.campaignOf((c, req) => disagreementCampaignId(c, disagreementId(req)), 'lead'),
+    body: delegateRequestSchema,
+    handle: ({ req, user, body }) => delegateDisagreement(ctx, user!, disagreementId(req), body.readerId, appUrl(ctx.config)),
   });
 
   defineRoute(ctx, router, {

@@ -1,7 +1,8 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { Disagreement, SettleRequest } from '../contracts/release';
-import { campaigns, confirmedRedshifts, disagreements, readings, spectra, targets, users } from '../db/schema';
-import { badRequest, conflict, notFound } from '../http/errors';
+import { campaigns, confirmedRedshifts, disagreements, memberships, readings, spectra, targets, users } from '../db/schema';
+import type { CampaignRole } from '../contracts/campaigns';
+import { badRequest, conflict, forbidden, notFound } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
 import { toReadingView } from './submit-reading';
@@ -12,16 +13,21 @@ export function disagreementCampaignId(ctx: ServiceContext, id: number): number 
   return row.campaignId;
 }
 
-/** Open disagreements of a campaign with both readings side by side (leads only: it unblinds). */
-export function listOpenDisagreements(ctx: ServiceContext, campaignId: number): Disagreement[] {
+/**
+ * Open disagreements of a campaign with both readings side by side. Leads see all of them;
+ * a third reader sees only those delegated to them (seeing both readings is their task).
+ */
+export function listOpenDisagreements(ctx: ServiceContext, campaignId: number, delegatedTo?: number): Disagreement[] {
   const rows = ctx.db
     .select({ d: disagreements, fileName: spectra.fileName, targetId: targets.id, catalogueId: targets.catalogueId, imageFamily: targets.imageFamily })
     .from(disagreements)
     .innerJoin(spectra, eq(spectra.id, disagreements.spectrumId))
     .leftJoin(targets, eq(targets.id, spectra.targetId))
-    .where(and(eq(disagreements.campaignId, campaignId), eq(disagreements.state, 'open')))
+    .where(and(eq(disagreements.campaignId, campaignId), eq(disagreements.state, 'open'), delegatedTo === undefined ? undefined : eq(disagreements.delegatedTo, delegatedTo)))
     .orderBy(asc(disagreements.openedAt))
     .all();
+  const delegateIds = rows.map((r) => r.d.delegatedTo).filter((id): id is number => id !== null);
+  const delegateNames = new Map(delegateIds.length ? ctx.db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, delegateIds)).all().map((u) => [u.id, u.name]) : []);
   const ids = rows.flatMap((r) => [r.d.firstReadingId, r.d.secondReadingId]);
   const readingRows = ids.length
     ? ctx.db.select({ reading: readings, name: users.name }).from(readings).innerJoin(users, eq(users.id, readings.readerId)).where(inArray(readings.id, ids)).all()
@@ -34,6 +40,7 @@ export function listOpenDisagreements(ctx: ServiceContext, campaignId: number): 
     target: r.targetId !== null && r.catalogueId !== null ? { id: r.targetId, catalogueId: r.catalogueId, imageFamily: r.imageFamily } : null,
     reasons: r.d.reasons as Disagreement['reasons'],
     readings: [byId.get(r.d.firstReadingId)!, byId.get(r.d.secondReadingId)!],
+    delegatedTo: r.d.delegatedTo === null ? null : { id: r.d.delegatedTo, name: delegateNames.get(r.d.delegatedTo) ?? '' },
     openedAt: r.d.openedAt,
   }));
 }
@@ -42,9 +49,10 @@ export function listOpenDisagreements(ctx: ServiceContext, campaignId: number): 
  * The lead's settlement: the confirmed redshift is one reading's value or a value the lead
  * enters, always with the reason; both readings are locked and the disagreement closed.
  */
-export function settleDisagreement(ctx: ServiceContext, actor: Actor, disagreementId: number, input: SettleRequest): { confirmedId: number } {
+export function settleDisagreement(ctx: ServiceContext, actor: Actor, role: CampaignRole | null, disagreementId: number, input: SettleRequest): { confirmedId: number } {
   return ctx.db.transaction((tx) => {
     const d = tx.select().from(disagreements).where(eq(disagreements.id, disagreementId)).get()!;
+    if (role !== 'lead' && d.delegatedTo !== actor.id) throw forbidden('Only a lead, or the third reader the lead chose, can settle this disagreement.');
     if (d.state !== 'open') throw conflict('This disagreement has already been settled.', 'disagreement_closed');
     const campaign = tx.select().from(campaigns).where(eq(campaigns.id, d.campaignId)).get()!;
     let value: { z: number; zErr: number | null; grade: number; spectrumClass: (typeof confirmedRedshifts.$inferInsert)['spectrumClass']; lines: string[] };
@@ -73,4 +81,37 @@ export function settleDisagreement(ctx: ServiceContext, actor: Actor, disagreeme
     });
     return { confirmedId: confirmed.id };
   });
+}
+
+/**
+ * Hands a disagreement to a third reader to settle: someone of the campaign who made neither
+ * reading. They are e-mailed; the lead can still settle it themselves.
+ */
+export async function delegateDisagreement(ctx: ServiceContext, actor: Actor, disagreementId: number, readerId: number, appUrl: string) {
+  const { campaignId, email, name } = ctx.db.transaction((tx) => {
+    const d = tx.select().from(disagreements).where(eq(disagreements.id, disagreementId)).get()!;
+    if (d.state !== 'open') throw conflict('This disagreement has already been settled.', 'disagreement_closed');
+    const member = tx
+      .select({ role: memberships.role, email: users.email, name: users.name })
+      .from(memberships)
+      .innerJoin(users, eq(users.id, memberships.userId))
+      .where(and(eq(memberships.campaignId, d.campaignId), eq(memberships.userId, readerId)))
+      .get();
+    if (!member || member.role === 'observer') throw badRequest('The third reader must be a reader or lead of this campaign.', 'not_a_reader');
+    const readerIds = tx.select({ readerId: readings.readerId }).from(readings).where(inArray(readings.id, [d.firstReadingId, d.secondReadingId])).all().map((r) => r.readerId);
+    if (readerIds.includes(readerId)) throw badRequest('A third reader must be someone who made neither reading.', 'not_independent');
+    tx.update(disagreements).set({ delegatedTo: readerId }).where(eq(disagreements.id, disagreementId)).run();
+    recordAudit(tx, { actorId: actor.id, action: 'disagreement.delegated', subjectType: 'disagreement', subjectId: disagreementId, campaignId: d.campaignId, after: { delegatedTo: readerId } });
+    return { campaignId: d.campaignId, email: member.email, name: member.name };
+  });
+  try {
+    await ctx.mailer.send({
+      to: email,
+      subject: 'A disagreement for you to settle',
+      text: `${actor.name} asks you to settle a disagreement between two readings as the third reader.\n\nOpen it here:\n${appUrl}/campaigns/${campaignId}/disagreements`,
+    });
+  } catch (err) {
+    ctx.logger.warn({ err, disagreementId }, 'third-reader e-mail could not be sent');
+  }
+  return { disagreementId, delegatedTo: { id: readerId, name } };
 }

@@ -1,0 +1,1 @@
+ALTER TABLE `disagreements` ADD `delegated_to` integer REFERENCES users(id);
