@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { Page } from '@/components/layout/page';
 import { buttonClass } from '@/components/ui/button';
 import { ConfirmedBrowser } from '@/features/confirmed/components/confirmed-browser';
+import { ReleasePictures } from '@/features/confirmed/components/release-pictures';
 import { CampaignEyebrow } from './campaign-link';
 import { WithCampaign } from './with-campaign';
 
@@ -24,6 +25,7 @@ function ConfirmedPage({ campaign }: { campaign: Campaign }) {
       }
     >
       <ConfirmedBrowser campaignId={campaign.id} scheme={campaign.gradeScheme} />
+      <ReleasePictures campaignId={campaign.id} scheme={campaign.gradeScheme} />
     </Page>
   );
 }

@@ -23,6 +23,8 @@ export const PLOT = {
   // The two readings of a disagreement, each comb in one colour (kinds told apart by dash).
   readingFirst: '#b7461b',
   readingSecond: '#2f5985',
+  // Reference lines in charts (z = photo-z), quieter than any data.
+  reference: '#b3b9cb',
   classes: {
     galaxy: '#b7461b',
     quasar: '#2f5985',
