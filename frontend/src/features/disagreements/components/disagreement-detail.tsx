@@ -13,6 +13,8 @@ import { useSpectrumData } from '@/lib/spectrum-data';
 import { EngineSolutions } from './engine-solutions';
 import { ReadingCard } from './reading-card';
 import { SettleForm } from './settle-form';
+import { ThirdReaderForm } from './third-reader-form';
+import type { ThirdReader } from './third-reader-form';
 import type { Suggestion } from './settle-form';
 import { TwoReadingsPlot } from './two-readings-plot';
 
@@ -22,6 +24,9 @@ const asClass = (c: string): SpectrumClass => ((SPECTRUM_CLASSES as readonly str
 const REASON_TEXT = { z: 'redshifts differ beyond the tolerance', grade: 'grades more than one step apart', class: 'classes differ' } as const;
 
 interface Props {
+  campaignId: number;
+  /** Given to leads only: who may be handed the decision. */
+  thirdReaders: ThirdReader[] | null;
   disagreement: Disagreement;
   scheme: Grade[];
   pending: boolean;
@@ -30,7 +35,7 @@ interface Props {
 }
 
 /** One open disagreement: both combs on the spectrum, both readings side by side, the engine, the decision. */
-export function DisagreementDetail({ disagreement: d, scheme, pending, error, onSettle }: Props) {
+export function DisagreementDetail({ campaignId, thirdReaders, disagreement: d, scheme, pending, error, onSettle }: Props) {
   const data = useSpectrumData(d.spectrumId);
   const lines = useLineList();
   const [suggestion, setSuggestion] = useState<Suggestion | null>(null);
@@ -83,6 +88,12 @@ export function DisagreementDetail({ disagreement: d, scheme, pending, error, on
           onSettle={onSettle}
         />
       </Panel>
+
+      {thirdReaders ? (
+        <Panel title="Or ask a third reader" level={3}>
+          <ThirdReaderForm key={d.id} campaignId={campaignId} disagreement={d} people={thirdReaders} />
+        </Panel>
+      ) : null}
     </div>
   );
 }

@@ -24,6 +24,7 @@ export function DisagreementList({ items, selectedId }: { items: Disagreement[];
                 <span className="text-xs text-ink-500">
                   {d.reasons.join(', ')} · opened {formatDateTime(d.openedAt)}
                 </span>
+                {d.delegatedTo ? <span className="text-xs text-blueend-700">with {d.delegatedTo.name}</span> : null}
               </Link>
             </li>
           );

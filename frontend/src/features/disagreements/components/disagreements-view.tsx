@@ -8,10 +8,13 @@ import { useDisagreements } from '../api/get-disagreements';
 import { useSettleDisagreement } from '../api/settle-disagreement';
 import { DisagreementDetail } from './disagreement-detail';
 import { DisagreementList } from './disagreement-list';
+import type { ThirdReader } from './third-reader-form';
 
 interface Props {
   campaignId: number;
   scheme: Grade[];
+  /** Leads get the people they may hand a disagreement to; a reader (the third reader) gets null. */
+  thirdReaders: ThirdReader[] | null;
   /** Refreshes what other features show after a settlement (confirmed table, counts). */
   onSettled?: () => void;
 }
@@ -23,7 +26,7 @@ interface Settled {
 }
 
 /** The list of open disagreements beside the one being settled (chosen in the URL, else the first). */
-export function DisagreementsView({ campaignId, scheme, onSettled }: Props) {
+export function DisagreementsView({ campaignId, scheme, thirdReaders, onSettled }: Props) {
   const list = useDisagreements(campaignId);
   const [params, setParams] = useSearchParams();
   const settle = useSettleDisagreement(campaignId, onSettled);
@@ -64,6 +67,8 @@ export function DisagreementsView({ campaignId, scheme, onSettled }: Props) {
         <DisagreementList items={items} selectedId={selected.id} />
         <DisagreementDetail
           key={selected.id}
+          campaignId={campaignId}
+          thirdReaders={thirdReaders}
           disagreement={selected}
           scheme={scheme}
           pending={settle.isPending}
