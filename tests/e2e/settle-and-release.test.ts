@@ -60,6 +60,9 @@ it('two readers disagree; the lead sees both combs, settles, and the confirmed t
   await page.goto(`${server.url}/campaigns/1/confirmed`);
   const table = page.getByRole('table', { name: 'Confirmed redshifts' });
   await expect.poll(() => table.textContent(), { timeout: 15_000 }).toContain('0.52000');
+  // Reader agreement is reported from the same records: one pair, read both, agreed on none.
+  const agreement = page.getByRole('table', { name: 'Agreement between readers' });
+  await expect.poll(() => agreement.textContent(), { timeout: 15_000 }).toMatch(/Rafael Demo \(reader 1\) and Rosa Demo \(reader 2\)\s*1\s*0 %/);
   const download = page.waitForEvent('download');
   await page.getByRole('link', { name: 'Download CSV' }).click();
   const file = await download;

@@ -110,3 +110,17 @@ export const confirmedPageSchema = z.object({
   }),
 });
 export type ConfirmedPage = z.infer<typeof confirmedPageSchema>;
+
+export const campaignStatisticsSchema = z.object({
+  photoZ: z.object({
+    threshold: z.number(),
+    n: z.number().int(),
+    outlierFraction: z.number().nullable(),
+    sigmaNmad: z.number().nullable(),
+    points: z.array(z.object({ spectrumId: z.number().int(), targetId: z.string().nullable(), zSpec: z.number(), zPhot: z.number(), outlier: z.boolean() })),
+  }),
+  gradeDistribution: z.array(z.object({ code: z.number().int(), label: z.string(), count: z.number().int() })),
+  readerPairs: z.array(z.object({ readers: z.tuple([z.string(), z.string()]), n: z.number().int(), agreeFraction: z.number(), kappaOnGrades: z.number().nullable() })),
+  readingTime: z.array(z.object({ reader: z.string(), readings: z.number().int(), medianMs: z.number().nullable() })),
+});
+export type CampaignStatistics = z.infer<typeof campaignStatisticsSchema>;

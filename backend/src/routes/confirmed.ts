@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { confirmedQuerySchema } from '../contracts/release';
+import { campaignStatisticsSchema, confirmedQuerySchema } from '../contracts/release';
 import { familyTable, familyTableCsv, toCsv, toEcsv, toFitsTable, toVotable } from '../exports';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
@@ -69,6 +69,7 @@ export function confirmedRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns/:id/statistics',
     access: access.campaignViewer,
+    response: campaignStatisticsSchema,
     handle: ({ campaign }) => campaignStatistics(ctx, campaign!.id),
   });
 

@@ -5,6 +5,7 @@ import { Panel } from '@/components/ui/panel';
 import { useAllConfirmed } from '../api/get-all-confirmed';
 import { GradeDistribution } from './pictures/grade-distribution';
 import { PhotoZScatter } from './pictures/photo-z-scatter';
+import { ReaderAgreement } from './pictures/reader-agreement';
 
 /** Pictures of the whole release (not of the filtered page), drawn from the confirmed table itself. */
 export function ReleasePictures({ campaignId, scheme }: { campaignId: number; scheme: Grade[] }) {
@@ -21,6 +22,7 @@ export function ReleasePictures({ campaignId, scheme }: { campaignId: number; sc
         <div className="grid grid-cols-1 gap-5 lg:grid-cols-2">
           <PhotoZScatter rows={all.data} />
           <GradeDistribution rows={all.data} scheme={scheme} />
+          <ReaderAgreement campaignId={campaignId} />
         </div>
       )}
     </Panel>
