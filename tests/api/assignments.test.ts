@@ -56,6 +56,10 @@ describe('assignment by the lead', () => {
     const done = await lead.put(`/api/spectra/${item.id}/assignments`).send({ readingOrder: item.readingOrder, readerId: userIdOf(t, 'reader2@demo.test') });
     expect(done.status).toBe(409);
     expect(done.body.error.code).toBe('already_read');
+    const listed = (await lead.get(`/api/spectra/${item.id}/assignments`)).body;
+    expect(listed.assignments.find((a: { readingOrder: string }) => a.readingOrder === item.readingOrder)).toMatchObject({ name: 'Rafael Demo (reader 1)', read: true });
+    expect(listed.candidates.map((c: { role: string }) => c.role).sort()).toEqual(['lead', 'reader', 'reader']);
+    expect((await reader1.get(`/api/spectra/${item.id}/assignments`)).status).toBe(403);
     const next = queue[1]!;
     const moved = await lead.put(`/api/spectra/${next.id}/assignments`).send({ readingOrder: next.readingOrder, readerId: userIdOf(t, 'observer@demo.test') });
     expect(moved.status).toBe(400);

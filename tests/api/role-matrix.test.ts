@@ -79,6 +79,7 @@ const CASES: Case[] = [
   { method: 'post', route: '/spectra/:spectrumId/corrections', url: '/api/spectra/999/corrections', body: () => ({ z: 1, grade: 4, class: 'galaxy', reason: 'test' }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/confirmed', url: '/api/spectra/999/confirmed', expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/campaigns/:id/assignments', url: '/api/campaigns/1/assignments', body: () => ({ readerIds: [3, 4] }), expect: leadOnly(200) },
+  { method: 'get', route: '/spectra/:spectrumId/assignments', url: '/api/spectra/999/assignments', expect: { ...all(404), anonymous: 401 } },
   { method: 'put', route: '/spectra/:spectrumId/assignments', url: '/api/spectra/999/assignments', body: () => ({ readingOrder: 'first', readerId: 3 }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/account/tokens', url: '/api/account/tokens', expect: signedIn(200) },
   { method: 'post', route: '/account/tokens', url: '/api/account/tokens', body: () => ({ name: 'matrix' }), expect: signedIn(201) },

@@ -124,3 +124,11 @@ export const campaignStatisticsSchema = z.object({
   readingTime: z.array(z.object({ reader: z.string(), readings: z.number().int(), medianMs: z.number().nullable() })),
 });
 export type CampaignStatistics = z.infer<typeof campaignStatisticsSchema>;
+
+export const spectrumAssignmentsSchema = z.object({
+  assignments: z.array(z.object({ readingOrder: z.enum(['first', 'second']), readerId: z.number().int(), name: z.string(), read: z.boolean() })),
+  /** Campaign members who may read (readers and leads). */
+  candidates: z.array(z.object({ id: z.number().int(), name: z.string(), role: z.enum(['lead', 'reader']) })),
+});
+export type SpectrumAssignments = z.infer<typeof spectrumAssignmentsSchema>;
+export const reassignResponseSchema = z.object({ spectrumId: z.number().int(), readingOrder: z.enum(['first', 'second']), readerId: z.number().int() });

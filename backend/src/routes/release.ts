@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
-import { assignReadersRequestSchema, correctionRequestSchema, delegateRequestSchema, reassignRequestSchema, settleRequestSchema } from '../contracts/release';
+import { assignReadersRequestSchema, correctionRequestSchema, delegateRequestSchema, reassignRequestSchema, settleRequestSchema, spectrumAssignmentsSchema } from '../contracts/release';
 import { appUrl } from '../http/app-url';
-import { assignReaders, reassignReading } from '../services/assign-readers';
+import { assignReaders, reassignReading, spectrumAssignments } from '../services/assign-readers';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -61,6 +61,14 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     access: access.campaign('lead'),
     body: assignReadersRequestSchema,
     handle: ({ user, campaign, body }) => assignReaders(ctx, user!, campaign!.id, body.readerIds, appUrl(ctx.config)),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId/assignments',
+    access: access.campaignOf(ofSpectrum, 'lead'),
+    response: spectrumAssignmentsSchema,
+    handle: ({ req }) => spectrumAssignments(ctx, spectrumId(req)),
   });
 
   defineRoute(ctx, router, {

@@ -111,3 +111,26 @@ export function reassignReading(ctx: ServiceContext, actor: Actor, spectrumId: n
     return { spectrumId, readingOrder, readerId };
   });
 }
+
+/** Who reads a spectrum (first and second), whether they have read it, and who else could. */
+export function spectrumAssignments(ctx: ServiceContext, spectrumId: number) {
+  const spectrum = ctx.db.select({ campaignId: spectra.campaignId }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
+  const rows = ctx.db
+    .select({ readingOrder: assignments.readingOrder, readerId: assignments.readerId, name: users.name })
+    .from(assignments)
+    .innerJoin(users, eq(users.id, assignments.readerId))
+    .where(eq(assignments.spectrumId, spectrumId))
+    .all();
+  const readBy = new Set(ctx.db.select({ readerId: readings.readerId }).from(readings).where(eq(readings.spectrumId, spectrumId)).all().map((r) => r.readerId));
+  const candidates = ctx.db
+    .select({ id: users.id, name: users.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.campaignId, spectrum.campaignId), inArray(memberships.role, ['lead', 'reader']), eq(users.disabled, false)))
+    .all()
+    .map((c) => ({ id: c.id, name: c.name, role: c.role as 'lead' | 'reader' }));
+  return {
+    assignments: rows.sort((a, b) => a.readingOrder.localeCompare(b.readingOrder)).map((r) => ({ ...r, read: readBy.has(r.readerId) })),
+    candidates,
+  };
+}

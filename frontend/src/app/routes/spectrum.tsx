@@ -1,5 +1,6 @@
 import { useParams } from 'react-router-dom';
 import { Panel } from '@/components/ui/panel';
+import { SpectrumAssignments } from '@/features/assignments/components/spectrum-assignments';
 import { ReleasedValue } from '@/features/confirmed/components/released-value';
 import { SpectrumInspector } from '@/features/inspect/components/spectrum-inspector';
 import type { SpectrumDetail } from '@/features/inspect/api/schemas';
@@ -14,7 +15,14 @@ export function SpectrumRoute() {
 
 // The released value belongs to the release feature; the route puts it beside the inspection context.
 const releasedValue = (d: SpectrumDetail) => (
-  <Panel title="Confirmed redshift">
-    <ReleasedValue spectrumId={d.spectrum.id} isLead={d.campaign.myRole === 'lead'} scheme={d.campaign.gradeScheme} />
-  </Panel>
+  <>
+    <Panel title="Confirmed redshift">
+      <ReleasedValue spectrumId={d.spectrum.id} isLead={d.campaign.myRole === 'lead'} scheme={d.campaign.gradeScheme} />
+    </Panel>
+    {d.campaign.myRole === 'lead' ? (
+      <Panel title="Readers">
+        <SpectrumAssignments spectrumId={d.spectrum.id} />
+      </Panel>
+    ) : null}
+  </>
 );

@@ -1,5 +1,6 @@
-/** Assignment has no list of its own to cache; the key names the mutation for devtools and tests. */
+/** Keys for a spectrum's assignments and for the campaign-wide assignment mutation. */
 export const assignmentKeys = {
   all: () => ['assignments'] as const,
   assign: (campaignId: number) => [...assignmentKeys.all(), 'assign', campaignId] as const,
+  spectrum: (spectrumId: number) => [...assignmentKeys.all(), 'spectrum', spectrumId] as const,
 };
