@@ -44,6 +44,9 @@ it('a reader drags the comb, snaps to the top solution and saves a graded readin
   const spectrumId: number = queue[0].id;
   const currentId = () => Number(new URL(page.url()).searchParams.get('spectrum') ?? spectrumId);
 
+  // The best-fit template of the top solution is drawn over the data (its legend entry appears with it).
+  await expect.poll(() => page.getByRole('list', { name: 'Plot legend' }).textContent(), { timeout: 15_000 }).toContain('template of the solution');
+
   // Drag across the plotting area with the comb tool: the trial redshift follows.
   const before = await trialZ.inputValue();
   const area = await plot.locator('.u-over').first().boundingBox();

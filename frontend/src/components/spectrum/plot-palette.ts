@@ -18,6 +18,8 @@ export const PLOT = {
   bandLine: '#37415d',
   break: '#0d1322',
   peak: '#2c623d',
+  // The best-fit template of a solution: green, apart from the flux's ink and the combs' ember/blue.
+  model: '#2c8a52',
   cursor: '#d4592a',
   solution: '#37415d',
   // The two readings of a disagreement, each comb in one colour (kinds told apart by dash).

@@ -171,6 +171,7 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
           { label: 'flux + 1σ', stroke: 'transparent', points: { show: false }, gaps: maskGaps },
           { label: 'sky', stroke: PLOT.sky, width: 1, points: { show: false }, show: display.source.sky !== null },
           { label: 'flux', stroke: PLOT.flux, width: 1, points: { show: false }, gaps: maskGaps },
+          { label: 'model', stroke: PLOT.model, width: 1.5, points: { show: false }, show: display.hasModel },
         ],
         bands: [{ series: [2, 1], fill: PLOT.errorBand }],
         axes: [
@@ -220,6 +221,7 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
     live.current.display = display;
     if (!sameSpectrum) live.current.masks = maskRuns(display.source.wavelength, display.source.mask);
     u.setSeries(3, { show: display.source.sky !== null });
+    u.setSeries(5, { show: display.hasModel });
     if (sameSpectrum) {
       const [min, max] = xWindow(u);
       u.setData(toData(display), false);
@@ -273,7 +275,7 @@ const xWindow = (u: uPlot): [number, number] => {
 
 const axisLabel = (rest: boolean) => (rest ? 'Rest-frame wavelength at the trial z (Å, vacuum)' : 'Observed wavelength (Å, vacuum)');
 
-const toData = (d: DisplayArrays): uPlot.AlignedData => [d.source.wavelength, d.bandLow, d.bandHigh, d.sky, d.flux];
+const toData = (d: DisplayArrays): uPlot.AlignedData => [d.source.wavelength, d.bandLow, d.bandHigh, d.sky, d.flux, d.model];
 
 type Live = { current: { tool: PlotTool; peaks: Array<{ wavelength: number }>; onPeak: (index: number) => void; display: DisplayArrays } };
 

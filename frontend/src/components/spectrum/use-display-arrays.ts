@@ -10,6 +10,9 @@ export interface DisplayArrays {
   bandLow: Float32Array;
   bandHigh: Float32Array;
   sky: Float32Array;
+  /** Best-fit model of a solution, or all NaN (hidden) when none is shown. */
+  model: Float32Array;
+  hasModel: boolean;
 }
 
 /**
@@ -17,7 +20,7 @@ export interface DisplayArrays {
  * never altered. The band follows the raw 1σ error around the shown flux; where the error is
  * unknown the band closes onto the flux rather than inventing a width.
  */
-export function useDisplayArrays(arrays: SpectrumArrays, smoothing: Smoothing): DisplayArrays {
+export function useDisplayArrays(arrays: SpectrumArrays, smoothing: Smoothing, solutionModel: Float32Array | null = null): DisplayArrays {
   const flux = useMemo(() => smoothFlux(arrays.flux, arrays.mask, smoothing), [arrays, smoothing]);
   const band = useMemo(() => {
     const n = flux.length;
@@ -34,5 +37,10 @@ export function useDisplayArrays(arrays: SpectrumArrays, smoothing: Smoothing): 
   }, [arrays, flux]);
   // uPlot wants every series the same length; a spectrum without sky gets an empty (NaN) one, hidden.
   const sky = useMemo(() => arrays.sky ?? new Float32Array(arrays.pixels).fill(Number.NaN), [arrays]);
-  return useMemo(() => ({ source: arrays, flux, bandLow: band.lo, bandHigh: band.hi, sky }), [arrays, flux, band, sky]);
+  const usableModel = solutionModel !== null && solutionModel.length === arrays.pixels ? solutionModel : null;
+  const model = useMemo(() => usableModel ?? new Float32Array(arrays.pixels).fill(Number.NaN), [arrays, usableModel]);
+  return useMemo(
+    () => ({ source: arrays, flux, bandLow: band.lo, bandHigh: band.hi, sky, model, hasModel: usableModel !== null }),
+    [arrays, flux, band, sky, model, usableModel],
+  );
 }

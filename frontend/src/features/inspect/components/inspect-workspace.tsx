@@ -4,7 +4,9 @@ import type { ReactNode } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { Panel } from '@/components/ui/panel';
 import type { CombLine, SpectrumDetail } from '../api/schemas';
+import { PLOT } from '@/components/spectrum/plot-palette';
 import { useDisplayArrays } from '@/components/spectrum/use-display-arrays';
+import { useSolutionModel } from '../api/get-solution-model';
 import { useInspectKeys } from '../hooks/use-inspect-keys';
 import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
@@ -63,7 +65,11 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
   const controls = useRef<PlotControls>(null);
   const zInput = useRef<HTMLInputElement>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
-  const display = useDisplayArrays(arrays, smoothing);
+  // The template of the solution last snapped to (the top one at first) is drawn over the data.
+  const [modelRank, setModelRank] = useState<number | null>(solutions.length > 0 ? 1 : null);
+  const [showModel, setShowModel] = useState(true);
+  const model = useSolutionModel(detail.spectrum.id, showModel ? modelRank : null);
+  const display = useDisplayArrays(arrays, smoothing, showModel ? (model.data ?? null) : null);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
@@ -81,6 +87,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
     const s = solutions[i];
     if (!s) return;
     store.set(s.z);
+    setModelRank(i + 1);
     setDraft((d) => ({ ...d, cls: asSpectrumClass(s.class), excluded: new Set(), added: new Set() }));
   };
   const setSmoothingKind = (s: Smoothing) => {
@@ -160,7 +167,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
               controls={controls}
               describedBy="plot-help"
             />
-            <Legend hasSky={arrays.sky !== null} />
+            <Legend hasSky={arrays.sky !== null} hasModel={display.hasModel} />
             {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
           </section>
           <Panel>
@@ -171,7 +178,11 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
         <div className="flex min-w-0 flex-col gap-3">
           <Panel title="Solutions">
             <SolutionsList solutions={solutions} store={store} target={detail.target} onSnap={snap} />
-            <p className="mt-2 text-xs text-ink-500">Template overlay of a solution: not yet available from the server.</p>
+            <label className="mt-2 flex items-center gap-2 text-sm text-ink-700">
+              <input type="checkbox" checked={showModel} onChange={(e) => setShowModel(e.target.checked)} />
+              Draw the template of solution {modelRank ?? '—'} over the data
+            </label>
+            {showModel && model.isError ? <p className="text-xs text-warning-700">{model.error.message}</p> : null}
           </Panel>
           <Panel title="Reading">
             {canRead ? (
@@ -207,7 +218,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
   );
 }
 
-function Legend({ hasSky }: { hasSky: boolean }) {
+function Legend({ hasSky, hasModel }: { hasSky: boolean; hasModel: boolean }) {
   const item = 'inline-flex items-center gap-1.5';
   return (
     <ul aria-label="Plot legend" className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600">
@@ -220,6 +231,11 @@ function Legend({ hasSky }: { hasSky: boolean }) {
       {hasSky ? (
         <li className={item}>
           <span aria-hidden="true" className="inline-block h-0.5 w-4 bg-ink-400" /> sky
+        </li>
+      ) : null}
+      {hasModel ? (
+        <li className={item}>
+          <span aria-hidden="true" className="inline-block h-0.5 w-4" style={{ background: PLOT.model }} /> template of the solution
         </li>
       ) : null}
       <li className={item}>
