@@ -1,9 +1,6 @@
 import type { SpectrumClass } from '@contracts/readings';
 
-/**
- * Class names as readers say them, for the release pages (settlement, confirmed table). The
- * inspection and spectra features still hold their own older copies with the same wording.
- */
+/** Class names as readers say them; the API's keys stay in URLs and exports. One list for every page. */
 export const CLASS_NAMES: Record<SpectrumClass, string> = {
   galaxy: 'galaxy',
   quasar: 'quasar / AGN',
@@ -14,4 +11,8 @@ export const CLASS_NAMES: Record<SpectrumClass, string> = {
 
 export const CLASS_ORDER: SpectrumClass[] = ['galaxy', 'quasar', 'star', 'lyman-break', 'unknown'];
 
-export const className = (c: string) => (c in CLASS_NAMES ? CLASS_NAMES[c as SpectrumClass] : c);
+export const isSpectrumClass = (c: string | null | undefined): c is SpectrumClass => typeof c === 'string' && c in CLASS_NAMES;
+
+export const asSpectrumClass = (c: string | null | undefined): SpectrumClass => (isSpectrumClass(c) ? c : 'unknown');
+
+export const className = (c: string) => (isSpectrumClass(c) ? CLASS_NAMES[c] : c);

@@ -4,7 +4,7 @@ import type { Solution } from '../api/schemas';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
 import { PLOT } from '@/components/spectrum/plot-palette';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
-import { CLASS_NAMES } from './class-names';
+import { CLASS_NAMES } from '@/lib/spectrum-class';
 import { createOverlayCanvas } from '@/components/spectrum/overlay-canvas';
 
 const HEIGHT = 170;

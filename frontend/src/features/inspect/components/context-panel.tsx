@@ -4,7 +4,7 @@ import { formatDate, formatDegrees, formatRedshift } from '@/lib/format';
 import type { SpectrumDetail } from '../api/schemas';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatDec, formatRa } from '../utils/sky-position';
-import { CLASS_NAMES } from './class-names';
+import { CLASS_NAMES } from '@/lib/spectrum-class';
 
 function Facts({ label, children }: { label: string; children: ReactNode }) {
   return (

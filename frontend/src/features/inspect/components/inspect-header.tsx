@@ -3,7 +3,7 @@ import { Notice } from '@/components/ui/notice';
 import { formatRedshift } from '@/lib/format';
 import type { SpectrumDetail } from '../api/schemas';
 import type { SavedFlash } from '../hooks/use-saved-flash';
-import { CLASS_NAMES } from './class-names';
+import { CLASS_NAMES } from '@/lib/spectrum-class';
 
 /** Page heading of the inspection screen: campaign, target or file, and the reading just saved. */
 export function InspectHeader({ detail, campaign, flash }: { detail: SpectrumDetail | undefined; campaign: { id: number; name: string } | null; flash: SavedFlash['saved'] | null }) {

@@ -16,7 +16,7 @@ import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import type { Smoothing } from '@/components/spectrum/smooth';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { Chi2Strip } from './chi2-strip';
-import { asSpectrumClass } from './class-names';
+import { asSpectrumClass } from '@/lib/spectrum-class';
 import { ContextPanel } from './context-panel';
 import { FeaturePanels } from './feature-panels';
 import { KeyHelp } from './key-help';

@@ -8,7 +8,7 @@ import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
 import { useTrialZ, useTrialZDerived } from '../hooks/use-trial-z';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
-import { CLASS_NAMES, CLASS_ORDER } from './class-names';
+import { CLASS_NAMES, CLASS_ORDER } from '@/lib/spectrum-class';
 
 interface Props {
   store: TrialZStore;

@@ -4,7 +4,7 @@ import type { DetailTarget, Solution } from '../api/schemas';
 import { useTrialZDerived } from '../hooks/use-trial-z';
 import { photoZAgreement } from '../utils/photo-z';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
-import { asSpectrumClass, CLASS_NAMES } from './class-names';
+import { asSpectrumClass, CLASS_NAMES } from '@/lib/spectrum-class';
 
 interface Props {
   solutions: Solution[];

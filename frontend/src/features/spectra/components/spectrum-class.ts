@@ -1,14 +1,10 @@
-/** Class names as readers say them; the API's keys stay in URLs and exports. */
-export const CLASS_LABELS = {
-  galaxy: 'galaxy',
-  quasar: 'quasar / AGN',
-  star: 'star',
-  'lyman-break': 'Lyman-break source',
-  unknown: 'unknown',
-} as const;
+import type { SpectrumClass } from '@contracts/readings';
+import { CLASS_NAMES } from '@/lib/spectrum-class';
 
-export type SpectrumClass = keyof typeof CLASS_LABELS;
+export { isSpectrumClass } from '@/lib/spectrum-class';
+export type { SpectrumClass };
 
-export const CLASS_TONES = { galaxy: 'ember', quasar: 'blue', star: 'ink', 'lyman-break': 'success', unknown: 'ink' } as const;
+export const CLASS_LABELS = CLASS_NAMES;
 
-export const isSpectrumClass = (c: string | null): c is SpectrumClass => c !== null && c in CLASS_LABELS;
+export const CLASS_TONES: Record<SpectrumClass, 'ember' | 'blue' | 'ink' | 'success'> = { galaxy: 'ember', quasar: 'blue', star: 'ink', 'lyman-break': 'success', unknown: 'ink' };
+
