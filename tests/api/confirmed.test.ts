@@ -35,6 +35,8 @@ describe('the confirmed table', () => {
     expect(res.body.rows[0].z).toBeCloseTo(1.0005, 10);
     expect(res.body.rows[0].readers).toEqual(['Rafael Demo (reader 1)', 'Rosa Demo (reader 2)']);
     expect(res.body.states).toEqual({ unread: 0, 'one reading': 1, agreed: 1, disagreement: 1, settled: 0 });
+    expect((await observer.get('/api/campaigns/1/confirmed?confirmedBy=agreement')).body.total).toBe(1);
+    expect((await observer.get('/api/campaigns/1/confirmed?confirmedBy=settlement')).body.total).toBe(0);
     expect(res.body.assumptions).toMatchObject({ wavelengths: 'vacuum', tolerance: 0.003, cosmology: { h0: 67.4, omegaM: 0.315, flat: true } });
   });
 

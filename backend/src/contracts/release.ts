@@ -69,6 +69,8 @@ export const confirmedQuerySchema = z.object({
   grade: z.coerce.number().int().optional(),
   class: spectrumClassSchema.optional(),
   family: z.string().trim().max(80).optional(),
+  /** How the value was confirmed: agreed by two readers, settled, or corrected after release. */
+  confirmedBy: z.enum(['agreement', 'settlement', 'correction']).optional(),
 });
 export type ConfirmedQuery = z.input<typeof confirmedQuerySchema>;
 

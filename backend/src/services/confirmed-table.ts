@@ -9,19 +9,21 @@ import { ENGINE_VERSION } from '../spectra/version';
 import type { ServiceContext } from './context';
 
 type Query = z.output<typeof confirmedQuerySchema>;
+type Filters = Partial<Pick<Query, 'grade' | 'class' | 'family' | 'confirmedBy'>>;
 
 export const EXPORT_COSMOLOGY = { name: 'Planck 2018 (A&A 641, A6) abstract values, flat ΛCDM without radiation', h0: PLANCK18.h0, omegaM: PLANCK18.omegaM, omegaLambda: 1 - PLANCK18.omegaM, flat: true as const };
 
-function filtersFor(campaignId: number, query: Pick<Query, 'grade' | 'class' | 'family'>): SQL {
+function filtersFor(campaignId: number, query: Filters): SQL {
   const f: SQL[] = [eq(spectra.campaignId, campaignId), eq(confirmedRedshifts.isCurrent, true)];
   if (query.grade !== undefined) f.push(eq(confirmedRedshifts.grade, query.grade));
   if (query.class) f.push(eq(confirmedRedshifts.spectrumClass, query.class));
   if (query.family) f.push(eq(targets.imageFamily, query.family));
+  if (query.confirmedBy) f.push(eq(confirmedRedshifts.method, query.confirmedBy));
   return and(...f)!;
 }
 
 /** The current confirmed redshifts of a campaign as export rows, in target order. */
-export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Pick<Query, 'grade' | 'class' | 'family'>, page?: { limit: number; offset: number }): { rows: ConfirmedRow[]; total: number } {
+export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Filters, page?: { limit: number; offset: number }): { rows: ConfirmedRow[]; total: number } {
   const campaign = ctx.db.select({ gradeScheme: campaigns.gradeScheme }).from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
   const where = filtersFor(campaignId, query);
   const base = ctx.db

@@ -30,6 +30,16 @@ export function ConfirmedFiltersBar({ query, onChange, scheme, families }: Props
           </option>
         ))}
       </SelectField>
+      <SelectField
+        label="How confirmed"
+        value={query.confirmedBy ?? ''}
+        onChange={(e) => onChange({ confirmedBy: (e.target.value || undefined) as ConfirmedFilters['confirmedBy'] })}
+      >
+        <option value="">agreed, settled or corrected</option>
+        <option value="agreement">two readers agreed</option>
+        <option value="settlement">settled</option>
+        <option value="correction">corrected after release</option>
+      </SelectField>
       <SelectField label="Image family" value={query.family ?? ''} onChange={(e) => onChange({ family: e.target.value || undefined })}>
         <option value="">any family or none</option>
         {families.map((f) => (

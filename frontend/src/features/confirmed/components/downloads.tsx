@@ -14,7 +14,7 @@ const FORMATS = [
  * without passing through JavaScript. The current filters apply; paging does not.
  */
 export function Downloads({ campaignId, query }: { campaignId: number; query: ConfirmedFilters }) {
-  const filters = { grade: query.grade, class: query.class, family: query.family };
+  const filters = { grade: query.grade, class: query.class, family: query.family, confirmedBy: query.confirmedBy };
   return (
     <ul aria-label="Downloads" className="flex flex-wrap gap-2">
       {FORMATS.map((f) => (

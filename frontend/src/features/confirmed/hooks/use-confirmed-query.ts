@@ -9,10 +9,11 @@ const filtersSchema = z.object({
   grade: z.coerce.number().int().optional().catch(undefined),
   class: z.enum(SPECTRUM_CLASSES).optional().catch(undefined),
   family: z.string().trim().max(80).optional().catch(undefined),
+  confirmedBy: z.enum(['agreement', 'settlement', 'correction']).optional().catch(undefined),
 });
 export type ConfirmedFilters = z.output<typeof filtersSchema>;
 
-const KEYS = ['page', 'pageSize', 'grade', 'class', 'family'] as const;
+const KEYS = ['page', 'pageSize', 'grade', 'class', 'family', 'confirmedBy'] as const;
 const DEFAULTS: Partial<Record<(typeof KEYS)[number], unknown>> = { page: 1, pageSize: 50 };
 
 export function useConfirmedQuery() {
