@@ -35,11 +35,13 @@ export async function createRedward(config: Config, now: () => Date = () => new 
   const smtpUrl = mailCatcher && config.mailCatcher.port === 0 ? `smtp://127.0.0.1:${mailCatcher.port}` : config.smtpUrl;
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
   const store = new BlobStore(config.uploadsDir);
-  const ctx: ServiceContext = { config, db, mailer, logger, now, store, wakeJobRunner: () => {} };
+  const pool = createScanPool(config.jobs.scanThreads);
+  const ctx: ServiceContext = { config, db, mailer, logger, now, store, scanPool: pool, wakeJobRunner: () => {} };
   const seeded = config.demo ? await seedDemoIfEmpty(ctx) : false;
-  let stopJobs = async () => {};
+  let stopJobs = async () => {
+    await pool.destroy();
+  };
   if (config.jobs.runner) {
-    const pool = createScanPool(config.jobs.scanThreads);
     const runner = new JobRunner(ctx, store, pool, { leaseMs: config.jobs.leaseMs });
     ctx.wakeJobRunner = () => runner.wake();
     runner.start();

@@ -54,6 +54,7 @@ try {
   while (!/^\d+\.\d{5}$/.test(await trialZ.inputValue())) await page.waitForTimeout(50);
   await page.waitForTimeout(1500);
   const initialJsGzipKb = [...scripts.values()].reduce((sum, b) => sum + gzipSync(b).length, 0) / 1024;
+  const scriptSizes = [...scripts.entries()].map(([url, b]) => `${url.split('/').pop()} ${(gzipSync(b).length / 1024).toFixed(1)} kB`).sort();
 
   // The driver's own cost: a pointer move over the page header and one frame, no drag.
   const idle: number[] = [];
@@ -106,7 +107,7 @@ try {
   };
   console.log(`drag: median ${result.dragFrameMsMedian} ms per move to next frame (p90 ${result.dragFrameMsP90} ms) on ${PIXELS} pixels; the same without a drag: ${result.driverMsMedian} ms`);
   console.log(`next spectrum (prefetched): ${result.nextSpectrumMs} ms to its trial z shown and painted`);
-  console.log(`initial JavaScript of the inspection route: ${result.initialJsGzipKb} kB gzipped`);
+  console.log(`initial JavaScript of the inspection route: ${result.initialJsGzipKb} kB gzipped (${scriptSizes.join(', ')})`);
   console.log(JSON.stringify(result));
 } finally {
   await browser.close();

@@ -33,7 +33,15 @@ export async function buildFrontendIfStale(log: (line: string) => void = console
   if (current === wanted && existsSync(path.join(dist, 'index.html'))) return false;
   log(current ? 'The user interface changed; rebuilding it…' : 'Building the user interface (first start)…');
   const { build } = await import('vite');
-  await build({ configFile: path.join(root, 'vite.config.ts'), logLevel: 'warn' });
+  // A caller's NODE_ENV (vitest sets "test") would otherwise select React's development build.
+  const previous = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ configFile: path.join(root, 'vite.config.ts'), mode: 'production', logLevel: 'warn' });
+  } finally {
+    if (previous === undefined) delete process.env.NODE_ENV;
+    else process.env.NODE_ENV = previous;
+  }
   writeFileSync(stampFile, wanted + '\n');
   return true;
 }

@@ -1,9 +1,10 @@
 import { availableParallelism } from 'node:os';
 import { Piscina } from 'piscina';
-import type { ScanTask, ScanTaskResult } from './scan-worker';
+import type { ModelTask, ModelTaskResult, ScanTask, ScanTaskResult } from './scan-worker';
 
 export interface ScanPool {
   run(task: ScanTask): Promise<ScanTaskResult>;
+  model(task: ModelTask): Promise<ModelTaskResult>;
   readonly threads: number;
   destroy(): Promise<void>;
 }
@@ -15,7 +16,7 @@ const workerFile = new URL('./scan-worker.ts', import.meta.url).href;
  * thread only moves results into SQLite. Workers load TypeScript through tsx.
  */
 export function createScanPool(threads = availableParallelism()): ScanPool {
-  const pool = new Piscina<ScanTask, ScanTaskResult>({
+  const pool = new Piscina({
     filename: workerFile,
     // Threads start on the first scan, so a server with nothing to scan holds none.
     minThreads: 0,
@@ -25,7 +26,8 @@ export function createScanPool(threads = availableParallelism()): ScanPool {
   });
   return {
     threads,
-    run: (task) => pool.run(task),
+    run: (task) => pool.run(task) as Promise<ScanTaskResult>,
+    model: (task) => pool.run(task, { name: 'runModelTask' }) as Promise<ModelTaskResult>,
     destroy: () => pool.destroy(),
   };
 }

@@ -1,7 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
-import { scanSpectrum, type ScanResult } from '../spectra/scanSpectrum';
+import { scanSpectrum, type ScanResult, type Solution } from '../spectra/scanSpectrum';
+import { solutionModel } from '../spectra/solutionModel';
 import type { SpectrumMeta } from '../spectra/types';
 import { packCurves } from './scan-curves';
 
@@ -51,5 +52,27 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
       spectrum: summary,
       scanned: { ok: false, code: 'scan_failed', message: `The spectrum was stored but its scan failed (${(err as Error).message}); re-scan it after an engine update.` },
     };
+  }
+}
+
+export interface ModelTask {
+  filePath: string;
+  solution: Pick<Solution, 'z' | 'template'>;
+  zMin?: number | undefined;
+  zMax?: number | undefined;
+}
+
+export type ModelTaskResult = { ok: true; model: Float32Array } | { ok: false; message: string };
+
+/**
+ * Rebuilds the best-fit model of one solution on the spectrum's pixels. It re-runs part of a
+ * scan, so it runs in a worker thread like the scans: the web server's thread stays free.
+ */
+export function runModelTask(task: ModelTask): ModelTaskResult {
+  try {
+    const spectrum = readSpectrum(readFileSync(task.filePath));
+    return { ok: true, model: new Float32Array(solutionModel(spectrum, task.solution, { zMin: task.zMin, zMax: task.zMax })) };
+  } catch (err) {
+    return { ok: false, message: (err as Error).message };
   }
 }

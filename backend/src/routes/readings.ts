@@ -62,10 +62,10 @@ export function readingRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId/solutions/:rank/model',
     access: viewer,
-    handle: ({ req, res }) => {
+    handle: async ({ req, res }) => {
       const rank = Number(req.params.rank);
       if (!Number.isInteger(rank) || rank < 1) throw notFound('Solutions are numbered from 1.', 'solution_not_found');
-      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(packSolutionModel(ctx, spectrumId(req), rank));
+      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(await packSolutionModel(ctx, spectrumId(req), rank));
     },
   });
 

@@ -3,6 +3,7 @@ import type { Config } from '../config';
 import type { Db } from '../db/client';
 import type { Mailer } from '../mail/mailer';
 import type { BlobStore } from '../storage/blob-store';
+import type { ScanPool } from '../jobs/scan-pool';
 
 /** What every use-case may depend on; built once at boot (or once per test app). */
 export interface ServiceContext {
@@ -14,6 +15,8 @@ export interface ServiceContext {
   now: () => Date;
   /** Where uploaded files live, by content. */
   store: BlobStore;
+  /** Worker threads for scans and for rebuilding solution models (threads start on first use). */
+  scanPool: ScanPool;
   /** Tells the job runner (when this process has one) that work was queued. */
   wakeJobRunner: () => void;
 }

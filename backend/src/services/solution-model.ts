@@ -1,18 +1,15 @@
-import { readFileSync } from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import { scanResults, spectra } from '../db/schema';
 import { AppError, notFound } from '../http/errors';
-import { readSpectrum } from '../spectra/readSpectrum';
 import type { Solution } from '../spectra/scanSpectrum';
-import { solutionModel } from '../spectra/solutionModel';
 import type { ServiceContext } from './context';
 
 /**
  * The best-fit model of one solution of the current scan, on the spectrum's own pixels (float32,
- * NaN outside the fitted range), for drawing over the data. It is recomputed from the stored
- * file with the scan's own settings, so it shows exactly what the scan scored.
+ * NaN outside the fitted range), for drawing over the data. It is rebuilt from the stored file
+ * with the scan's own settings, in a worker thread, so it shows exactly what the scan scored.
  */
-export function packSolutionModel(ctx: ServiceContext, spectrumId: number, rank: number): Buffer {
+export async function packSolutionModel(ctx: ServiceContext, spectrumId: number, rank: number): Promise<Buffer> {
   const scan = ctx.db
     .select({ solutions: scanResults.solutions, settings: scanResults.settings })
     .from(scanResults)
@@ -21,14 +18,14 @@ export function packSolutionModel(ctx: ServiceContext, spectrumId: number, rank:
   const solution = scan ? (scan.solutions as Solution[])[rank - 1] : undefined;
   if (!scan || !solution) throw notFound(`This spectrum has no solution ${rank}.`, 'solution_not_found');
   const row = ctx.db.select({ sha256: spectra.sha256 }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
-  const spectrum = readSpectrum(readFileSync(ctx.store.pathOf(row.sha256)));
   const settings = scan.settings as { zMin?: number; zMax?: number };
-  let model: Float64Array;
-  try {
-    model = solutionModel(spectrum, solution, { zMin: settings.zMin, zMax: settings.zMax });
-  } catch (err) {
-    // A scan made by an older engine may name a template this engine no longer has.
-    throw new AppError(409, 'model_unavailable', `The model of this solution cannot be rebuilt (${(err as Error).message}); re-scan the spectrum.`);
-  }
-  return Buffer.from(new Float32Array(model).buffer);
+  const result = await ctx.scanPool.model({
+    filePath: ctx.store.pathOf(row.sha256),
+    solution: { z: solution.z, template: solution.template },
+    zMin: settings.zMin,
+    zMax: settings.zMax,
+  });
+  // A scan made by an older engine may name a template this engine no longer has.
+  if (!result.ok) throw new AppError(409, 'model_unavailable', `The model of this solution cannot be rebuilt (${result.message}); re-scan the spectrum.`);
+  return Buffer.from(result.model.buffer, result.model.byteOffset, result.model.byteLength);
 }

@@ -5,6 +5,7 @@ import { Loading } from '@/components/ui/loading';
 import { ErrorNotice } from '@/components/ui/notice';
 import { useLineList } from '@/lib/line-list';
 import { getScanCurvesQueryOptions, useScanCurves } from '../api/get-scan-curves';
+import { getSolutionModelQueryOptions } from '../api/get-solution-model';
 import { getSpectrumDataQueryOptions, useSpectrumData } from '@/lib/spectrum-data';
 import { getSpectrumDetailQueryOptions, useSpectrumDetail } from '../api/get-spectrum-detail';
 import type { SpectrumDetail } from '../api/schemas';
@@ -55,5 +56,7 @@ function usePrefetchSpectrum(spectrumId: number | null) {
     void queryClient.prefetchQuery(getSpectrumDetailQueryOptions(spectrumId));
     void queryClient.prefetchQuery(getSpectrumDataQueryOptions(spectrumId));
     void queryClient.prefetchQuery(getScanCurvesQueryOptions(spectrumId));
+    // The comb opens on the top solution, whose template is drawn: fetch it ahead too.
+    void queryClient.prefetchQuery(getSolutionModelQueryOptions(spectrumId, 1));
   }, [queryClient, spectrumId]);
 }
