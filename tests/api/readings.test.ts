@@ -1,5 +1,6 @@
 import { and, desc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { spectrumDetailSchema } from '../../backend/src/contracts/spectra';
 import { auditEvents, readings } from '../../backend/src/db/schema';
 import { signInDemoMembers, uploadAssignedSpectra, type Agent } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
@@ -62,6 +63,8 @@ describe('readings', () => {
   it('is blind: the second reader never sees the first reading; the lead sees both', async () => {
     const id = spectrumIds[0]!;
     const forReader2 = (await reader2.get(`/api/spectra/${id}`)).body;
+    // The answer has exactly the shape the shared contract (and so the inspection screen) expects.
+    expect(spectrumDetailSchema.safeParse(forReader2).error).toBeUndefined();
     expect(forReader2.readings).toEqual([]);
     expect(forReader2.assignment).toEqual({ readingOrder: 'second' });
     await reader2.post(`/api/spectra/${id}/readings`).send({ ...good, z: 0.2004 });

@@ -1,5 +1,6 @@
 import { Router, type Request } from 'express';
 import { queueQuerySchema, submitReadingRequestSchema } from '../contracts/readings';
+import { scanCurvesSchema, spectrumDetailSchema } from '../contracts/spectra';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -38,6 +39,7 @@ export function readingRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId',
     access: viewer,
+    response: spectrumDetailSchema,
     handle: ({ user, campaign, req }) => getSpectrumDetail(ctx, user!, campaign!.role, spectrumId(req)),
   });
 
@@ -54,6 +56,7 @@ export function readingRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId/scan-curves',
     access: viewer,
+    response: scanCurvesSchema,
     handle: ({ req }) => getScanCurves(ctx, spectrumId(req)),
   });
 

@@ -1,6 +1,7 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { CampaignRole } from '../contracts/campaigns';
 import type { Reading } from '../contracts/readings';
+import type { Scan, SpectrumDetail } from '../contracts/spectra';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
 import { unpackCurves } from '../jobs/scan-curves';
 import type { Actor, ServiceContext } from './context';
@@ -11,7 +12,7 @@ import { toReadingView } from './submit-reading';
  * blind: a reader sees only their own (also on the other images of the family); a lead sees all;
  * an observer none until confirmed.
  */
-export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: CampaignRole | null, spectrumId: number) {
+export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: CampaignRole | null, spectrumId: number): SpectrumDetail {
   const s = ctx.db.select().from(spectra).where(eq(spectra.id, spectrumId)).get()!;
   const campaign = ctx.db.select().from(campaigns).where(eq(campaigns.id, s.campaignId)).get()!;
   const target = s.targetId === null ? null : (ctx.db.select().from(targets).where(eq(targets.id, s.targetId)).get() ?? null);
@@ -82,9 +83,10 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
           engineVersion: scan.engineVersion,
           settings: scan.settings,
           class: scan.spectrumClass,
-          solutions: scan.solutions,
-          lineMatches: scan.lineMatches,
-          meta: scan.meta,
+          // JSON columns come back untyped; they hold what the scan stored (typed by its result).
+          solutions: scan.solutions as Scan['solutions'],
+          lineMatches: scan.lineMatches as Scan['lineMatches'],
+          meta: scan.meta as Scan['meta'],
           createdAt: scan.createdAt,
         }
       : null,

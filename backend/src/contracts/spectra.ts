@@ -1,0 +1,108 @@
+import { gradeSchemeSchema } from './grades';
+import { readingSchema, spectrumClassSchema } from './readings';
+import { targetSchema } from './targets';
+import { z } from 'zod';
+
+/*
+ * What the inspection screen receives about one spectrum: GET /api/spectra/:id (built by
+ * services/spectrum-detail.ts from the scan result) and GET /api/spectra/:id/scan-curves.
+ */
+
+const solutionLineSchema = z.object({ name: z.string(), rest: z.number(), observed: z.number() });
+
+export const solutionSchema = z.object({
+  z: z.number(),
+  zErr: z.number(),
+  class: z.string(),
+  template: z.string(),
+  chi2: z.number(),
+  deltaChi2: z.number().nullable(),
+  detectionChi2: z.number(),
+  lines: z.array(solutionLineSchema),
+  priorWeight: z.number().optional(),
+});
+export type Solution = z.infer<typeof solutionSchema>;
+
+const lineMatchesSchema = z.object({
+  peaks: z.array(z.object({ wavelength: z.number(), snr: z.number() })),
+  matches: z.array(z.object({ z: z.number(), lines: z.array(solutionLineSchema.extend({ snr: z.number() })) })),
+  singleLine: z
+    .object({
+      wavelength: z.number(),
+      snr: z.number(),
+      alternatives: z.array(z.object({ line: z.string(), z: z.number(), separator: z.string(), expectedInRange: z.array(z.string()) })),
+    })
+    .optional(),
+});
+export type LineMatches = z.infer<typeof lineMatchesSchema>;
+
+const scanSchema = z.object({
+  id: z.number().int(),
+  engineVersion: z.string(),
+  settings: z.looseObject({ zMin: z.number().optional(), zMax: z.number().optional() }),
+  class: z.string(),
+  solutions: z.array(solutionSchema),
+  lineMatches: lineMatchesSchema,
+  meta: z.object({
+    pixels: z.number(),
+    step: z.number(),
+    wavelengthMin: z.number(),
+    wavelengthMax: z.number(),
+    medium: z.enum(['air', 'vacuum']),
+    snrMedian: z.number(),
+    masks: z.array(z.string()),
+    zMin: z.number(),
+    zMax: z.number(),
+    templates: z.array(z.string()),
+    chi2Null: z.number().optional(),
+  }),
+  createdAt: z.string().optional(),
+});
+export type Scan = z.infer<typeof scanSchema>;
+
+export const spectrumDetailSchema = z.object({
+  spectrum: z.object({
+    id: z.number().int(),
+    campaignId: z.number().int(),
+    fileName: z.string(),
+    objectName: z.string().nullable(),
+    ra: z.number().nullable(),
+    dec: z.number().nullable(),
+    instrument: z.string().nullable(),
+    exposureS: z.number().nullable(),
+    dateObs: z.string().nullable(),
+    medium: z.string(),
+    pixels: z.number().int(),
+    wavelengthMin: z.number(),
+    wavelengthMax: z.number(),
+    snrMedian: z.number().nullable(),
+    errorsEstimated: z.boolean(),
+    warnings: z.array(z.string()),
+  }),
+  campaign: z.object({
+    id: z.number().int(),
+    name: z.string(),
+    zMin: z.number(),
+    zMax: z.number(),
+    tolerance: z.number(),
+    gradeScheme: gradeSchemeSchema,
+    myRole: z.enum(['lead', 'reader', 'observer']).nullable(),
+  }),
+  target: targetSchema.omit({ extra: true, spectrumCount: true }).nullable(),
+  family: z.array(
+    z.object({ spectrumId: z.number().int(), targetId: z.number().int(), catalogueId: z.string(), zBest: z.number().nullable(), readings: z.array(readingSchema) }),
+  ),
+  scan: scanSchema.nullable(),
+  assignment: z.object({ readingOrder: z.enum(['first', 'second']) }).nullable(),
+  readings: z.array(readingSchema),
+});
+export type SpectrumDetail = z.infer<typeof spectrumDetailSchema>;
+export type DetailTarget = NonNullable<SpectrumDetail['target']>;
+
+export const scanCurvesSchema = z.object({
+  curves: z.array(z.object({ template: z.string(), class: z.string(), z: z.array(z.number()), chi2: z.array(z.number()) })),
+});
+export type ScanCurves = z.infer<typeof scanCurvesSchema>;
+
+
+export { spectrumClassSchema };
