@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { thClass } from './table';
 
 export type SortState = 'asc' | 'desc' | false;
 
@@ -18,5 +19,16 @@ export function SortHeader({ children, state, onToggle }: { children: ReactNode;
         {state === 'asc' ? '▲' : state === 'desc' ? '▼' : '↕'}
       </span>
     </button>
+  );
+}
+
+/** A sortable table column heading: the th carries aria-sort, the label is the sort button. */
+export function SortableTh({ children, state, onToggle, alignRight }: { children: ReactNode; state: SortState; onToggle: ((event: unknown) => void) | undefined; alignRight: boolean }) {
+  return (
+    <th scope="col" aria-sort={ariaSort(state)} className={`${thClass} whitespace-nowrap ${alignRight ? 'text-right' : ''}`}>
+      <SortHeader state={state} onToggle={onToggle}>
+        {children}
+      </SortHeader>
+    </th>
   );
 }

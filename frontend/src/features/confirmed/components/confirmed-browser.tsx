@@ -1,5 +1,5 @@
 import type { Grade } from '@contracts/grades';
-import { Button } from '@/components/ui/button';
+import { PastLastPage } from '@/components/ui/past-last-page';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice } from '@/components/ui/notice';
@@ -31,13 +31,7 @@ export function ConfirmedBrowser({ campaignId, scheme }: { campaignId: number; s
   const body = () => {
     if (total === 0 && !filtered) return <EmptyState title="Nothing confirmed yet">A redshift is released when two readings agree or a lead settles a disagreement.</EmptyState>;
     if (rows.length === 0 && total > 0) {
-      return (
-        <EmptyState title={`Page ${query.page} is past the end of the table.`}>
-          <Button variant="secondary" size="sm" onClick={() => update({ page: 1 })}>
-            Go to page 1
-          </Button>
-        </EmptyState>
-      );
+      return <PastLastPage page={query.page} onFirstPage={() => update({ page: 1 })} />;
     }
     if (rows.length === 0) return <EmptyState title="No confirmed redshift matches these filters." />;
     return <ConfirmedTable rows={rows} total={total} query={query} onQuery={update} />;

@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { Button } from '@/components/ui/button';
+import { PastLastPage } from '@/components/ui/past-last-page';
 import { EmptyState } from '@/components/ui/empty-state';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice } from '@/components/ui/notice';
@@ -36,13 +36,7 @@ export function SpectraBrowser({ campaignId, linkOptions, onLinked, emptyHint }:
     const { rows, total } = spectra.data;
     if (total === 0 && !filtered) return <EmptyState title="No spectra yet — upload a zip of FITS or text files">{emptyHint}</EmptyState>;
     if (rows.length === 0 && total > 0) {
-      return (
-        <EmptyState title={`Page ${query.page} is past the end of the list.`}>
-          <Button variant="secondary" size="sm" onClick={() => update({ page: 1 })}>
-            Go to page 1
-          </Button>
-        </EmptyState>
-      );
+      return <PastLastPage page={query.page} onFirstPage={() => update({ page: 1 })} />;
     }
     if (rows.length === 0) return <EmptyState title="No spectrum matches these filters." />;
     return (

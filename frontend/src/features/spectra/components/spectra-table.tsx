@@ -2,7 +2,7 @@ import { SPECTRA_SORT_KEYS } from '@contracts/ingest';
 import type { SpectrumRow } from '@contracts/ingest';
 import { functionalUpdate, useTable } from '@tanstack/react-table';
 import type { PaginationState, SortingState } from '@tanstack/react-table';
-import { ariaSort, SortHeader } from '@/components/ui/sort-header';
+import { SortableTh } from '@/components/ui/sort-header';
 import { Table, tdClass, thClass } from '@/components/ui/table';
 import type { SpectraQueryState } from '../hooks/use-spectra-query';
 import { LinkTargetCell } from './link-target-cell';
@@ -54,16 +54,16 @@ export function SpectraTable({ rows, total, query, onQuery, linkOptions, onLink 
       <thead>
         {table.getHeaderGroups().map((group) => (
           <tr key={group.id}>
-            {group.headers.map((header) => {
-              const sorted = header.column.getIsSorted();
-              return (
-                <th key={header.id} scope="col" aria-sort={ariaSort(sorted)} className={`${thClass} whitespace-nowrap ${NUMERIC_COLUMNS.has(header.column.id) ? 'text-right' : ''}`}>
-                  <SortHeader state={sorted} onToggle={header.column.getCanSort() ? header.column.getToggleSortingHandler() : undefined}>
-                    <table.FlexRender header={header} />
-                  </SortHeader>
-                </th>
-              );
-            })}
+            {group.headers.map((header) => (
+              <SortableTh
+                key={header.id}
+                state={header.column.getIsSorted()}
+                onToggle={header.column.getCanSort() ? header.column.getToggleSortingHandler() : undefined}
+                alignRight={NUMERIC_COLUMNS.has(header.column.id)}
+              >
+                <table.FlexRender header={header} />
+              </SortableTh>
+            ))}
             {linkOptions ? (
               <th scope="col" className={thClass}>
                 <span className="sr-only">Link</span>

@@ -1,7 +1,7 @@
 import type { Target } from '@contracts/targets';
 import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alphanumeric, sortFn_basic, tableFeatures, useTable } from '@tanstack/react-table';
-import { ariaSort, SortHeader } from '@/components/ui/sort-header';
-import { Table, tdClass, thClass } from '@/components/ui/table';
+import { SortableTh } from '@/components/ui/sort-header';
+import { Table, tdClass } from '@/components/ui/table';
 import { formatDegrees } from '@/lib/format';
 
 const features = tableFeatures({
@@ -57,16 +57,16 @@ export function TargetsTable({ targets }: { targets: Target[] }) {
       <thead>
         {table.getHeaderGroups().map((group) => (
           <tr key={group.id}>
-            {group.headers.map((header) => {
-              const sorted = header.column.getIsSorted();
-              return (
-                <th key={header.id} scope="col" aria-sort={ariaSort(sorted)} className={`${thClass} whitespace-nowrap ${TEXT_COLUMNS.has(header.column.id) ? '' : 'text-right'}`}>
-                  <SortHeader state={sorted} onToggle={header.column.getToggleSortingHandler()}>
-                    <table.FlexRender header={header} />
-                  </SortHeader>
-                </th>
-              );
-            })}
+            {group.headers.map((header) => (
+              <SortableTh
+                key={header.id}
+                state={header.column.getIsSorted()}
+                onToggle={header.column.getToggleSortingHandler()}
+                alignRight={!TEXT_COLUMNS.has(header.column.id)}
+              >
+                <table.FlexRender header={header} />
+              </SortableTh>
+            ))}
           </tr>
         ))}
       </thead>
