@@ -44,7 +44,10 @@ export function findSolutions(curves: TemplateCurve[], step: number, maxSolution
       if (i > 0 && i < y.length - 1) {
         const c2 = y[i - 1]! - 2 * y[i]! + y[i + 1]!;
         if (c2 > 0) {
-          offset = Math.max(-0.5, Math.min(0.5, (0.5 * (y[i - 1]! - y[i + 1]!)) / c2));
+          // A vertex more than half a pixel away means the three points are not a parabola (a
+          // step in the curve, e.g. where a window leaves the data): keep the sampled minimum.
+          const vertex = (0.5 * (y[i - 1]! - y[i + 1]!)) / c2;
+          offset = Math.abs(vertex) <= 0.5 ? vertex : 0;
           curvature = c2;
         }
       }

@@ -1,3 +1,4 @@
+import { continuumSupport } from './continuumSupport';
 import { highPass } from './highPass';
 import { DEFAULT_LOG_STEP } from './logGrid';
 import { resampleToLogGrid } from './resampleToLogGrid';
@@ -75,18 +76,16 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
   }
   for (let i = 0; i < n; i++) if (spectrum.mask[i]) ivar[i] = 0;
   const grid = resampleToLogGrid(vac, spectrum.flux, ivar, step);
-  const valid = new Uint8Array(grid.flux.length);
   let first = -1;
   let last = -1;
-  for (let i = 0; i < valid.length; i++) {
+  for (let i = 0; i < grid.flux.length; i++) {
     if (grid.ivar[i]! > 0) {
-      valid[i] = 1;
       if (first < 0) first = i;
       last = i;
     }
   }
   const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? 0.03) / step)) | 1;
-  const flux = highPass(grid.flux, widthPx, valid);
+  const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
   const logSteps: number[] = [];
   for (let i = 1; i < n; i += Math.max(1, Math.floor(n / 512))) logSteps.push(Math.log10(vac[i]! / vac[i - 1]!));
   logSteps.sort((a, b) => a - b);

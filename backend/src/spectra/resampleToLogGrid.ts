@@ -11,10 +11,14 @@ export interface LogGridSpectrum {
 }
 
 /**
- * Flux-conserving rebinning onto the log10-λ grid: every input pixel is a bin whose edges are
- * halfway to its neighbours; each output pixel takes the overlap-weighted mean of the flux
- * densities it covers, so ∫f dλ is preserved. Variances propagate as Σ(o_k² σ_k²)/(Σ o_k)² with
- * o_k the overlap in Å; pixels with ivar 0 (masked) do not contribute.
+ * Rebinning onto the log10-λ grid: every input pixel is a bin whose edges are halfway to its
+ * neighbours; each output pixel takes the mean of the flux densities it covers, weighted by overlap
+ * (Å) × inverse variance. Where the errors within an output pixel are equal this is the
+ * flux-conserving overlap mean (∫f dλ preserved); where they differ — a near-infrared arm sampled
+ * at 10 km/s puts seven native pixels in one 69 km/s pixel, and one of them may sit on a water-band
+ * residual with a thousand times the σ — the good pixels are not thrown away with the bad. The
+ * variance of the weighted mean is Σ u_k² σ_k² / (Σ u_k)² with u_k = o_k/σ_k²; pixels with ivar 0
+ * (masked) do not contribute.
  *
  * @param wavelength input wavelength, Å, strictly increasing
  * @param flux input flux density
@@ -36,6 +40,7 @@ export function resampleToLogGrid(wavelength: Float64Array, flux: Float64Array, 
   const sumF = new Float64Array(m);
   const sumW = new Float64Array(m);
   const sumV = new Float64Array(m);
+  const sumU = new Float64Array(m);
   const outEdge = (j: number) => 10 ** ((g0 + j - 0.5) * step);
   let j = 0;
   for (let i = 0; i < n && j < m; i++) {
@@ -47,9 +52,11 @@ export function resampleToLogGrid(wavelength: Float64Array, flux: Float64Array, 
     while (k < m && outEdge(k) < b) {
       const overlap = Math.min(b, outEdge(k + 1)) - Math.max(a, outEdge(k));
       if (overlap > 0) {
-        sumF[k]! += overlap * flux[i]!;
+        const u = overlap * ivar[i]!;
+        sumF[k]! += u * flux[i]!;
+        sumU[k]! += u;
         sumW[k]! += overlap;
-        sumV[k]! += (overlap * overlap) / ivar[i]!;
+        sumV[k]! += u * overlap;
       }
       k++;
     }
@@ -60,8 +67,8 @@ export function resampleToLogGrid(wavelength: Float64Array, flux: Float64Array, 
     const width = outEdge(k + 1) - outEdge(k);
     // Pixels only partly covered by good data are dropped: their mean would be biased at edges.
     if (sumW[k]! > 0.5 * width && sumV[k]! > 0) {
-      outFlux[k] = sumF[k]! / sumW[k]!;
-      outIvar[k] = (sumW[k]! * sumW[k]!) / sumV[k]!;
+      outFlux[k] = sumF[k]! / sumU[k]!;
+      outIvar[k] = (sumU[k]! * sumU[k]!) / sumV[k]!;
     }
   }
   return { step, g0, flux: outFlux, ivar: outIvar };

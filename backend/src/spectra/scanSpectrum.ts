@@ -1,12 +1,14 @@
 import { templateSetFor, type TemplateSet } from './buildTemplates';
 import { findSolutions } from './findSolutions';
 import { shiftToZ } from './logGrid';
+import { addBreakChi2, windowSums } from './lymanBreakCheck';
 import { matchEmissionLines, type LineMatchResult } from './matchEmissionLines';
 import { prepareSpectrum, type PrepareOptions, type PreparedSpectrum } from './prepareSpectrum';
 import { rankWithPhotoZ, type PhotoZPrior } from './rankWithPhotoZ';
 import { scanData, scanTemplates, type TemplateCurve, type TemplateRequest } from './scanTemplate';
 import type { Spectrum, SpectrumClass, TemplateClass } from './types';
 import { ENGINE_VERSION } from './version';
+import { TEMPLATE_RECIPES } from './templateRecipes';
 
 export interface ScanOptions extends PrepareOptions {
   /** Redshift range searched (default 0 … 9). Star templates always stay near z = 0. */
@@ -116,6 +118,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     requests.push({ template: t, zMin: t.class === 'star' ? t.zMin : zMin, zMax: t.class === 'star' ? t.zMax : zMax });
   }
   const curves = scanTemplates(data, set, requests, options.method ?? 'fft');
+  addLymanBreakChecks(curves, prepared);
   const maxSolutions = options.maxSolutions ?? 5;
   const raw = findSolutions(curves, set.step, maxSolutions);
   const solutions: Solution[] = raw.map((s, k) => ({
@@ -151,6 +154,24 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
       templates: curves.map((c) => c.template.id),
     },
   };
+}
+
+/**
+ * Sources whose Lyα sits in the spectrum must be dark blueward of it: the χ² of Lyman-break and
+ * quasar templates gets the break-consistency term of lymanBreakCheck.ts.
+ */
+function addLymanBreakChecks(curves: TemplateCurve[], prepared: PreparedSpectrum): void {
+  const sums = windowSums(prepared);
+  for (const c of curves) {
+    if (c.template.class !== 'lyman-break' && c.template.class !== 'quasar') continue;
+    addBreakChi2(c.chi2, c.sMin, sums, { slope: continuumSlope(c.template.id) });
+  }
+}
+
+function continuumSlope(templateId: string): number {
+  const recipe = TEMPLATE_RECIPES.find((r) => r.id === templateId);
+  const continuum = recipe?.components.find((c) => c.continuum?.shape === 'power-law')?.continuum;
+  return continuum?.shape === 'power-law' ? continuum.slope : -2;
 }
 
 function linesInRange(set: TemplateSet, templateId: string, z: number, prepared: PreparedSpectrum): SolutionLine[] {
