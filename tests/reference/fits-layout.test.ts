@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { gzipSync } from 'fflate';
 import { readSpectrum } from '../../backend/src/spectra/readSpectrum';
 import { SpectrumReadError } from '../../backend/src/spectra/errors';
-import { concat, float32BE, header, padData } from '../unit/spectra/fits-writer';
+import { concat, float32BE, header, padData, type Card } from '../unit/spectra/fits-writer';
 
 // Files written byte by byte to the FITS 4.0 layout (Pence et al. 2010, A&A 524, A42: 2880-byte
 // blocks of 80-character ASCII cards, big-endian IEEE data; binary tables §7.3); WCS keywords
@@ -61,7 +61,7 @@ describe('FITS files written to the standard layout', () => {
 
   it('standard CRVAL1/CD1_1 win over stale COEFF0/COEFF1 (an IRAF rewrite of an SDSS spectrum)', () => {
     // IRAF writes the linear dispersion it applied in CRVAL1/CD1_1 with DC-FLAG = 0 and keeps the
-    // SDSS COEFFn cards it did not touch (seen in an SDSS spectrum shifted to rest frame by IRAF).
+    // SDSS COEFFn cards it did not touch (common practice).
     const bytes = concat(
       header([['SIMPLE', true], ['BITPIX', -32], ['NAXIS', 1], ['NAXIS1', 50], ['CTYPE1', 'LINEAR'], ['DC-FLAG', 0], ['COEFF0', 3.5811], ['COEFF1', 1e-4], ['CRVAL1', 3634.79], ['CD1_1', 1.343], ['CRPIX1', 1]]),
       padData(float32BE(flux)),
@@ -69,6 +69,25 @@ describe('FITS files written to the standard layout', () => {
     const s = readSpectrum(bytes);
     expect(s.wavelength[0]).toBeCloseTo(3634.79, 3);
     expect(s.wavelength[10]).toBeCloseTo(3634.79 + 13.43, 3);
+  });
+
+  it('an axis Doppler-corrected to the header Z (ends = COEFF0/COEFF1 range ÷ (1 + Z)) is put back to observed wavelengths', () => {
+    // Common practice (IRAF-style dopcor + linear re-dispersion of an SDSS spectrum): CRVAL1/CD1_1
+    // span the observed COEFF0/COEFF1 range divided by 1 + Z, and Z is kept in the header.
+    const n = 200;
+    const z = 0.05;
+    const first = 4000;
+    const last = 10 ** (Math.log10(first) + 1e-4 * (n - 1));
+    const cards: Card[] = [['SIMPLE', true], ['BITPIX', -32], ['NAXIS', 1], ['NAXIS1', n], ['CTYPE1', 'LINEAR'], ['DC-FLAG', 0], ['COEFF0', Math.log10(first)], ['COEFF1', 1e-4], ['CRVAL1', first / (1 + z)], ['CD1_1', (last - first) / (1 + z) / (n - 1)], ['CRPIX1', 1]];
+    const data = padData(float32BE(Array.from({ length: n }, () => 1)));
+    const shifted = readSpectrum(concat(header([...cards, ['Z', z]]), data));
+    expect(shifted.wavelength[0]).toBeCloseTo(first, 2);
+    expect(shifted.wavelength[n - 1]).toBeCloseTo(last, 2);
+    expect(shifted.wavelength[100]).toBeCloseTo((first / (1 + z) + (100 * (last - first)) / (1 + z) / (n - 1)) * (1 + z), 2);
+    expect(shifted.meta.warnings.join(' ')).toMatch(/rest frame/);
+    // Without Z nothing says the axis was shifted: the standard keywords stand.
+    const plain = readSpectrum(concat(header(cards), data));
+    expect(plain.wavelength[0]).toBeCloseTo(first / (1 + z), 2);
   });
 
   it('binary table with loglam/flux/ivar columns, TSCAL/TZERO on an integer column, gzip', () => {

@@ -8,7 +8,9 @@ export type ColumnRole = 'wavelength' | 'logWavelength' | 'flux' | 'error' | 'iv
  */
 export function columnRole(name: string): ColumnRole | undefined {
   const n = name.trim().toLowerCase().replace(/[\s\-.]+/g, '_');
-  if (/(^|_)(model|continuum|cont|wdisp|resolution|disp|npix|or_mask|tell|telluric)($|_)/.test(n)) return undefined;
+  if (/(^|_)(model|continuum|cont|wdisp|resolution|disp|npix|or_mask)($|_)/.test(n)) return undefined;
+  // A telluric transmission column is not the object; a telluric-corrected flux or error is.
+  if (/(^|_)(tell|telluric|telluric_?trans(mission)?|atm_?trans(mission)?)($|_)/.test(n) && !isTelluricCorrected(n)) return undefined;
   if (/^(log_?lam(bda)?|log_?wave?(length)?|loglambda|lgwave)$/.test(n)) return 'logWavelength';
   if (/^(wave|wavelength|wavelengths|lambda|lam|wl|wav|awav|vac_?wave|air_?wave|wave_?(air|vac)|lambda_?(air|vac)|w)$/.test(n)) return 'wavelength';
   if (/(^|_)(ivar|inv_?var|invvar|inverse_?variance|weight)($|_)/.test(n)) return 'ivar';
@@ -18,6 +20,22 @@ export function columnRole(name: string): ColumnRole | undefined {
   if (/(^|_)(sky|background|bkg)($|_)/.test(n)) return 'sky';
   if (/^(flux|flam|f_?lambda|fnu|f_?nu|spec|spectrum|counts|intensity|fl|f|flux_?density|weighted_?mean)$/.test(n) || /^flux/.test(n)) return 'flux';
   return undefined;
+}
+
+function isTelluricCorrected(n: string): boolean {
+  return /tell?(uric)?_?corr|tel_?cor/.test(n) && !/no_?corr|uncorr/.test(n);
+}
+
+/**
+ * How much a column is preferred among columns of the same role: a telluric-corrected flux or error
+ * (e.g. FLUX_TELL_CORR next to FLUX) beats the plain one, which beats an explicitly uncorrected one
+ * (FLUX_NOCORR): readers want the corrected near-infrared spectrum when the file carries both.
+ */
+export function columnPreference(name: string): number {
+  const n = name.trim().toLowerCase().replace(/[\s\-.]+/g, '_');
+  if (isTelluricCorrected(n)) return 2;
+  if (/no_?corr|uncorr/.test(n)) return 0;
+  return 1;
 }
 
 /**

@@ -1,5 +1,5 @@
 import { SpectrumReadError } from './errors';
-import { angstromsPer, columnRole, guessAngstromsPer, type ColumnRole } from './columnRoles';
+import { angstromsPer, columnPreference, columnRole, guessAngstromsPer, type ColumnRole } from './columnRoles';
 import { finishSpectrum, type RawColumns } from './finishSpectrum';
 import { imageWavelengths } from './fits/imageWavelengths';
 import { listHdus, type FitsHdu } from './fits/listHdus';
@@ -110,7 +110,8 @@ function fromImage(bytes: Uint8Array, hdus: FitsHdu[], hdu: FitsHdu, primary: Fi
   const ctype = (str(h, 'CTYPE1') ?? '').trim().toUpperCase();
   const raw: Partial<RawColumns> = {};
   const columns: Record<string, string> = {};
-  let wavelength = imageWavelengths(h, n, hdu.index, hdu.index === 0 ? undefined : primary);
+  const axisNotes: string[] = [];
+  let wavelength = imageWavelengths(h, n, hdu.index, hdu.index === 0 ? undefined : primary, axisNotes);
   const where = `FITS HDU ${hdu.index} image`;
   // Rows: a labelled layout (ARRAYn / BANDIDn) decides; otherwise row 0 is flux, and when no WCS
   // exists a monotonic first row is the wavelength row (flux and error follow).
@@ -151,6 +152,7 @@ function fromImage(bytes: Uint8Array, hdus: FitsHdu[], hdu: FitsHdu, primary: Fi
   }
   const meta = baseMeta(h, primary, where, options, ctype);
   meta.columns = { wavelength: columns.wavelength ?? `WCS axis 1${ctype ? ` (${ctype})` : ''}`, ...columns };
+  meta.warnings.push(...axisNotes);
   return finishSpectrum({ ...raw, wavelength, flux: raw.flux } as RawColumns, meta, where);
 }
 
@@ -168,7 +170,8 @@ function fromTable(bytes: Uint8Array, hdu: FitsHdu, primary: FitsHeader, options
   const byRole = new Map<ColumnRole, TableColumn>();
   for (const c of cols) {
     const role = columnRole(c.name);
-    if (role && !byRole.has(role)) byRole.set(role, c);
+    const held = role && byRole.get(role);
+    if (role && (!held || columnPreference(c.name) > columnPreference(held.name))) byRole.set(role, c);
   }
   const wave = byRole.get('wavelength') ?? byRole.get('logWavelength');
   const flux = byRole.get('flux');

@@ -1,6 +1,6 @@
 import Papa from 'papaparse';
 import { SpectrumReadError } from './errors';
-import { angstromsPer, columnRole, guessAngstromsPer, unitInName, type ColumnRole } from './columnRoles';
+import { angstromsPer, columnPreference, columnRole, guessAngstromsPer, unitInName, type ColumnRole } from './columnRoles';
 import { finishSpectrum, type RawColumns } from './finishSpectrum';
 import type { ReadOptions } from './readFitsSpectrum';
 import type { Medium, Spectrum, SpectrumMeta } from './types';
@@ -78,7 +78,8 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
   if (headerNames) {
     headerNames.slice(0, width).forEach((name, c) => {
       const role = columnRole(name.replace(/[([{].*$/, ''));
-      if (role && !roles.has(role)) roles.set(role, c);
+      const held = role && roles.get(role);
+      if (role && (held === undefined || columnPreference(name) > columnPreference(headerNames[held]!))) roles.set(role, c);
     });
   }
   // A header that names known columns but no flux column (e.g. "wavelength,sky") is refused: taking

@@ -8,9 +8,10 @@ import { num, str, type FitsHeader } from './parseHeader';
  *   (linear) or WAVE-LOG/AWAV-LOG (λ = CRVAL1·exp(CDELT1·(p − CRPIX1)/CRVAL1)), CUNIT1;
  * - the older log-linear conventions: DC-FLAG = 1 (CRVAL1/CDELT1 are log10 Å) and COEFF0/COEFF1
  *   (log10 Å of pixel 0 and step).
- * Returns undefined when the header carries no dispersion keywords at all.
+ * Returns undefined when the header carries no dispersion keywords at all. Notes for the reader
+ * (e.g. an axis moved to the rest frame) are pushed to `notes`.
  */
-export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number, fallback?: FitsHeader): Float64Array | undefined {
+export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number, fallback?: FitsHeader, notes: string[] = []): Float64Array | undefined {
   const get = (k: string) => num(header, k) ?? (fallback ? num(fallback, k) : undefined);
   const gets = (k: string) => str(header, k) ?? (fallback ? str(fallback, k) : undefined);
   const out = new Float64Array(n);
@@ -37,7 +38,34 @@ export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number
   }
   const factor = unitFactor(gets('CUNIT1'), gets('WAT1_001'), ctype, out[n >> 1]!);
   if (factor !== 1) for (let i = 0; i < n; i++) out[i]! *= factor;
+  if (coeff0 !== undefined && coeff1 !== undefined && n > 1) {
+    const observed = restFrameShift(out, coeff0, coeff1, get('Z'));
+    if (observed) {
+      notes.push(
+        `CRVAL1/CD1_1 give the source's rest frame: the SDSS axis COEFF0/COEFF1 is longer by 1 + Z = ${(1 + get('Z')!).toFixed(5)} at both ends, ` +
+          'as after a Doppler correction to the header redshift. The axis was multiplied by 1 + Z back to observed wavelengths, because a redshift is measured on those.',
+      );
+      return observed;
+    }
+  }
   return out;
+}
+
+/**
+ * The standard axis times 1 + Z when it is the COEFF0/COEFF1 (observed) range divided by 1 + Z of
+ * the header — a spectrum Doppler-corrected to its catalogued redshift (and perhaps re-dispersed
+ * onto a linear axis, so only the ends can be compared); else undefined. Both ends must agree to
+ * 0.01 %, so a re-dispersed but unshifted axis does not match.
+ */
+function restFrameShift(wcs: Float64Array, coeff0: number, coeff1: number, z: number | undefined): Float64Array | undefined {
+  if (z === undefined || !(z > 0.001)) return undefined;
+  const n = wcs.length;
+  const first = 10 ** coeff0;
+  const last = 10 ** (coeff0 + coeff1 * (n - 1));
+  const ratioFirst = first / wcs[0]!;
+  const ratioLast = last / wcs[n - 1]!;
+  if (Math.abs(ratioFirst - (1 + z)) > 1e-4 * (1 + z) || Math.abs(ratioLast - (1 + z)) > 1e-4 * (1 + z)) return undefined;
+  return Float64Array.from(wcs, (w) => w * (1 + z));
 }
 
 function unitFactor(cunit: string | undefined, wat: string | undefined, ctype: string, median: number): number {
