@@ -196,10 +196,13 @@ function componentSpectrum(recipe: TemplateRecipe, comp: ComponentRecipe, lines:
       const sigLog = Math.max(sigmaLogLine, (line.widthA ?? 0) / 2.355 / (line.rest * Math.LN10));
       applyGaussian(absorb, centre, sigLog / step, -strength, true);
     } else if (kind === 'emission') {
-      const sigPx = sigmaLogLine / step;
-      const sigA = sigmaLogLine * Math.LN10 * line.rest;
+      // A line group may sit off the systemic redshift and be wider (quasar high-ionisation lines).
+      const offset = comp.lineOffsets?.find((o) => o.names.includes(line.name));
+      const sigmaLog = offset?.sigmaKms ? offset.sigmaKms / C_KMS / Math.LN10 : sigmaLogLine;
+      const shiftPx = offset ? Math.log10(1 + offset.velocityKms / C_KMS) / step : 0;
+      const sigA = sigmaLog * Math.LN10 * line.rest;
       const area = comp.continuum ? strength * (recipe.emissionEwA ?? 50) * continuumAt(comp.continuum, line.rest) : strength;
-      applyGaussian(out, centre, sigPx, area / (sigA * Math.sqrt(2 * Math.PI)), false);
+      applyGaussian(out, centre + shiftPx, sigmaLog / step, area / (sigA * Math.sqrt(2 * Math.PI)), false);
     }
   }
   // The intrinsic line width (sigmaKms) of an opacity component is applied to its transmission.

@@ -17,6 +17,8 @@ export interface ComponentRecipe {
   strengthKey?: string;
   /** Strengths of absorption lines and bands are optical depths; the continuum is multiplied by exp(−Στ). */
   opacity?: boolean;
+  /** Emission lines drawn off the systemic redshift (velocity, negative = blueshift) and with their own width. */
+  lineOffsets?: Array<{ names: string[]; velocityKms: number; sigmaKms?: number; why: string }>;
 }
 
 export interface TemplateRecipe {
