@@ -17,6 +17,11 @@ export interface PrepareOptions {
   maskTelluric?: boolean;
   /** Width of the continuum-removing running mean, dex (default 0.03 ≈ 21,000 km/s). */
   continuumWidthDex?: number;
+  /**
+   * Sky-subtraction residuals scale with the sky: when the file carries a sky spectrum, this
+   * fraction of it is added in quadrature to each pixel's σ (default 0.03, common practice).
+   */
+  skyResidualFraction?: number;
 }
 
 /** A spectrum ready for the scan: vacuum, masked, on the global log grid, continuum removed. */
@@ -75,6 +80,14 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
     masks.push('telluric O2 bands');
   }
   for (let i = 0; i < n; i++) if (spectrum.mask[i]) ivar[i] = 0;
+  const skyFraction = options.skyResidualFraction ?? 0.03;
+  if (spectrum.sky && skyFraction > 0) {
+    for (let i = 0; i < n; i++) {
+      const residual = skyFraction * Math.max(0, spectrum.sky[i]!);
+      if (ivar[i]! > 0 && residual > 0) ivar[i] = 1 / (1 / ivar[i]! + residual * residual);
+    }
+    masks.push(`sky residuals (${Math.round(100 * skyFraction)} % of the sky added to σ)`);
+  }
   const grid = resampleToLogGrid(vac, spectrum.flux, ivar, step);
   let first = -1;
   let last = -1;

@@ -79,3 +79,18 @@ describe('Lyman-break consistency term', () => {
     expect(breakChi2(sums, 6.3, { slope: -2 })).toBeGreaterThan(100); // placed redder: its blue window (7665–8541 Å) has flux
   });
 });
+
+describe('sky-subtraction residuals', () => {
+  it('3 % of the sky is added to σ where the file carries a sky spectrum, nowhere else', () => {
+    const base = spectrumOf(8000, 9000, 2000, () => 1, 0.1);
+    const sky = new Float64Array(2000).fill(0.5);
+    for (let i = 990; i <= 1010; i++) sky[i] = 200; // a bright OH line, 10 Å wide: σ² = 0.01 + (0.03·200)² = 36.01
+    const withSky = prepareSpectrum({ ...base, sky });
+    const without = prepareSpectrum(base);
+    const g = Math.round(Math.log10(base.wavelength[1000]!) / withSky.step) - withSky.g0;
+    expect(withSky.ivar[g]! / without.ivar[g]!).toBeCloseTo(0.01 / 36.01, 5);
+    expect(withSky.ivar[g + 40]! / without.ivar[g + 40]!).toBeCloseTo(1 / (1 + 0.015 ** 2 / 0.01), 3);
+    expect(withSky.masks.some((m) => m.startsWith('sky residuals'))).toBe(true);
+    expect(without.masks.some((m) => m.startsWith('sky residuals'))).toBe(false);
+  });
+});
