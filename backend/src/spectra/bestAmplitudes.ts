@@ -16,6 +16,10 @@ const idx = new Int32Array(3);
 export function bestAmplitudes(a: Float64Array, r: Float64Array, m: number, amplitudes: Float64Array): number {
   let best = 0;
   amplitudes.fill(0, 0, m);
+  // With every projection ≤ 0, no non-negative amplitudes help: the reduction 2aᵀr − aᵀAa ≤ 2aᵀr ≤ 0.
+  let anyPositive = false;
+  for (let p = 0; p < m; p++) if (r[p]! > 0) anyPositive = true;
+  if (!anyPositive) return 0;
   for (let mask = (1 << m) - 1; mask >= 1; mask--) {
     let k = 0;
     for (let c = 0; c < m; c++) if (mask & (1 << c)) idx[k++] = c;

@@ -41,7 +41,8 @@ export function resampleToLogGrid(wavelength: Float64Array, flux: Float64Array, 
   const sumW = new Float64Array(m);
   const sumV = new Float64Array(m);
   const sumU = new Float64Array(m);
-  const outEdge = (j: number) => 10 ** ((g0 + j - 0.5) * step);
+  const edges = Float64Array.from({ length: m + 1 }, (_, j) => 10 ** ((g0 + j - 0.5) * step));
+  const outEdge = (j: number) => edges[j]!;
   let j = 0;
   for (let i = 0; i < n && j < m; i++) {
     const a = Math.max(edge(i), lo);

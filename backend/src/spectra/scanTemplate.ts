@@ -164,7 +164,7 @@ export function scanTemplates(data: ScanData, set: TemplateSet, requests: Templa
     const plan = planTemplate(data, set, req, method);
     if (plan) plans.push(plan);
   }
-  runJobs(data, plans.flatMap((p) => p.bins.flatMap((b) => [...b.proj, ...new Set(b.gram)])));
+  runJobs(data, plans.flatMap((p) => p.bins.flatMap((b) => [...b.proj, ...new Set(b.gram)])).filter((j) => j.vector !== ZERO_VECTOR));
   return plans.map((p) => finishTemplate(data, p));
 }
 
@@ -205,6 +205,12 @@ function planTemplate(data: ScanData, set: TemplateSet, req: TemplateRequest, me
         continue;
       }
       const [x, y] = bin.basis[p]! <= bin.basis[q]! ? [bin.basis[p]!, bin.basis[q]!] : [bin.basis[q]!, bin.basis[p]!];
+      // Components with disjoint supports (line groups far apart in wavelength) have an exactly
+      // zero product: their Gram entry is 0 at every shift and needs no correlation.
+      if (x !== y && isZero(basisProduct(set, template, x, y))) {
+        gram.push({ data: 'w', vector: ZERO_VECTOR, window, corr, out: new Float64Array(window.count) });
+        continue;
+      }
       const vector = templateVector(set, template, `p${x},${y}`, () => basisProduct(set, template, x, y), data.origin, top, corr);
       gram.push({ data: 'w', vector, window, corr });
     }
@@ -310,6 +316,20 @@ function basisProduct(set: TemplateSet, template: BuiltTemplate, p: number, q: n
     set.products.set(key, v);
   }
   return v;
+}
+
+/** Stands for a template vector that is zero everywhere (its correlation is zero, not computed). */
+const ZERO_VECTOR: PreparedVector = { spectrum: new Float64Array(0), norm: 0 };
+
+const zeroProducts = new WeakMap<Float64Array, boolean>();
+
+function isZero(v: Float64Array): boolean {
+  let known = zeroProducts.get(v);
+  if (known === undefined) {
+    known = v.every((x) => x === 0);
+    zeroProducts.set(v, known);
+  }
+  return known;
 }
 
 /** Relative round-off of double-precision FFT correlations, with margin (≈ 1e-16 · log₂N · 10). */
