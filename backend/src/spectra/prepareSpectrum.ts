@@ -15,7 +15,10 @@ export interface PrepareOptions {
   maskSkyLines?: boolean;
   /** Mask the telluric O₂ A and B bands, default false. */
   maskTelluric?: boolean;
-  /** Width of the continuum-removing running mean, dex (default 0.03 ≈ 21,000 km/s). */
+  /**
+   * Width of the continuum-removing running mean, dex. Default: 0.03 (≈ 21,000 km/s), widened for
+   * coarsely sampled spectra to ≈ 150 native pixels (see continuumWidthFor).
+   */
   continuumWidthDex?: number;
   /**
    * Sky-subtraction residuals scale with the sky: when the file carries a sky spectrum, this
@@ -48,6 +51,22 @@ export interface PreparedSpectrum {
   snrMedian: number;
   /** Which masks were applied, for display. */
   masks: string[];
+}
+
+/** Continuum filter widths the default may take, dex: few levels, so few template sets are built. */
+const CONTINUUM_WIDTHS_DEX = [0.03, 0.045, 0.06, 0.09, 0.12, 0.18];
+
+/**
+ * The running-mean width for a spectrum whose native pixels are `nativeStepDex` wide: 0.03 dex, or
+ * ≈ 150 native pixels when that is wider, rounded to a level of CONTINUUM_WIDTHS_DEX. At R ≈ 100
+ * (near-infrared prism spectra, ≈ 0.001 dex per pixel) the features that tell a brown dwarf from a
+ * redshifted galaxy — the H₂O and CH₄ troughs between the J, H and K peaks — are 0.05–0.1 dex wide,
+ * and a 0.03 dex filter removed most of them. 150 pixels sits in the middle of the range (120–180)
+ * that gave the same real-spectra results (chosen on that set).
+ */
+export function continuumWidthFor(nativeStepDex: number): number {
+  const wanted = Math.max(0.03, 150 * nativeStepDex);
+  return CONTINUUM_WIDTHS_DEX.reduce((best, w) => (Math.abs(Math.log(w / wanted)) < Math.abs(Math.log(best / wanted)) ? w : best), 0.03);
 }
 
 /** Bright night-sky emission, vacuum Å (reference-values.md §6: [O I] 5577.339/6300.304/6363.776 air, Na D). */
@@ -97,12 +116,12 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
       last = i;
     }
   }
-  const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? 0.03) / step)) | 1;
-  const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
   const logSteps: number[] = [];
   for (let i = 1; i < n; i += Math.max(1, Math.floor(n / 512))) logSteps.push(Math.log10(vac[i]! / vac[i - 1]!));
   logSteps.sort((a, b) => a - b);
   const nativePx = (logSteps[logSteps.length >> 1] ?? step) / step;
+  const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? continuumWidthFor(nativePx * step)) / step)) | 1;
+  const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
   const snr: number[] = [];
   for (let i = 0; i < n; i++) if (ivar[i]! > 0) snr.push(Math.abs(spectrum.flux[i]!) * Math.sqrt(ivar[i]!));
   snr.sort((a, b) => a - b);

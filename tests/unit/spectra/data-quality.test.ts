@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { continuumSupport } from '../../../backend/src/spectra/continuumSupport';
 import { breakChi2, windowSums } from '../../../backend/src/spectra/lymanBreakCheck';
-import { prepareSpectrum } from '../../../backend/src/spectra/prepareSpectrum';
+import { continuumWidthFor, prepareSpectrum } from '../../../backend/src/spectra/prepareSpectrum';
 import { resampleToLogGrid } from '../../../backend/src/spectra/resampleToLogGrid';
 import type { Spectrum } from '../../../backend/src/spectra/types';
 
@@ -92,5 +92,13 @@ describe('sky-subtraction residuals', () => {
     expect(withSky.ivar[g + 40]! / without.ivar[g + 40]!).toBeCloseTo(1 / (1 + 0.015 ** 2 / 0.01), 3);
     expect(withSky.masks.some((m) => m.startsWith('sky residuals'))).toBe(true);
     expect(without.masks.some((m) => m.startsWith('sky residuals'))).toBe(false);
+  });
+});
+
+describe('continuum filter width follows the sampling', () => {
+  it('is 0.03 dex for optical survey sampling and ≈ 150 native pixels (rounded to a level) for prism spectra', () => {
+    expect(continuumWidthFor(1e-4)).toBe(0.03); // SDSS: 69 km/s pixels
+    expect(continuumWidthFor(4e-4)).toBe(0.06); // 150 × 4e-4 = 0.06
+    expect(continuumWidthFor(1.06e-3)).toBe(0.18); // a near-infrared prism at R ≈ 120: 0.159 → 0.18
   });
 });
