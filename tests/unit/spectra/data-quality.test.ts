@@ -3,6 +3,7 @@ import { continuumSupport } from '../../../backend/src/spectra/continuumSupport'
 import { breakChi2, windowSums } from '../../../backend/src/spectra/lymanBreakCheck';
 import { continuumWidthFor, prepareSpectrum } from '../../../backend/src/spectra/prepareSpectrum';
 import { resampleToLogGrid } from '../../../backend/src/spectra/resampleToLogGrid';
+import { EDGE_WEIGHT, edgeTaper } from '../../../backend/src/spectra/scanTemplate';
 import type { Spectrum } from '../../../backend/src/spectra/types';
 
 /** A spectrum on a linear grid with flux f(λ) and constant σ, vacuum wavelengths. */
@@ -100,5 +101,19 @@ describe('continuum filter width follows the sampling', () => {
     expect(continuumWidthFor(1e-4)).toBe(0.03); // SDSS: 69 km/s pixels
     expect(continuumWidthFor(4e-4)).toBe(0.06); // 150 × 4e-4 = 0.06
     expect(continuumWidthFor(1.06e-3)).toBe(0.18); // a near-infrared prism at R ≈ 120: 0.159 → 0.18
+  });
+});
+
+describe('edge taper of the scan weights', () => {
+  it('weights the ends at 0.3 and reach full weight half a filter width inside', () => {
+    const p = prepareSpectrum(spectrumOf(4000, 9000, 3000, () => 1, 0.1));
+    const taper = edgeTaper(p);
+    const half = p.continuumWidthPx / 2;
+    let first = 0;
+    while (!(p.ivar[first]! > 0)) first++;
+    expect(taper(first)).toBeCloseTo(EDGE_WEIGHT, 9);
+    expect(taper(first + Math.round(half / 2))).toBeCloseTo(EDGE_WEIGHT + (1 - EDGE_WEIGHT) * (Math.round(half / 2) / half), 9);
+    expect(taper(first + Math.ceil(half))).toBe(1);
+    expect(taper(p.n >> 1)).toBe(1);
   });
 });
