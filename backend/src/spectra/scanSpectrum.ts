@@ -118,6 +118,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     requests.push({ template: t, zMin: t.class === 'star' ? t.zMin : zMin, zMax: t.class === 'star' ? t.zMax : zMax });
   }
   const curves = scanTemplates(data, set, requests, options.method ?? 'fft');
+  for (const c of curves) dropShiftsWithoutFeatures(c, prepared, data.chi2Null);
   addLymanBreakChecks(curves, prepared);
   const maxSolutions = options.maxSolutions ?? 5;
   const raw = findSolutions(curves, set.step, maxSolutions);
@@ -154,6 +155,29 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
       templates: curves.map((c) => c.template.id),
     },
   };
+}
+
+/**
+ * A template whose features all fall outside the observed range can still lower χ² through the
+ * sidelobes of the continuum filter (a line just past the red end leaves a broad dip inside it):
+ * that is no evidence, so those shifts get the zero model's χ².
+ */
+function dropShiftsWithoutFeatures(c: TemplateCurve, prepared: PreparedSpectrum, chi2Null: number): void {
+  const n = c.chi2.length;
+  const covered = new Int32Array(n + 1);
+  const { step, wavelengthMin, wavelengthMax } = prepared;
+  for (const l of c.template.lines) {
+    const a = Math.max(0, Math.ceil(Math.log10(wavelengthMin / l.rest) / step) - c.sMin);
+    const b = Math.min(n - 1, Math.floor(Math.log10(wavelengthMax / l.rest) / step) - c.sMin);
+    if (b < a) continue;
+    covered[a]! += 1;
+    covered[b + 1]! -= 1;
+  }
+  let running = 0;
+  for (let i = 0; i < n; i++) {
+    running += covered[i]!;
+    if (running === 0) c.chi2[i] = chi2Null;
+  }
 }
 
 /**

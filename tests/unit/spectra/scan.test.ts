@@ -88,3 +88,15 @@ describe('scanSpectrum on seeded synthetic spectra', () => {
     expect(ranked[1]!.priorWeight).toBeLessThan(1e-10);
   });
 });
+
+describe('shifts where a template has no feature in the observed range', () => {
+  it('give the zero model’s χ²: the filter sidelobes of lines past the edge are not evidence', () => {
+    const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.5, snr: 8, seed: 31, wavelengthMin: 3600, wavelengthMax: 9800 });
+    const r = scanSpectrum(s);
+    const curve = r.curves.find((c) => c.template === 'galaxy-emission')!;
+    // The bluest line of the template is [O II] 3727 Å: beyond z ≈ 1.63 every line is redward of 9800 Å.
+    const beyond = Array.from(curve.z).map((z, i) => [z, curve.chi2[i]!] as const).filter(([z]) => z > 1.65);
+    expect(beyond.length).toBeGreaterThan(100);
+    for (const [, chi2] of beyond) expect(chi2).toBe(r.chi2Null);
+  });
+});
