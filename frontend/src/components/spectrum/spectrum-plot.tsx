@@ -4,10 +4,12 @@ import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { CombLine } from '@/lib/line-list';
 import type { DisplayArrays } from './use-display-arrays';
+import { bandColumns } from './band-columns';
 import { createCombScratch, drawComb, drawPeaks, KIND_COLOURED } from './draw-comb';
 import type { CombLook } from './draw-comb';
 import { dragZ } from './comb';
-import { maskRuns } from './mask-runs';
+import { displayWindow } from './display-window';
+import type { WindowArrays } from './display-window';
 import { PLOT } from './plot-palette';
 import { decimalsFor, niceStep, restFrameSplits } from './rest-frame-axis';
 import { lowerBound, robustRange } from './robust-range';
@@ -50,96 +52,129 @@ const ignorePeak = () => {};
 const HEIGHT = 340;
 const CLICK_SLOP_PX = 3;
 const PEAK_HIT_PX = 7;
+// uPlot series after x: the order the arrays of a window go in (see toData).
+const SKY = 1;
+const MODEL = 3;
+
+type Window = [number, number];
 
 /**
  * The spectrum with its error band, sky and masks, and the comb on its own overlay. uPlot is
- * created once per mount; a new spectrum or smoothing arrives through setData, zoom through
- * setScale, and a comb move repaints only the overlay.
+ * created once per mount. Every change of the x window (zoom, pan, a new spectrum or smoothing,
+ * a resize) goes through one function that hands uPlot the window's arrays reduced to at most
+ * two points per screen column (display-window.ts), so drawing costs the same on 4,000 pixels as
+ * on 100,000. A comb move repaints only the overlay.
  */
 export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
-  const live = useRef({ display, lines, peaks, tool, restFrame, onPeak, masks: maskRuns(display.source.wavelength, display.source.mask) });
+  const live = useRef({ display, lines, combs, peaks, tool, restFrame, onPeak, view: fullRange(display), win: null as WindowArrays | null, columns: 0 });
   const paintComb = useRef<() => void>(() => {});
+  const showWindow = useRef<(view: Window) => void>(() => {});
   live.current.lines = lines;
+  live.current.combs = combs;
   live.current.peaks = peaks;
   live.current.tool = tool;
   live.current.onPeak = onPeak;
   const store = combs[0]!.store;
 
   useImperativeHandle(controls, () => ({
-    resetZoom: () => {
-      const u = plot.current;
-      const w = live.current.display.source.wavelength;
-      if (u && w.length) u.setScale('x', { min: w[0]!, max: w[w.length - 1]! });
-    },
+    resetZoom: () => showWindow.current(fullRange(live.current.display)),
     zoomBy: (factor) => {
-      const u = plot.current;
-      if (!u) return;
-      const [min, max] = xWindow(u);
+      const [min, max] = live.current.view;
       const mid = (min + max) / 2;
       const half = ((max - min) / 2) * factor;
-      u.setScale('x', { min: mid - half, max: mid + half });
+      showWindow.current([mid - half, mid + half]);
     },
     panBy: (fraction) => {
-      const u = plot.current;
-      if (!u) return;
-      const [min, max] = xWindow(u);
+      const [min, max] = live.current.view;
       const d = (max - min) * fraction;
-      u.setScale('x', { min: min + d, max: max + d });
+      showWindow.current([min + d, max + d]);
     },
   }));
 
   useEffect(() => {
     const el = host.current!;
     const scratch = createCombScratch(512);
+    const trialZ = () => live.current.combs[0]!.store.get();
     let overlay: ReturnType<typeof createOverlayCanvas> | null = null;
-    let frame = 0;
+    let bandTop = new Float32Array(0);
+    let bandBottom = new Float32Array(0);
 
     const repaint = () => {
       const u = plot.current;
       if (!u || !overlay) return;
       const toX = (lambda: number) => u.valToPos(lambda, 'x');
-      const { lines, peaks } = live.current;
+      const { lines, peaks, combs } = live.current;
       overlay.paint((ctx, w, h) => {
         for (const comb of combs) drawComb(ctx, lines, comb.store.get(), toX, w, h, scratch, comb.look ?? KIND_COLOURED);
         drawPeaks(ctx, peaks, toX, w, h);
       });
     };
     paintComb.current = repaint;
-    const scheduleRepaint = () => {
-      if (!frame) frame = requestAnimationFrame(() => ((frame = 0), repaint()));
-    };
 
-    const yRange = (u: uPlot): uPlot.Range.MinMax => {
+    // The one way the x window changes: reduce the arrays to it, then set data and scale in one commit.
+    const show = (view: Window) => {
+      const u = plot.current;
+      if (!u || !(view[1] > view[0])) return;
+      const { display } = live.current;
+      const columns = Math.max(1, Math.round(u.bbox.width));
+      const win = displayWindow(display, view[0], view[1], columns);
+      Object.assign(live.current, { view, win, columns });
+      u.batch(() => {
+        if (u.series[SKY]!.show !== (display.source.sky !== null)) u.setSeries(SKY, { show: display.source.sky !== null });
+        if (u.series[MODEL]!.show !== (display.model !== null)) u.setSeries(MODEL, { show: display.model !== null });
+        u.setData(toData(win), false);
+        u.setScale('x', { min: view[0], max: view[1] });
+      });
+    };
+    showWindow.current = show;
+
+    // The flux range of the window being shown (uPlot asks before it commits the new x scale).
+    const yRange = (): uPlot.Range.MinMax => {
       const { flux, source } = live.current.display;
-      const w = source.wavelength;
-      const i0 = lowerBound(w, xWindow(u)[0]);
-      const i1 = lowerBound(w, xWindow(u)[1]);
+      const [min, max] = live.current.view;
+      const i0 = lowerBound(source.wavelength, min);
+      const i1 = lowerBound(source.wavelength, max);
       return robustRange(flux, source.mask, i0, Math.max(i1, i0 + 1)) ?? [-1, 1];
     };
 
     const drawMasks = (u: uPlot) => {
-      const runs = live.current.masks;
-      const { top, height } = u.bbox;
+      const runs = live.current.win?.masked;
+      if (!runs) return;
+      const { left, top, width, height } = u.bbox;
       u.ctx.save();
       u.ctx.fillStyle = PLOT.mask;
       for (let i = 0; i < runs.length; i += 2) {
-        const x0 = u.valToPos(runs[i]!, 'x', true);
-        const x1 = u.valToPos(runs[i + 1]!, 'x', true);
-        if (x1 < u.bbox.left || x0 > u.bbox.left + u.bbox.width) continue;
+        const x0 = Math.max(left, u.valToPos(runs[i]!, 'x', true));
+        const x1 = Math.min(left + width, u.valToPos(runs[i + 1]!, 'x', true));
+        if (x1 < left || x0 > left + width) continue;
         u.ctx.fillRect(x0, top, Math.max(2 * devicePixelRatio, x1 - x0), height);
       }
       u.ctx.restore();
     };
 
-    // Masked pixels are drawn as gaps in the flux and its band (the shading says why); the arrays keep their values.
-    const maskGaps = (u: uPlot, _series: number, _i0: number, _i1: number, nullGaps: uPlot.Series.Gaps): uPlot.Series.Gaps => {
-      const runs = live.current.masks;
-      if (runs.length === 0) return nullGaps;
-      const out: uPlot.Series.Gaps = nullGaps.slice();
-      for (let i = 0; i < runs.length; i += 2) out.push([Math.floor(u.valToPos(runs[i]!, 'x', true)), Math.ceil(u.valToPos(runs[i + 1]!, 'x', true))]);
-      return out.sort((a, b) => a[0] - b[0]);
+    // The ±1σ band under the series, one rectangle per screen column (band-columns.ts says why).
+    const drawBand = (u: uPlot) => {
+      const win = live.current.win;
+      if (!win) return;
+      const { left, width } = u.bbox;
+      const columns = Math.ceil(width);
+      if (bandTop.length < columns) (bandTop = new Float32Array(columns)), (bandBottom = new Float32Array(columns));
+      const toX = (v: number) => u.valToPos(v, 'x', true) - left;
+      const toY = (v: number) => u.valToPos(v, 'y', true);
+      if (bandColumns(win.x, win.bandLow, win.bandHigh, toX, toY, columns, bandTop, bandBottom) === 0) return;
+      const { top, height } = u.bbox;
+      u.ctx.save();
+      u.ctx.fillStyle = PLOT.errorBand;
+      for (let c = 0; c < columns; c++) {
+        const t = bandTop[c]!;
+        if (Number.isNaN(t)) continue;
+        const y0 = Math.max(top, t);
+        const y1 = Math.min(top + height, bandBottom[c]!);
+        if (y1 > y0 - 1) u.ctx.fillRect(left + c, y0, 1, Math.max(1, y1 - y0));
+      }
+      u.ctx.restore();
     };
 
     const xSplits = (u: uPlot, _axis: number, min: number, max: number, incr: number) => {
@@ -148,51 +183,81 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
         for (let v = Math.ceil(min / incr) * incr; v <= max; v += incr) out.push(v);
         return out;
       }
-      return restFrameSplits(min, max, store.get(), Math.max(3, Math.floor(u.bbox.width / devicePixelRatio / 90)));
+      return restFrameSplits(min, max, trialZ(), Math.max(3, Math.floor(u.bbox.width / devicePixelRatio / 90)));
     };
     const xValues = (_u: uPlot, splits: number[]) => {
       if (splits.length === 0) return [];
-      const k = live.current.restFrame ? 1 + store.get() : 1;
+      const k = live.current.restFrame ? 1 + trialZ() : 1;
       const step = splits.length > 1 ? (splits[1]! - splits[0]!) / k : 1;
       const d = decimalsFor(niceStep(step));
       return splits.map((v) => (v / k).toFixed(d));
     };
+
+    // Zoom by drag-select: uPlot reports the selection, the window is set here (with its arrays).
+    const selected = (u: uPlot) => {
+      const { left, width } = u.select;
+      if (width <= 0) return;
+      u.setSelect({ left: 0, top: 0, width: 0, height: 0 }, false);
+      show([u.posToVal(left, 'x'), u.posToVal(left + width, 'x')]);
+    };
+
+    const { display } = live.current;
+    const initial = fullRange(display);
+    // Before uPlot has laid out its axes the plotting area's width is unknown; the element's width
+    // is an upper bound (finer columns than needed, never coarser). A resize that widens the area
+    // reduces the arrays again.
+    const firstColumns = Math.max(1, Math.round((el.clientWidth || 800) * (window.devicePixelRatio || 1)));
+    const firstWin = displayWindow(display, initial[0], initial[1], firstColumns);
+    Object.assign(live.current, { view: initial, win: firstWin, columns: firstColumns });
 
     const u = new uPlot(
       {
         width: el.clientWidth || 800,
         height: HEIGHT,
         legend: { show: false },
-        scales: { x: { time: false }, y: { range: yRange } },
-        cursor: { drag: { x: true, y: false, setScale: true }, points: { show: false }, y: false },
+        scales: { x: { time: false, auto: false, range: () => live.current.view }, y: { range: yRange } },
+        cursor: {
+          drag: { x: true, y: false, setScale: false },
+          points: { show: false },
+          y: false,
+          // A double click resets the zoom here (uPlot's own reset would take the window's arrays for the whole spectrum).
+          bind: { dblclick: () => null },
+        },
         series: [
           {},
-          { label: 'flux − 1σ', stroke: 'transparent', points: { show: false }, gaps: maskGaps },
-          { label: 'flux + 1σ', stroke: 'transparent', points: { show: false }, gaps: maskGaps },
           { label: 'sky', stroke: PLOT.sky, width: 1, points: { show: false }, show: display.source.sky !== null },
-          { label: 'flux', stroke: PLOT.flux, width: 1, points: { show: false }, gaps: maskGaps },
-          { label: 'model', stroke: PLOT.model, width: 1.5, points: { show: false }, show: display.hasModel },
+          { label: 'flux', stroke: PLOT.flux, width: 1, points: { show: false } },
+          { label: 'model', stroke: PLOT.model, width: 1.5, points: { show: false }, show: display.model !== null },
         ],
-        bands: [{ series: [2, 1], fill: PLOT.errorBand }],
         axes: [
           { label: axisLabel(false), stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, splits: xSplits, values: xValues },
           { label: 'Flux', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64 },
         ],
         hooks: {
           drawClear: [drawMasks],
+          drawAxes: [drawBand],
           draw: [repaint],
-          setSize: [() => (overlay?.fit(), repaint())],
+          setSelect: [selected],
+          setSize: [
+            (u) => {
+              overlay?.fit();
+              repaint();
+              // Reducing again inside uPlot's commit would change the data under it: wait for the commit to end.
+              if (Math.round(u.bbox.width) > live.current.columns) queueMicrotask(() => show(live.current.view));
+            },
+          ],
         },
       },
-      toData(display),
+      toData(firstWin),
       el,
     );
     plot.current = u;
     overlay = createOverlayCanvas(u);
     repaint();
 
-    const unsubscribes = combs.map((c) => c.store.subscribe(scheduleRepaint));
-    const detachPointer = attachPointer(u, store, live, scheduleRepaint);
+    const detachPointer = attachPointer(u, live, show, repaint);
+    const resetOnDoubleClick = () => show(fullRange(live.current.display));
+    u.over.addEventListener('dblclick', resetOnDoubleClick);
     const resize = new ResizeObserver(() => {
       const width = el.clientWidth;
       if (width > 0 && width !== u.width) u.setSize({ width, height: HEIGHT });
@@ -200,35 +265,31 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
     resize.observe(el);
 
     return () => {
-      cancelAnimationFrame(frame);
-      for (const off of unsubscribes) off();
       detachPointer();
+      u.over.removeEventListener('dblclick', resetOnDoubleClick);
       resize.disconnect();
       u.destroy();
       plot.current = null;
     };
-    // uPlot is built once per set of combs (per spectrum); later props reach it through `live` and the effects below.
-  }, [combs, store]);
+    // uPlot is built once per mount, also across spectra; later props reach it through `live` and the effects below.
+  }, []);
 
-  // New spectrum: new data and the full range. New smoothing only: same window, y re-ranged.
+  // The combs' stores speak once per frame; a new set of combs (a new spectrum) is drawn at once.
+  useEffect(() => {
+    paintComb.current();
+    const unsubscribes = combs.map((c) => c.store.subscribe(() => paintComb.current()));
+    return () => unsubscribes.forEach((off) => off());
+  }, [combs]);
+
+  // New spectrum: its whole range. New smoothing or model only: the same window.
   const shown = useRef(display);
   useEffect(() => {
-    const u = plot.current;
-    // The first display is the one uPlot was built with (its scales are still being set up).
-    if (!u || shown.current === display) return;
+    // The first display is the one uPlot was built with.
+    if (!plot.current || shown.current === display) return;
     const sameSpectrum = shown.current.source === display.source;
     shown.current = display;
     live.current.display = display;
-    if (!sameSpectrum) live.current.masks = maskRuns(display.source.wavelength, display.source.mask);
-    u.setSeries(3, { show: display.source.sky !== null });
-    u.setSeries(5, { show: display.hasModel });
-    if (sameSpectrum) {
-      const [min, max] = xWindow(u);
-      u.setData(toData(display), false);
-      u.setScale('x', { min, max });
-    } else {
-      u.setData(toData(display), true);
-    }
+    showWindow.current(sameSpectrum ? live.current.view : fullRange(display));
   }, [display]);
 
   useEffect(() => {
@@ -259,42 +320,45 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
       aria-label={label}
       aria-describedby={describedBy}
       tabIndex={0}
-      className={`spectrum-plot relative w-full select-none rounded-control ${tool === 'comb' ? 'cursor-ew-resize' : 'cursor-crosshair'}`}
+      className={`spectrum-plot relative isolate w-full select-none rounded-control ${tool === 'comb' ? 'cursor-ew-resize' : 'cursor-crosshair'}`}
     />
   );
 }
 
-/** The visible wavelength window (uPlot keeps it on the x scale). */
-const xWindow = (u: uPlot): [number, number] => {
-  const { min, max } = u.scales.x!;
-  if (min != null && max != null) return [min, max];
-  // Before uPlot's first commit the scale is unset: the data's own extent is the window.
-  const w = u.data[0];
-  return [w[0] ?? 0, w[w.length - 1] ?? 1];
+/** The spectrum's whole wavelength range. */
+const fullRange = (d: DisplayArrays): Window => {
+  const w = d.source.wavelength;
+  const lo = w[0] ?? 0;
+  const hi = w[w.length - 1] ?? 1;
+  return hi > lo ? [lo, hi] : [lo - 0.5, lo + 0.5];
 };
 
 const axisLabel = (rest: boolean) => (rest ? 'Rest-frame wavelength at the trial z (Å, vacuum)' : 'Observed wavelength (Å, vacuum)');
 
-const toData = (d: DisplayArrays): uPlot.AlignedData => [d.source.wavelength, d.bandLow, d.bandHigh, d.sky, d.flux, d.model];
+const toData = (w: WindowArrays): uPlot.AlignedData => [w.x, w.sky, w.flux, w.model];
 
-type Live = { current: { tool: PlotTool; peaks: Array<{ wavelength: number }>; onPeak: (index: number) => void; display: DisplayArrays } };
+type Live = { current: { tool: PlotTool; combs: readonly PlotComb[]; peaks: Array<{ wavelength: number }>; onPeak: (index: number) => void; display: DisplayArrays; view: Window } };
 
 /**
  * Pointer handling on the plotting area: with the comb tool a drag moves the comb (the marker
  * under the pointer follows it); Shift + drag pans with either tool; the wheel zooms around the
  * pointer. Cancelling pointerdown keeps uPlot's own drag-select out of comb drags and pans.
+ * Pans and wheel zooms are applied once per frame, however many events arrive.
  */
-function attachPointer(u: uPlot, store: TrialZStore, live: Live, repaint: () => void): () => void {
+function attachPointer(u: uPlot, live: Live, show: (view: Window) => void, repaint: () => void): () => void {
   const over = u.over;
   let mode: 'none' | 'comb' | 'pan' = 'none';
   let startX = 0;
   let startLambda = 0;
   let startZ = 0;
-  let startMin = 0;
-  let startMax = 0;
+  let store: TrialZStore = live.current.combs[0]!.store;
+  let startView: Window = [0, 1];
   let moved = false;
+  let left = 0;
+  let panFrame = 0;
+  let panTo: Window = [0, 1];
 
-  const localX = (e: PointerEvent | WheelEvent) => e.clientX - over.getBoundingClientRect().left;
+  const localX = (e: PointerEvent | WheelEvent) => e.clientX - left;
 
   const down = (e: PointerEvent) => {
     if (e.button !== 0) return;
@@ -303,11 +367,14 @@ function attachPointer(u: uPlot, store: TrialZStore, live: Live, repaint: () => 
     e.preventDefault();
     (over.closest('[role="group"]') as HTMLElement | null)?.focus({ preventScroll: true });
     over.setPointerCapture(e.pointerId);
+    // Read the layout once per drag, not on every move (each read can force a layout).
+    left = over.getBoundingClientRect().left;
     mode = e.shiftKey ? 'pan' : 'comb';
     startX = localX(e);
     startLambda = u.posToVal(startX, 'x');
+    store = live.current.combs[0]!.store;
     startZ = store.get();
-    [startMin, startMax] = xWindow(u);
+    startView = live.current.view;
     moved = false;
   };
 
@@ -316,12 +383,14 @@ function attachPointer(u: uPlot, store: TrialZStore, live: Live, repaint: () => 
     const x = localX(e);
     if (Math.abs(x - startX) > CLICK_SLOP_PX) moved = true;
     if (!moved) return;
-    if (mode === 'comb') store.set(dragZ(startZ, startLambda, u.posToVal(x, 'x')));
-    else {
-      const perPx = (startMax - startMin) / u.over.clientWidth;
-      const d = (startX - x) * perPx;
-      u.setScale('x', { min: startMin + d, max: startMax + d });
+    if (mode === 'comb') {
+      store.set(dragZ(startZ, startLambda, u.posToVal(x, 'x')));
+      return;
     }
+    const perPx = (startView[1] - startView[0]) / over.clientWidth;
+    const d = (startX - x) * perPx;
+    panTo = [startView[0] + d, startView[1] + d];
+    if (!panFrame) panFrame = requestAnimationFrame(() => ((panFrame = 0), show(panTo)));
   };
 
   const up = (e: PointerEvent) => {
@@ -347,18 +416,19 @@ function attachPointer(u: uPlot, store: TrialZStore, live: Live, repaint: () => 
   const wheel = (e: WheelEvent) => {
     e.preventDefault();
     wheelFactor *= Math.exp(e.deltaY * 0.0015);
+    left = over.getBoundingClientRect().left;
     wheelAt = localX(e);
     if (wheelFrame) return;
     wheelFrame = requestAnimationFrame(() => {
       wheelFrame = 0;
-      const [min, max] = xWindow(u);
+      const [min, max] = live.current.view;
       const at = u.posToVal(wheelAt, 'x');
       const w = live.current.display.source.wavelength;
       const full = w[w.length - 1]! - w[0]!;
       const span = Math.min(full * 1.05, Math.max(full * 1e-4, (max - min) * wheelFactor));
-      const left = (at - min) / (max - min);
+      const frac = (at - min) / (max - min);
       wheelFactor = 1;
-      u.setScale('x', { min: at - left * span, max: at + (1 - left) * span });
+      show([at - frac * span, at + (1 - frac) * span]);
     });
   };
 
@@ -369,6 +439,7 @@ function attachPointer(u: uPlot, store: TrialZStore, live: Live, repaint: () => 
   over.addEventListener('wheel', wheel, { passive: false });
   return () => {
     cancelAnimationFrame(wheelFrame);
+    cancelAnimationFrame(panFrame);
     over.removeEventListener('pointerdown', down);
     over.removeEventListener('pointermove', move);
     over.removeEventListener('pointerup', up);

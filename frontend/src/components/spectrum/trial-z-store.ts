@@ -1,9 +1,23 @@
 type Listener = (z: number) => void;
 
+/** Runs a callback before the next frame is drawn; returns a handle for `cancel`. */
+export interface FrameScheduler {
+  request: (callback: () => void) => number;
+  cancel: (handle: number) => void;
+}
+
+const animationFrames: FrameScheduler = {
+  request: (callback) => requestAnimationFrame(callback),
+  cancel: (handle) => cancelAnimationFrame(handle),
+};
+
 /**
  * The comb's trial redshift lives outside React: a drag changes it on every pointer move, and
  * only the few things that show it (the comb overlay, the strip cursor, the input) should hear
- * about it, not the whole screen. Values are clamped to the campaign's range.
+ * about it, not the whole screen. `get` is always current; listeners hear at most once per
+ * animation frame, all in one callback, with the latest value — so a burst of moves costs one
+ * repaint, and React renders triggered there land in the same frame as the overlays. Values are
+ * clamped to the campaign's range.
  */
 export interface TrialZStore {
   get: () => number;
@@ -13,9 +27,14 @@ export interface TrialZStore {
   readonly max: number;
 }
 
-export function createTrialZStore(initial: number, min: number, max: number): TrialZStore {
+export function createTrialZStore(initial: number, min: number, max: number, frames: FrameScheduler = animationFrames): TrialZStore {
   let z = clamp(initial, min, max);
   const listeners = new Set<Listener>();
+  let pending = 0;
+  const flush = () => {
+    pending = 0;
+    for (const l of listeners) l(z);
+  };
   return {
     min,
     max,
@@ -24,11 +43,17 @@ export function createTrialZStore(initial: number, min: number, max: number): Tr
       const v = clamp(next, min, max);
       if (v === z || !Number.isFinite(v)) return;
       z = v;
-      for (const l of listeners) l(z);
+      if (listeners.size > 0 && pending === 0) pending = frames.request(flush);
     },
     subscribe: (l) => {
       listeners.add(l);
-      return () => listeners.delete(l);
+      return () => {
+        listeners.delete(l);
+        if (listeners.size === 0 && pending !== 0) {
+          frames.cancel(pending);
+          pending = 0;
+        }
+      };
     },
   };
 }

@@ -1,46 +1,30 @@
 import { useMemo } from 'react';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
-import { smoothFlux } from './smooth';
+import { smoothFlux, smoothingWidths } from './smooth';
 import type { Smoothing } from './smooth';
 
-/** What the plot draws: the (optionally smoothed) flux and the error band around it. */
+/**
+ * What the plot draws, at full resolution: the flux as shown (smoothed or not) and the model of
+ * the chosen solution. The error band (shown flux ± the raw 1σ), sky and mask come from `source`
+ * and are reduced to the window on screen only when drawn (display-window.ts).
+ */
 export interface DisplayArrays {
   source: SpectrumArrays;
   flux: Float32Array;
-  bandLow: Float32Array;
-  bandHigh: Float32Array;
-  sky: Float32Array;
-  /** Best-fit model of a solution, or all NaN (hidden) when none is shown. */
-  model: Float32Array;
-  hasModel: boolean;
+  /** Best-fit model of a solution on the spectrum's pixels, or null when none is shown. */
+  model: Float32Array | null;
 }
 
 /**
- * Computed into new arrays only when the spectrum or the smoothing changes; the stored data are
- * never altered. The band follows the raw 1σ error around the shown flux; where the error is
- * unknown the band closes onto the flux rather than inventing a width.
+ * The stored arrays are never altered: smoothing (in pixels, or in km/s converted with each
+ * pixel's own velocity width) makes a new flux array, and only when the spectrum or the smoothing
+ * changes; without smoothing the stored flux is shown as it is.
  */
 export function useDisplayArrays(arrays: SpectrumArrays, smoothing: Smoothing, solutionModel: Float32Array | null = null): DisplayArrays {
-  const flux = useMemo(() => smoothFlux(arrays.flux, arrays.mask, smoothing), [arrays, smoothing]);
-  const band = useMemo(() => {
-    const n = flux.length;
-    const lo = new Float32Array(n);
-    const hi = new Float32Array(n);
-    for (let i = 0; i < n; i++) {
-      const e = arrays.error[i]!;
-      const f = flux[i]!;
-      const d = Number.isFinite(e) ? e : 0;
-      lo[i] = f - d;
-      hi[i] = f + d;
-    }
-    return { lo, hi };
-  }, [arrays, flux]);
-  // uPlot wants every series the same length; a spectrum without sky gets an empty (NaN) one, hidden.
-  const sky = useMemo(() => arrays.sky ?? new Float32Array(arrays.pixels).fill(Number.NaN), [arrays]);
-  const usableModel = solutionModel !== null && solutionModel.length === arrays.pixels ? solutionModel : null;
-  const model = useMemo(() => usableModel ?? new Float32Array(arrays.pixels).fill(Number.NaN), [arrays, usableModel]);
-  return useMemo(
-    () => ({ source: arrays, flux, bandLow: band.lo, bandHigh: band.hi, sky, model, hasModel: usableModel !== null }),
-    [arrays, flux, band, sky, model, usableModel],
+  const flux = useMemo(
+    () => (smoothing.kind === 'none' || arrays.pixels < 2 ? arrays.flux : smoothFlux(arrays.flux, arrays.mask, smoothing.kind, smoothingWidths(smoothing, arrays.wavelength))),
+    [arrays, smoothing],
   );
+  const model = solutionModel !== null && solutionModel.length === arrays.pixels ? solutionModel : null;
+  return useMemo(() => ({ source: arrays, flux, model }), [arrays, flux, model]);
 }

@@ -10,7 +10,7 @@ import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatRedshift } from '@/lib/format';
 import type { CombLine } from '@/lib/line-list';
 
-const NO_SMOOTHING = { kind: 'none', width: 5 } as const;
+const NO_SMOOTHING = { kind: 'none', width: 5, unit: 'pixels' } as const;
 
 /**
  * The spectrum with both readings' combs at once: the first reading's labels run along the top,

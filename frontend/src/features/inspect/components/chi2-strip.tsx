@@ -12,16 +12,22 @@ const HEIGHT = 170;
 /**
  * χ²(z) per class under the spectrum: dips are candidate redshifts. The solutions are marked with
  * their rank, the trial z is a cursor line on an overlay, and a click sets the trial z there.
+ * The strip is built once and kept across spectra (new curves arrive through setData; only a
+ * different set of classes rebuilds it); the cursor repaints the overlay alone, once per frame.
  */
 export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; solutions: Solution[]; store: TrialZStore }) {
   const host = useRef<HTMLDivElement>(null);
-  const live = useRef({ solutions });
+  const live = useRef({ solutions, store, data });
   live.current.solutions = solutions;
+  live.current.store = store;
+  const plot = useRef<{ u: uPlot; paint: () => void; shown: Chi2StripData } | null>(null);
+  const classes = data.classes.join(' ');
 
   useEffect(() => {
     const el = host.current!;
+    const { data } = live.current;
     let overlay: ReturnType<typeof createOverlayCanvas> | null = null;
-    let frame = 0;
+    let plotRef: uPlot | null = null;
     const paint = () => {
       const u = plotRef;
       if (!overlay || !u) return;
@@ -39,7 +45,7 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
           ctx.fillText(String(i + 1), x + 2, 2);
         });
         ctx.setLineDash([]);
-        const x = Math.round(u.valToPos(store.get(), 'x')) + 0.5;
+        const x = Math.round(u.valToPos(live.current.store.get(), 'x')) + 0.5;
         ctx.strokeStyle = PLOT.cursor;
         ctx.lineWidth = 2;
         ctx.beginPath();
@@ -49,7 +55,6 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
         ctx.lineWidth = 1;
       });
     };
-    let plotRef: uPlot | null = null;
     const u = new uPlot(
       {
         width: el.clientWidth || 800,
@@ -57,23 +62,22 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
         legend: { show: false },
         cursor: { drag: { x: false, y: false }, points: { show: false }, y: false },
         scales: { x: { time: false }, y: { distr: 3 } },
-        series: [{}, ...data.classes.map((c) => ({ label: c, stroke: PLOT.classes[c] ?? PLOT.axis, width: 1.25, spanGaps: false, points: { show: false } }))],
+        // Curves one pixel wide: wider strokes of a jagged curve are far slower to rasterise in software.
+        series: [{}, ...data.classes.map((c) => ({ label: c, stroke: PLOT.classes[c] ?? PLOT.axis, width: 1, spanGaps: false, points: { show: false } }))],
         axes: [
           { label: 'Redshift', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid } },
           { label: 'χ² − min + 1', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64 },
         ],
         hooks: { draw: [paint], setSize: [() => (overlay?.fit(), paint())] },
       },
-      [data.z, ...data.series] as uPlot.AlignedData,
+      toData(data),
       el,
     );
     plotRef = u;
+    plot.current = { u, paint, shown: data };
     overlay = createOverlayCanvas(u);
     paint();
-    const unsubscribe = store.subscribe(() => {
-      if (!frame) frame = requestAnimationFrame(() => ((frame = 0), paint()));
-    });
-    const click = (e: MouseEvent) => store.set(u.posToVal(e.clientX - u.over.getBoundingClientRect().left, 'x'));
+    const click = (e: MouseEvent) => live.current.store.set(u.posToVal(e.clientX - u.over.getBoundingClientRect().left, 'x'));
     u.over.addEventListener('click', click);
     const resize = new ResizeObserver(() => {
       const width = el.clientWidth;
@@ -81,16 +85,30 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
     });
     resize.observe(el);
     return () => {
-      cancelAnimationFrame(frame);
-      unsubscribe();
       resize.disconnect();
       u.over.removeEventListener('click', click);
       u.destroy();
+      plot.current = null;
     };
-  }, [data, store]);
+  }, [classes]);
+
+  // New curves with the same classes (the next spectrum): new data, axes re-ranged, the same uPlot.
+  useEffect(() => {
+    live.current.data = data;
+    const p = plot.current;
+    if (!p || p.shown === data) return;
+    p.shown = data;
+    p.u.setData(toData(data), true);
+  }, [data]);
+
+  // The cursor follows the trial z (once per frame) and the marks follow the solutions.
+  useEffect(() => {
+    plot.current?.paint();
+    return store.subscribe(() => plot.current?.paint());
+  }, [store, solutions]);
 
   return (
-    <figure className="flex flex-col gap-1">
+    <figure className="isolate flex flex-col gap-1">
       <div ref={host} role="img" aria-label="χ² against z per class (a click moves the comb there)" className="w-full cursor-pointer" />
       <figcaption className="flex flex-wrap gap-x-4 text-xs text-ink-600">
         {data.classes.map((c) => (
@@ -108,3 +126,5 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
     </figure>
   );
 }
+
+const toData = (d: Chi2StripData) => [d.z, ...d.series] as uPlot.AlignedData;

@@ -10,6 +10,7 @@ import { useSolutionModel } from '../api/get-solution-model';
 import { useInspectKeys } from '../hooks/use-inspect-keys';
 import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
+import { usePerSpectrum } from '../hooks/use-per-spectrum';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
 import { linesOnData, nudgeZ, pixelStepFactor } from '@/components/spectrum/comb';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
@@ -27,6 +28,12 @@ import { SolutionsList } from './solutions-list';
 import { SpectrumPlot } from '@/components/spectrum/spectrum-plot';
 import type { PlotControls, PlotTool } from '@/components/spectrum/spectrum-plot';
 import { TrialZInput } from './trial-z-input';
+
+/**
+ * Each panel paints on its own (a stacking context): while the comb is dragged, a panel whose
+ * content did not change is not repainted because its neighbour's did.
+ */
+const OWN_PAINT = 'isolate';
 
 export interface QueueNavigation {
   /** e.g. "3 of 60 in your queue". */
@@ -47,35 +54,41 @@ interface Props {
   aside?: ReactNode;
 }
 
-/** One spectrum on the bench: plot and comb, solutions, close-ups, the reading and the context. Mounted per spectrum. */
+/**
+ * One spectrum on the bench: plot and comb, solutions, close-ups, the reading and the context.
+ * Mounted once and kept from one spectrum to the next: the plots keep their canvases and the
+ * reader's view settings (tool, smoothing, frame, template) carry over, while the comb, the draft
+ * reading and a picked peak start afresh with each spectrum (usePerSpectrum).
+ */
 export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, aside }: Props) {
   const { campaign, scan } = detail;
+  const spectrumId = detail.spectrum.id;
   const solutions = useMemo(() => scan?.solutions ?? [], [scan]);
   const mine = detail.readings[0];
   const top = solutions[0];
-  const [store] = useState(() => createTrialZStore(mine?.z ?? top?.z ?? Math.max(0, campaign.zMin), Math.max(-0.01, campaign.zMin - 0.01), campaign.zMax));
+  const [store] = usePerSpectrum(spectrumId, () => createTrialZStore(mine?.z ?? top?.z ?? Math.max(0, campaign.zMin), Math.max(-0.01, campaign.zMin - 0.01), campaign.zMax));
   const combs = useMemo(() => [{ store }], [store]);
-  const [draft, setDraft] = useReadingDraft(mine, asSpectrumClass(mine?.class ?? top?.class ?? scan?.class));
+  const [draft, setDraft] = useReadingDraft(spectrumId, mine, asSpectrumClass(mine?.class ?? top?.class ?? scan?.class));
   const [tool, setTool] = useState<PlotTool>('comb');
-  const [smoothing, setSmoothing] = useState<Smoothing>({ kind: 'none', width: 5 });
-  const lastSmoothing = useRef<Smoothing>({ kind: 'boxcar', width: 5 });
+  const [smoothing, setSmoothing] = useState<Smoothing>({ kind: 'none', width: 5, unit: 'pixels' });
+  const lastSmoothing = useRef<Smoothing>({ kind: 'boxcar', width: 5, unit: 'pixels' });
   const [restFrame, setRestFrame] = useState(false);
   const [helpOpen, setHelpOpen] = useState(false);
-  const [pickedPeak, setPickedPeak] = useState<number | null>(null);
+  const [pickedPeak, setPickedPeak] = usePerSpectrum<number | null>(spectrumId, () => null);
   const controls = useRef<PlotControls>(null);
   const zInput = useRef<HTMLInputElement>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
   // The template of the solution last snapped to (the top one at first) is drawn over the data.
-  const [modelRank, setModelRank] = useState<number | null>(solutions.length > 0 ? 1 : null);
+  const [modelRank, setModelRank] = usePerSpectrum<number | null>(spectrumId, () => (solutions.length > 0 ? 1 : null));
   const [showModel, setShowModel] = useState(true);
-  const model = useSolutionModel(detail.spectrum.id, showModel ? modelRank : null);
+  const model = useSolutionModel(spectrumId, showModel ? modelRank : null);
   const display = useDisplayArrays(arrays, smoothing, showModel ? (model.data ?? null) : null);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
 
   const { save, pending, error } = useSaveReading({
-    spectrumId: detail.spectrum.id,
+    spectrumId,
     campaignId: campaign.id,
     store,
     solutions,
@@ -148,10 +161,10 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
 
       <div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="flex min-w-0 flex-col gap-3">
-          <section aria-label="Spectrum and comb" className="flex flex-col gap-2 rounded-panel border border-paper-300 bg-paper-50 p-3">
-            <div className="flex flex-wrap items-end gap-x-5 gap-y-2">
+          <section aria-label="Spectrum and comb" className={`flex flex-col gap-2 rounded-panel border border-paper-300 bg-paper-50 p-3 ${OWN_PAINT}`}>
+            <div className={`flex flex-wrap items-end gap-x-5 gap-y-2 ${OWN_PAINT}`}>
               <TrialZInput ref={zInput} store={store} />
-              <PlotToolbar tool={tool} onTool={setTool} smoothing={smoothing} onSmoothing={setSmoothingKind} restFrame={restFrame} onRestFrame={setRestFrame} controls={controls} />
+              <PlotToolbar tool={tool} onTool={setTool} smoothing={smoothing} onSmoothing={setSmoothingKind} wavelength={arrays.wavelength} restFrame={restFrame} onRestFrame={setRestFrame} controls={controls} />
             </div>
             <p id="plot-help" className="sr-only">
               Arrow keys nudge the comb by one pixel in velocity, with Shift by ten. Plus and minus zoom, comma and full stop pan, r resets the zoom. Press question mark for all keys.
@@ -167,16 +180,16 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
               controls={controls}
               describedBy="plot-help"
             />
-            <Legend hasSky={arrays.sky !== null} hasModel={display.hasModel} />
+            <Legend hasSky={arrays.sky !== null} hasModel={display.model !== null} />
             {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
           </section>
-          <Panel>
+          <Panel className={OWN_PAINT}>
             <FeaturePanels display={display} store={store} />
           </Panel>
         </div>
 
         <div className="flex min-w-0 flex-col gap-3">
-          <Panel title="Solutions">
+          <Panel title="Solutions" className={OWN_PAINT}>
             <SolutionsList solutions={solutions} store={store} target={detail.target} onSnap={snap} />
             <label className="mt-2 flex items-center gap-2 text-sm text-ink-700">
               <input type="checkbox" checked={showModel} onChange={(e) => setShowModel(e.target.checked)} />
@@ -184,7 +197,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
             </label>
             {showModel && model.isError ? <p className="text-xs text-warning-700">{model.error.message}</p> : null}
           </Panel>
-          <Panel title="Reading">
+          <Panel title="Reading" className={OWN_PAINT}>
             {canRead ? (
               <ReadingForm
                 store={store}
@@ -203,12 +216,12 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
             )}
           </Panel>
           {scan ? (
-            <Panel title="Peaks and line pairs">
+            <Panel title="Peaks and line pairs" className={OWN_PAINT}>
               <PeaksPanel lineMatches={scan.lineMatches} lines={lines} zMin={store.min} zMax={store.max} picked={pickedPeak} onPick={setPickedPeak} onZ={(v) => store.set(v)} />
             </Panel>
           ) : null}
           {aside}
-          <Panel title="Context">
+          <Panel title="Context" className={OWN_PAINT}>
             <ContextPanel detail={detail} arrays={arrays} />
           </Panel>
         </div>
@@ -221,7 +234,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
 function Legend({ hasSky, hasModel }: { hasSky: boolean; hasModel: boolean }) {
   const item = 'inline-flex items-center gap-1.5';
   return (
-    <ul aria-label="Plot legend" className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600">
+    <ul aria-label="Plot legend" className={`flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600 ${OWN_PAINT}`}>
       <li className={item}>
         <span aria-hidden="true" className="inline-block h-0.5 w-4 bg-ink-900" /> flux
       </li>

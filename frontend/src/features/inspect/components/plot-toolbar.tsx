@@ -1,7 +1,10 @@
+import { useMemo, useState } from 'react';
 import type { RefObject } from 'react';
 import { Button } from '@/components/ui/button';
 import { controlClass } from '@/components/ui/field';
-import type { Smoothing, SmoothingKind } from '@/components/spectrum/smooth';
+import { convertSmoothingWidth, MAX_SMOOTHING_PIXELS } from '@/components/spectrum/smooth';
+import type { Smoothing, SmoothingKind, SmoothingUnit } from '@/components/spectrum/smooth';
+import { pixelVelocitySummary } from '@/components/spectrum/velocity';
 import type { PlotControls, PlotTool } from '@/components/spectrum/spectrum-plot';
 
 interface Props {
@@ -9,6 +12,8 @@ interface Props {
   onTool: (tool: PlotTool) => void;
   smoothing: Smoothing;
   onSmoothing: (s: Smoothing) => void;
+  /** The spectrum's grid (vacuum Å): a width in km/s is converted with its pixels' velocity widths. */
+  wavelength: Float64Array;
   restFrame: boolean;
   onRestFrame: (rest: boolean) => void;
   controls: RefObject<PlotControls | null>;
@@ -20,7 +25,7 @@ const TOOLS: Array<{ id: PlotTool; label: string; hint: string }> = [
 ];
 
 /** Everything the pointer does on the plot, as ordinary controls (and keys, see the key map). */
-export function PlotToolbar({ tool, onTool, smoothing, onSmoothing, restFrame, onRestFrame, controls }: Props) {
+export function PlotToolbar({ tool, onTool, smoothing, onSmoothing, wavelength, restFrame, onRestFrame, controls }: Props) {
   return (
     <div className="flex flex-wrap items-end gap-x-4 gap-y-2">
       <fieldset className="flex flex-col gap-1">
@@ -51,46 +56,92 @@ export function PlotToolbar({ tool, onTool, smoothing, onSmoothing, restFrame, o
           Reset zoom
         </Button>
       </div>
-      <div className="flex items-end gap-2">
-        <div className="flex flex-col gap-1">
-          <label htmlFor="smoothing-kind" className="text-sm font-medium text-ink-800">
-            Smoothing
-          </label>
-          <select
-            id="smoothing-kind"
-            value={smoothing.kind}
-            onChange={(e) => onSmoothing({ ...smoothing, kind: e.target.value as SmoothingKind })}
-            className={`${controlClass} w-28 py-1 text-sm`}
-          >
-            <option value="none">none</option>
-            <option value="boxcar">boxcar</option>
-            <option value="gaussian">Gaussian</option>
-          </select>
-        </div>
-        <div className="flex flex-col gap-1">
-          <label htmlFor="smoothing-width" className="text-sm font-medium text-ink-800">
-            Width (pixels)
-          </label>
-          <input
-            id="smoothing-width"
-            type="number"
-            min={2}
-            max={101}
-            step={1}
-            value={smoothing.width}
-            disabled={smoothing.kind === 'none'}
-            onChange={(e) => {
-              const w = Math.round(Number(e.target.value));
-              if (w >= 2 && w <= 101) onSmoothing({ ...smoothing, width: w });
-            }}
-            className={`${controlClass} num w-20 py-1 text-sm`}
-          />
-        </div>
-      </div>
+      <SmoothingControls smoothing={smoothing} onSmoothing={onSmoothing} wavelength={wavelength} />
       <label className="flex items-center gap-2 pb-1 text-sm text-ink-800">
         <input type="checkbox" checked={restFrame} onChange={(e) => onRestFrame(e.target.checked)} className="size-4 accent-ink-900" />
         Rest-frame axis
       </label>
+    </div>
+  );
+}
+
+/**
+ * Kind, width and unit of the smoothing. A width in km/s is converted with each pixel's own
+ * velocity width; switching unit carries the width over at the spectrum's median pixel. The
+ * widest smoothing is MAX_SMOOTHING_PIXELS pixels, in km/s that many of the narrowest pixel.
+ */
+function SmoothingControls({ smoothing, onSmoothing, wavelength }: { smoothing: Smoothing; onSmoothing: (s: Smoothing) => void; wavelength: Float64Array }) {
+  const off = smoothing.kind === 'none';
+  // Only needed while smoothing is on: a pass over every pixel, not made on each new spectrum otherwise.
+  const grid = useMemo(() => {
+    if (off || wavelength.length < 2) return null;
+    const v = pixelVelocitySummary(wavelength);
+    return { kmsPerPixel: v.median, maxKms: Math.floor(MAX_SMOOTHING_PIXELS * v.min) };
+  }, [wavelength, off]);
+  const [typed, setTyped] = useState<string | null>(null);
+  const kms = smoothing.unit === 'km/s';
+  const min = kms ? 1 : 2;
+  const max = kms ? Math.max(1, grid?.maxKms ?? smoothing.width) : MAX_SMOOTHING_PIXELS;
+  const apply = (text: string) => {
+    setTyped(text);
+    const w = Math.round(Number(text));
+    if (text.trim() !== '' && w >= min && w <= max) onSmoothing({ ...smoothing, width: w });
+  };
+  const changeUnit = (unit: SmoothingUnit) => {
+    if (!grid || unit === smoothing.unit) return;
+    const carried = Math.round(convertSmoothingWidth(smoothing.width, smoothing.unit, unit, grid.kmsPerPixel));
+    const [lo, hi] = unit === 'km/s' ? [1, Math.max(1, grid.maxKms)] : [2, MAX_SMOOTHING_PIXELS];
+    setTyped(null);
+    onSmoothing({ ...smoothing, unit, width: Math.min(hi, Math.max(lo, carried)) });
+  };
+  return (
+    <div className="flex items-end gap-2">
+      <div className="flex flex-col gap-1">
+        <label htmlFor="smoothing-kind" className="text-sm font-medium text-ink-800">
+          Smoothing
+        </label>
+        <select id="smoothing-kind" value={smoothing.kind} onChange={(e) => onSmoothing({ ...smoothing, kind: e.target.value as SmoothingKind })} className={`${controlClass} w-28 py-1 text-sm`}>
+          <option value="none">none</option>
+          <option value="boxcar">boxcar</option>
+          <option value="gaussian">Gaussian</option>
+        </select>
+      </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="smoothing-width" className="text-sm font-medium text-ink-800">
+          Width
+        </label>
+        <input
+          id="smoothing-width"
+          type="number"
+          min={min}
+          max={max}
+          step={1}
+          value={typed ?? String(smoothing.width)}
+          disabled={off}
+          aria-describedby="smoothing-width-hint"
+          onChange={(e) => apply(e.target.value)}
+          onBlur={() => setTyped(null)}
+          className={`${controlClass} num w-20 py-1 text-sm`}
+        />
+      </div>
+      <div className="flex flex-col gap-1">
+        <label htmlFor="smoothing-unit" className="text-sm font-medium text-ink-800">
+          Unit
+        </label>
+        <select id="smoothing-unit" value={smoothing.unit} disabled={off || !grid} onChange={(e) => changeUnit(e.target.value as SmoothingUnit)} className={`${controlClass} w-24 py-1 text-sm`}>
+          <option value="pixels">pixels</option>
+          <option value="km/s">km/s</option>
+        </select>
+      </div>
+      {grid && !off ? (
+        <span aria-hidden="true" className="num pb-1.5 text-xs text-ink-500">
+          ≈ {kms ? `${(smoothing.width / grid.kmsPerPixel).toFixed(1)} px` : `${Math.round(smoothing.width * grid.kmsPerPixel)} km/s`}
+        </span>
+      ) : null}
+      <p id="smoothing-width-hint" className="sr-only">
+        {smoothing.kind === 'gaussian' ? 'Full width at half maximum' : 'Full width'}, from {min} to {max} {smoothing.unit}
+        {grid ? `; one pixel is about ${Math.round(grid.kmsPerPixel)} km/s at the middle of this spectrum` : ''}.
+      </p>
     </div>
   );
 }

@@ -54,7 +54,9 @@ export function QueueInspector({ campaign }: { campaign: { id: number; name: str
   const nextId = index >= 0 ? (items[index + 1]?.id ?? null) : (items.find((q) => q.id !== currentId)?.id ?? null);
   const earlier = visited.current.slice(0, -1).reverse().find((id) => id !== currentId);
   const previousId = index > 0 ? items[index - 1]!.id : (earlier ?? null);
-  const open = (id: number | null, state?: SavedFlash) => navigate(id === null ? `/campaigns/${campaign.id}/inspect` : `/campaigns/${campaign.id}/inspect?spectrum=${id}`, { state: state ?? null });
+  // The next spectrum is prefetched: draw it in this task, not as a transition spread over several frames.
+  const open = (id: number | null, state?: SavedFlash) =>
+    navigate(id === null ? `/campaigns/${campaign.id}/inspect` : `/campaigns/${campaign.id}/inspect?spectrum=${id}`, { state: state ?? null, flushSync: true });
 
   const onSaved = (reading: Reading, detail: SpectrumDetail) => open(nextId, savedFlash(reading, detail));
 

@@ -3,10 +3,11 @@ import type { Grade } from '@contracts/grades';
 import type { RefObject } from 'react';
 import { Button } from '@/components/ui/button';
 import { controlClass } from '@/components/ui/field';
+import { LiveNumber } from '@/components/ui/live-number';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
-import { useTrialZ, useTrialZDerived } from '../hooks/use-trial-z';
+import { useTrialZ, useTrialZSettled } from '../hooks/use-trial-z';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES, CLASS_ORDER } from '@/lib/spectrum-class';
 
@@ -101,12 +102,20 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
 }
 
 function CombZ({ store }: { store: TrialZStore }) {
-  return <span className="num text-md font-semibold text-ink-900">{formatRedshift(useTrialZ(store))}</span>;
+  return (
+    <LiveNumber chars={8} className="text-md font-semibold text-ink-900">
+      {formatRedshift(useTrialZ(store))}
+    </LiveNumber>
+  );
 }
 
-/** The lines list re-renders only when the set of lines on data changes, not on every step of a drag. */
+/**
+ * The lines list follows the comb once it rests: during a drag the set of lines on unmasked data
+ * changes on almost every frame, and re-laying out the list each time would cost more than the
+ * frame. A save always reads the lines at the comb's position of that moment.
+ */
 function LinesUsedField({ store, onDataAt, draft, onDraft }: Pick<Props, 'store' | 'onDataAt' | 'draft' | 'onDraft'>) {
-  const joined = useTrialZDerived(store, (z) => onDataAt(z).join('\n'));
+  const joined = useTrialZSettled(store, (z) => onDataAt(z).join('\n'));
   const onData = joined ? joined.split('\n') : [];
   const shown = [...new Set([...onData, ...draft.added])];
   const checked = (name: string) => (onData.includes(name) ? !draft.excluded.has(name) : draft.added.has(name));

@@ -26,7 +26,7 @@ export function SpectrumInspector({ spectrumId, aside }: { spectrumId: number; a
 
   const onSaved = (reading: Reading, d: SpectrumDetail) => {
     // Saved from a queue item: carry on with the queue; otherwise stay and show the saved reading.
-    if (nextId !== null) navigate(`/campaigns/${d.campaign.id}/inspect?spectrum=${nextId}`, { state: savedFlash(reading, d) });
+    if (nextId !== null) navigate(`/campaigns/${d.campaign.id}/inspect?spectrum=${nextId}`, { state: savedFlash(reading, d), flushSync: true });
     else navigate(`/spectra/${spectrumId}`, { state: savedFlash(reading, d), replace: true });
   };
 
@@ -38,8 +38,9 @@ export function SpectrumInspector({ spectrumId, aside }: { spectrumId: number; a
       header={(d) => <InspectHeader detail={d} campaign={campaign} flash={flash} />}
       nav={{
         position: index >= 0 ? `${index + 1} of ${items.length} unread in your queue` : hasQueue ? 'Not in your unread queue' : 'Read-only view',
-        onNext: nextId !== null ? () => navigate(`/spectra/${nextId}`) : null,
-        onPrevious: previousId !== null ? () => navigate(`/spectra/${previousId}`) : null,
+        // Prefetched: drawn in this task rather than as a transition over several frames.
+        onNext: nextId !== null ? () => navigate(`/spectra/${nextId}`, { flushSync: true }) : null,
+        onPrevious: previousId !== null ? () => navigate(`/spectra/${previousId}`, { flushSync: true }) : null,
         onSaved,
       }}
     />

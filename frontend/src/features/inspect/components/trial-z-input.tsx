@@ -1,5 +1,6 @@
 import { forwardRef, useState } from 'react';
 import { controlClass } from '@/components/ui/field';
+import { LiveNumber } from '@/components/ui/live-number';
 import { useTrialZ } from '../hooks/use-trial-z';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 
@@ -49,7 +50,7 @@ export const TrialZInput = forwardRef<HTMLInputElement, { store: TrialZStore }>(
           </span>
         ) : (
           <>
-            1 + z = <span className="num">{(1 + z).toFixed(5)}</span>
+            1 + z = <LiveNumber chars={8}>{(1 + z).toFixed(5)}</LiveNumber>
           </>
         )}
       </p>

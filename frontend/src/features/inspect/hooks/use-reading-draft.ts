@@ -1,5 +1,5 @@
-import { useState } from 'react';
 import type { Reading, SpectrumClass } from '@contracts/readings';
+import { usePerSpectrum } from './use-per-spectrum';
 
 /** What the reader is composing; z is not here, it is the comb's (see TrialZStore). */
 export interface ReadingDraft {
@@ -12,9 +12,9 @@ export interface ReadingDraft {
   note: string;
 }
 
-/** Starts from the reader's saved reading when there is one, else from the top solution's class. */
-export function useReadingDraft(mine: Reading | undefined, topClass: SpectrumClass) {
-  return useState<ReadingDraft>(() => ({
+/** Starts from the reader's saved reading when there is one, else from the top solution's class; a new one per spectrum. */
+export function useReadingDraft(spectrumId: number, mine: Reading | undefined, topClass: SpectrumClass) {
+  return usePerSpectrum<ReadingDraft>(spectrumId, () => ({
     grade: mine?.grade ?? null,
     cls: mine?.class ?? topClass,
     excluded: new Set(),

@@ -1,10 +1,11 @@
 import { submitReadingRequestSchema } from '@contracts/readings';
 import type { Reading, SubmitReadingRequest } from '@contracts/readings';
-import { useRef, useState } from 'react';
+import { useState } from 'react';
 import { useSubmitReading } from '../api/submit-reading';
 import type { Solution } from '../api/schemas';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import type { ReadingDraft } from './use-reading-draft';
+import { usePerSpectrum } from './use-per-spectrum';
 
 interface Options {
   spectrumId: number;
@@ -18,12 +19,14 @@ interface Options {
 
 /**
  * Builds the request from the comb and the draft, checks it with the shared contract before it
- * leaves, and measures the time spent from opening the spectrum (this hook's first render).
+ * leaves, and measures the time spent from opening the spectrum (the first render that showed it).
+ * A problem or a failed save belongs to its spectrum: moving on clears it.
  */
 export function useSaveReading({ spectrumId, campaignId, store, solutions, lines, onSaved }: Options) {
-  const openedAt = useRef(performance.now());
+  const [openedAt] = usePerSpectrum(spectrumId, () => performance.now());
   const mutation = useSubmitReading(spectrumId, campaignId);
-  const [problem, setProblem] = useState<string | null>(null);
+  const [problem, setProblem] = usePerSpectrum<string | null>(spectrumId, () => null);
+  const [sentFor, setSentFor] = useState<number | null>(null);
 
   const save = (draft: ReadingDraft, gradeOverride?: number) => {
     if (mutation.isPending) return;
@@ -40,7 +43,7 @@ export function useSaveReading({ spectrumId, campaignId, store, solutions, lines
       grade,
       class: draft.cls,
       lines: lines(),
-      timeSpentMs: Math.round(performance.now() - openedAt.current),
+      timeSpentMs: Math.round(performance.now() - openedAt),
       ...(snapped && snapped.zErr > 0 && snapped.zErr <= 1 ? { zErr: snapped.zErr } : {}),
       ...(draft.note.trim() ? { note: draft.note.trim() } : {}),
     };
@@ -50,8 +53,10 @@ export function useSaveReading({ spectrumId, campaignId, store, solutions, lines
       return;
     }
     setProblem(null);
+    setSentFor(spectrumId);
     mutation.mutate(body, { onSuccess: ({ reading }) => onSaved(reading) });
   };
 
-  return { save, pending: mutation.isPending, error: problem ? new Error(problem) : mutation.error };
+  const mine = sentFor === spectrumId;
+  return { save, pending: mine && mutation.isPending, error: problem ? new Error(problem) : mine ? mutation.error : null };
 }
