@@ -58,6 +58,19 @@ it('a reader drags the comb, snaps to the top solution and saves a graded readin
   await page.mouse.up();
   await expect.poll(() => trialZ.inputValue()).not.toBe(before);
 
+  // Smoothing width in pixels or km/s: switching unit carries the width over at the spectrum's median pixel.
+  await page.getByLabel('Smoothing', { exact: true }).selectOption('gaussian');
+  const width = page.getByLabel('Width', { exact: true });
+  await expect.poll(() => width.inputValue()).toBe('5');
+  const equivalent = page.getByText(/^≈ \d+ km\/s$/);
+  const kmsForFive = Number(/\d+/.exec((await equivalent.textContent())!)![0]);
+  expect(kmsForFive).toBeGreaterThan(5);
+  await page.getByLabel('Unit', { exact: true }).selectOption('km/s');
+  await expect.poll(() => width.inputValue()).toBe(String(kmsForFive));
+  await expect(page.getByText(/^≈ \d+\.\d px$/).textContent()).resolves.toMatch(/^≈ (4\.\d|5\.0) px$/);
+  await page.getByLabel('Unit', { exact: true }).selectOption('pixels');
+  await expect.poll(() => width.inputValue()).toBe('5');
+
   // Snapping to the top solution sets the trial redshift to its z.
   const detail = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), spectrumId);
   const topZ: number = detail.scan.solutions[0].z;
@@ -70,6 +83,10 @@ it('a reader drags the comb, snaps to the top solution and saves a graded readin
   await page.keyboard.press('Shift+Digit4');
   await expect.poll(currentId, { timeout: 15_000 }).not.toBe(spectrumId);
   expect(currentId()).toBe(queue[1].id);
+  // The screen stays mounted, but the comb starts afresh on the next spectrum's top solution; view settings carry over.
+  const nextDetail = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), queue[1].id);
+  await expect.poll(() => trialZ.inputValue()).toBe((nextDetail.scan.solutions[0].z as number).toFixed(5));
+  await expect.poll(() => page.getByLabel('Smoothing', { exact: true }).inputValue()).toBe('gaussian');
   await expect.poll(() => page.getByRole('status').allTextContents()).toContainEqual(expect.stringMatching(/^Saved .*grade 4/));
 
   const saved = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), spectrumId);
