@@ -77,11 +77,14 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
       lines.push(`${ok ? 'ok ' : 'BAD'} ${r.file.padEnd(46)} want ${want.join('/').padEnd(18)} top z ${top.z.toFixed(4).padStart(8)} ${top.template}`);
     }
     console.log(`${lines.join('\n')}\nz ≈ 0 with the right class: ${pass}/${chosen.length}`);
-    // Issue 3 asks for all of them. Guard at the level reached: 30/32 with engine 0.4.4, whose
+    // Issue 3 asks for all of them. Guard at the level reached: 31/32 with engine 0.4.6, whose
     // continuum filter widens to ≈ 150 native pixels for coarsely sampled spectra (the SpeX L5, L8,
-    // T5 and T8 dwarfs at R ≈ 120 now come out as stars) and whose weights taper towards the data's
-    // ends (the KC96 bulge is no longer read at z ≈ 1 from its red end); 25/32 before, 10/32 in
-    // engine 0.2. Still missed: Kesseli L3 (median S/N 0.2) and the SpeX M0 standard.
-    expect(pass).toBeGreaterThanOrEqual(30);
+    // T5 and T8 dwarfs at R ≈ 120 now come out as stars), whose weights taper towards the data's
+    // ends (the KC96 bulge is no longer read at z ≈ 1 from its red end) and whose running mean is
+    // continued past the ends by point reflection (the SpeX M0 no longer reads as lines at the red
+    // end); 25/32 before, 10/32 in engine 0.2. Still missed: Kesseli L3, whose own errors give
+    // S/N ≈ 0.2–1 per 69 km/s pixel (checked: the scatter matches them): no template is detected
+    // (best Δχ² ≈ 27 < 50), so the engine's class is "unknown", which is the honest answer.
+    expect(pass).toBeGreaterThanOrEqual(31);
   });
 });

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { continuumSupport } from '../../../backend/src/spectra/continuumSupport';
+import { highPass } from '../../../backend/src/spectra/highPass';
 import { breakChi2, windowSums } from '../../../backend/src/spectra/lymanBreakCheck';
 import { continuumWidthFor, prepareSpectrum } from '../../../backend/src/spectra/prepareSpectrum';
 import { resampleToLogGrid } from '../../../backend/src/spectra/resampleToLogGrid';
@@ -115,5 +116,19 @@ describe('edge taper of the scan weights', () => {
     expect(taper(first + Math.round(half / 2))).toBeCloseTo(EDGE_WEIGHT + (1 - EDGE_WEIGHT) * (Math.round(half / 2) / half), 9);
     expect(taper(first + Math.ceil(half))).toBe(1);
     expect(taper(p.n >> 1)).toBe(1);
+  });
+});
+
+describe('continuum filter at the data ends', () => {
+  it('removes a straight continuum exactly up to the last usable pixel (point reflection), where a truncated mean would leave a ramp', () => {
+    const n = 1200;
+    const line = Float64Array.from({ length: n }, (_, i) => 5 + 0.01 * i);
+    const valid = new Uint8Array(n).fill(1);
+    for (let i = 0; i < 40; i++) valid[i] = 0; // leading padding, as at a detector edge
+    const out = highPass(line, 301, valid);
+    for (let i = 40; i < n; i++) expect(Math.abs(out[i]!)).toBeLessThan(1e-9);
+    // Templates (no validity given) keep the plain truncated mean: its lag at the end is half the
+    // change over the half window, 0.01 × 150 / 2.
+    expect(highPass(line, 301)[n - 1]).toBeCloseTo(0.75, 9);
   });
 });
