@@ -1,3 +1,5 @@
+import { SPEED_OF_LIGHT_KMS } from '@/components/spectrum/velocity';
+
 /** The features readers judge up close, each a group of rest wavelengths (vacuum Å) seen in one panel. */
 export interface FeatureWindow {
   id: string;
@@ -36,7 +38,6 @@ export const FEATURE_WINDOWS: FeatureWindow[] = [
   },
 ];
 
-export const SPEED_OF_LIGHT_KMS = 299_792.458;
 
 /**
  * Observed wavelength span of a window at z: ±halfWidth km/s beyond its outermost marks, so a
