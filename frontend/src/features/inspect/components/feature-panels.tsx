@@ -71,7 +71,18 @@ function FeatureCanvas({ feature, store, halfWidth, display }: { feature: Featur
     ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
     const paint = () => drawFeature(ctx, feature, store.get(), halfWidth, display);
     paint();
-    return store.subscribe(paint);
+    // A panel scrolled out of view does not follow a drag; it catches up when it comes back.
+    let visible = true;
+    const seen = new IntersectionObserver(([entry]) => {
+      visible = entry?.isIntersecting ?? true;
+      if (visible) paint();
+    });
+    seen.observe(canvas);
+    const unsubscribe = store.subscribe(() => visible && paint());
+    return () => {
+      seen.disconnect();
+      unsubscribe();
+    };
   }, [feature, store, halfWidth, display]);
   const marks = feature.marks.map((m) => m.label).join(', ');
   return (
