@@ -26,7 +26,8 @@ import { userIdOf } from '../helpers/assigned-spectra';
  *   z shows and its plot is drawn; the first move is onto the prefetched next spectrum, then the
  *   reader goes back and forth between the two (both cached) for a median.
  * From a Chrome trace of a second drag and one more move: busy time per move of the page's main
- * thread and of the raster workers (with --disable-gpu, raster is software and off the main thread).
+ * thread (every task, also those between frames and the harness's own, inflated by the tracing
+ * itself) and of the raster tasks (with --disable-gpu, raster is software and off the main thread).
  * The old figures through the test driver (CDP) are kept, labelled cdp…, for comparison.
  * initialJsGzipKb: all JavaScript loaded to open the inspection route, gzipped.
  * Prints a line per figure, then the figures as JSON on the last line.
