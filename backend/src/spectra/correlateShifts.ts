@@ -79,7 +79,35 @@ export function directCorrelator(size: number): ShiftCorrelator {
     while (first < size && d[first] === 0) first++;
     let last = size - 1;
     while (last >= first && d[last] === 0) last--;
-    for (let l = 0; l < count; l++) {
+    let l = 0;
+    // Four lags per pass over the data: each d[i] is loaded once for four products.
+    for (; l + 4 <= count; l += 4) {
+      const o = l0 + l;
+      const end = Math.min(last, size - 4 - o);
+      let a0 = 0, a1 = 0, a2 = 0, a3 = 0;
+      for (let i = first; i <= end; i++) {
+        const di = d[i]!;
+        const j = i + o;
+        a0 += di * x[j]!;
+        a1 += di * x[j + 1]!;
+        a2 += di * x[j + 2]!;
+        a3 += di * x[j + 3]!;
+      }
+      // The last lags of the block may reach a few elements further than the first.
+      for (let i = end + 1; i <= Math.min(last, size - 1 - o); i++) {
+        const di = d[i]!;
+        const j = i + o;
+        a0 += di * x[j]!;
+        if (j + 1 < size) a1 += di * x[j + 1]!;
+        if (j + 2 < size) a2 += di * x[j + 2]!;
+        if (j + 3 < size) a3 += di * x[j + 3]!;
+      }
+      out[l] = a0;
+      out[l + 1] = a1;
+      out[l + 2] = a2;
+      out[l + 3] = a3;
+    }
+    for (; l < count; l++) {
       let acc = 0;
       const o = l0 + l;
       const end = Math.min(last, size - 1 - o);
