@@ -20,6 +20,13 @@ export function bestAmplitudes(a: Float64Array, r: Float64Array, m: number, ampl
   let anyPositive = false;
   for (let p = 0; p < m; p++) if (r[p]! > 0) anyPositive = true;
   if (!anyPositive) return 0;
+  // Most shifts end with all components in: try that system first without building subsets.
+  if (m === 3 && a[0]! > 0 && a[4]! > 0 && a[8]! > 0 && solveSmall(a, r, sol, 3) && sol[0]! >= 0 && sol[1]! >= 0 && sol[2]! >= 0) {
+    amplitudes[0] = sol[0]!;
+    amplitudes[1] = sol[1]!;
+    amplitudes[2] = sol[2]!;
+    return sol[0]! * r[0]! + sol[1]! * r[1]! + sol[2]! * r[2]!;
+  }
   for (let mask = (1 << m) - 1; mask >= 1; mask--) {
     let k = 0;
     for (let c = 0; c < m; c++) if (mask & (1 << c)) idx[k++] = c;

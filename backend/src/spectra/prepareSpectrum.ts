@@ -122,9 +122,10 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
   const nativePx = (logSteps[logSteps.length >> 1] ?? step) / step;
   const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? continuumWidthFor(nativePx * step)) / step)) | 1;
   const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
-  const snr: number[] = [];
-  for (let i = 0; i < n; i++) if (ivar[i]! > 0) snr.push(Math.abs(spectrum.flux[i]!) * Math.sqrt(ivar[i]!));
-  snr.sort((a, b) => a - b);
+  const snrValues: number[] = [];
+  for (let i = 0; i < n; i++) if (ivar[i]! > 0) snrValues.push(Math.abs(spectrum.flux[i]!) * Math.sqrt(ivar[i]!));
+  // A typed array sorts numerically without a comparator call per comparison.
+  const snr = Float64Array.from(snrValues).sort();
   return {
     step,
     g0: grid.g0,

@@ -46,9 +46,9 @@ export function scanData(prepared: PreparedSpectrum): ScanData {
   const n = prepared.n;
   // χ² is invariant under f → f/k, w → w·k²; choosing k as the typical σ keeps w and w·f near
   // unity, so FFT round-off (relative to the largest values) stays small for both.
-  const positive: number[] = [];
-  for (let i = 0; i < n; i++) if (prepared.ivar[i]! > 0) positive.push(prepared.ivar[i]!);
-  positive.sort((a, b) => a - b);
+  const positiveValues: number[] = [];
+  for (let i = 0; i < n; i++) if (prepared.ivar[i]! > 0) positiveValues.push(prepared.ivar[i]!);
+  const positive = Float64Array.from(positiveValues).sort();
   const typicalIvar = positive.length ? positive[positive.length >> 1]! : 1;
   const w = new Float64Array(n);
   const wf = new Float64Array(n);
