@@ -9,7 +9,7 @@ import FFT from 'fft.js';
 export interface ShiftCorrelator {
   readonly method: 'fft' | 'direct';
   readonly size: number;
-  /** Prepares a real buffer of length `size` (the complete spectrum for the FFT path). */
+  /** Prepares a real buffer of length `size` (its half spectrum, k = 0 … size/2, for the FFT path). */
   prepare(buffer: Float64Array): Float64Array;
   /** Two correlations at once, each over its own lag window; the second may be omitted. */
   pair(d1: Float64Array, x1: Float64Array, w1: LagWindow, d2?: Float64Array, x2?: Float64Array, w2?: LagWindow): [Float64Array, Float64Array | undefined];
@@ -41,24 +41,36 @@ function makeFftCorrelator(size: number): ShiftCorrelator {
     method: 'fft',
     size,
     prepare(buffer) {
+      // Only the half spectrum k = 0 … N/2 is kept (the rest is its conjugate mirror, see pair).
       const out = new Float64Array(2 * size);
       f.realTransform(out as unknown as number[], buffer as unknown as number[]);
-      f.completeSpectrum(out as unknown as number[]);
-      return out;
+      return out.slice(0, size + 2);
     },
     pair(d1, x1, w1, d2, x2, w2) {
       const two = d2 !== undefined && x2 !== undefined && w2 !== undefined;
-      for (let k = 0; k < 2 * size; k += 2) {
-        const ar = d1[k]!, ai = d1[k + 1]!, br = x1[k]!, bi = x1[k + 1]!;
-        let re = ar * br + ai * bi;
-        let im = ar * bi - ai * br;
+      // conj(D)·X of two real signals is Hermitian: A(N−k) = conj(A(k)). Each half-spectrum product
+      // is computed once and the packed P = A₁ + i·A₂ is written at k and at N − k.
+      const halfSize = size >> 1;
+      for (let k = 0; k <= halfSize; k++) {
+        const p = 2 * k;
+        const ar = d1[p]!, ai = d1[p + 1]!, br = x1[p]!, bi = x1[p + 1]!;
+        const re1 = ar * br + ai * bi;
+        const im1 = ar * bi - ai * br;
+        let re2 = 0;
+        let im2 = 0;
         if (two) {
-          const cr = d2[k]!, ci = d2[k + 1]!, er = x2[k]!, ei = x2[k + 1]!;
-          re -= cr * ei - ci * er;
-          im += cr * er + ci * ei;
+          const cr = d2[p]!, ci = d2[p + 1]!, er = x2[p]!, ei = x2[p + 1]!;
+          re2 = cr * er + ci * ei;
+          im2 = cr * ei - ci * er;
         }
-        product[k] = re;
-        product[k + 1] = im;
+        // P(k) = A₁ + i·A₂; P(N−k) = conj(A₁) + i·conj(A₂).
+        product[p] = re1 - im2;
+        product[p + 1] = im1 + re2;
+        if (k > 0 && k < halfSize) {
+          const q = 2 * (size - k);
+          product[q] = re1 + im2;
+          product[q + 1] = -im1 + re2;
+        }
       }
       f.inverseTransform(result as unknown as number[], product as unknown as number[]);
       const c1 = new Float64Array(w1.count);
