@@ -20,13 +20,7 @@ export function bestAmplitudes(a: Float64Array, r: Float64Array, m: number, ampl
   let anyPositive = false;
   for (let p = 0; p < m; p++) if (r[p]! > 0) anyPositive = true;
   if (!anyPositive) return 0;
-  // Most shifts end with all components in: try that system first without building subsets.
-  if (m === 3 && a[0]! > 0 && a[4]! > 0 && a[8]! > 0 && solveSmall(a, r, sol, 3) && sol[0]! >= 0 && sol[1]! >= 0 && sol[2]! >= 0) {
-    amplitudes[0] = sol[0]!;
-    amplitudes[1] = sol[1]!;
-    amplitudes[2] = sol[2]!;
-    return sol[0]! * r[0]! + sol[1]! * r[1]! + sol[2]! * r[2]!;
-  }
+  if (m === 3) return bestOfThree(a, r, amplitudes);
   for (let mask = (1 << m) - 1; mask >= 1; mask--) {
     let k = 0;
     for (let c = 0; c < m; c++) if (mask & (1 << c)) idx[k++] = c;
@@ -52,6 +46,91 @@ export function bestAmplitudes(a: Float64Array, r: Float64Array, m: number, ampl
     // global optimum: no subset can reduce χ² further.
     if (feasible && k === m) return best;
   }
+  return best;
+}
+
+/**
+ * bestAmplitudes for three components, written out: the full system, then the three pairs, then
+ * the three singles, keeping the largest reduction whose amplitudes are all ≥ 0 (the same answer
+ * as the subset loop, without building index arrays; most scan time of three-component templates
+ * went there).
+ */
+function bestOfThree(a: Float64Array, r: Float64Array, amplitudes: Float64Array): number {
+  const a00 = a[0]!, a01 = a[1]!, a02 = a[2]!, a11 = a[4]!, a12 = a[5]!, a22 = a[8]!;
+  const r0 = r[0]!, r1 = r[1]!, r2 = r[2]!;
+  const ok0 = a00 > 0, ok1 = a11 > 0, ok2 = a22 > 0;
+  if (ok0 && ok1 && ok2 && solveSmall(a, r, sol, 3) && sol[0]! >= 0 && sol[1]! >= 0 && sol[2]! >= 0) {
+    amplitudes[0] = sol[0]!;
+    amplitudes[1] = sol[1]!;
+    amplitudes[2] = sol[2]!;
+    return sol[0]! * r0 + sol[1]! * r1 + sol[2]! * r2;
+  }
+  let best = 0;
+  let b0 = 0, b1 = 0, b2 = 0;
+  // Pairs (p, q): Cramer on [[a_pp, a_pq], [a_pq, a_qq]]; scalars only (this runs per shift).
+  if (ok0 && ok1) {
+    const det = a00 * a11 - a01 * a01;
+    if (det > 1e-6 * a00 * a11) {
+      const x0 = (r0 * a11 - a01 * r1) / det;
+      const x1 = (a00 * r1 - a01 * r0) / det;
+      const red = x0 * r0 + x1 * r1;
+      if (x0 >= 0 && x1 >= 0 && red > best) {
+        best = red;
+        b0 = x0;
+        b1 = x1;
+        b2 = 0;
+      }
+    }
+  }
+  if (ok0 && ok2) {
+    const det = a00 * a22 - a02 * a02;
+    if (det > 1e-6 * a00 * a22) {
+      const x0 = (r0 * a22 - a02 * r2) / det;
+      const x2 = (a00 * r2 - a02 * r0) / det;
+      const red = x0 * r0 + x2 * r2;
+      if (x0 >= 0 && x2 >= 0 && red > best) {
+        best = red;
+        b0 = x0;
+        b1 = 0;
+        b2 = x2;
+      }
+    }
+  }
+  if (ok1 && ok2) {
+    const det = a11 * a22 - a12 * a12;
+    if (det > 1e-6 * a11 * a22) {
+      const x1 = (r1 * a22 - a12 * r2) / det;
+      const x2 = (a11 * r2 - a12 * r1) / det;
+      const red = x1 * r1 + x2 * r2;
+      if (x1 >= 0 && x2 >= 0 && red > best) {
+        best = red;
+        b0 = 0;
+        b1 = x1;
+        b2 = x2;
+      }
+    }
+  }
+  if (ok0 && r0 > 0 && (r0 * r0) / a00 > best) {
+    best = (r0 * r0) / a00;
+    b0 = r0 / a00;
+    b1 = 0;
+    b2 = 0;
+  }
+  if (ok1 && r1 > 0 && (r1 * r1) / a11 > best) {
+    best = (r1 * r1) / a11;
+    b0 = 0;
+    b1 = r1 / a11;
+    b2 = 0;
+  }
+  if (ok2 && r2 > 0 && (r2 * r2) / a22 > best) {
+    best = (r2 * r2) / a22;
+    b0 = 0;
+    b1 = 0;
+    b2 = r2 / a22;
+  }
+  amplitudes[0] = b0;
+  amplitudes[1] = b1;
+  amplitudes[2] = b2;
   return best;
 }
 
