@@ -13,14 +13,14 @@ const HEIGHT = 170;
  * χ²(z) per class under the spectrum: dips are candidate redshifts. The solutions are marked with
  * their rank, the trial z is a cursor line on an overlay, and a click sets the trial z there.
  * The strip is built once and kept across spectra (new curves arrive through setData; only a
- * different set of classes rebuilds it); the cursor repaints the overlay alone, once per frame.
+ * different set of classes rebuilds it); the cursor is moved by the compositor, once per frame.
  */
 export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; solutions: Solution[]; store: TrialZStore }) {
   const host = useRef<HTMLDivElement>(null);
   const live = useRef({ solutions, store, data });
   live.current.solutions = solutions;
   live.current.store = store;
-  const plot = useRef<{ u: uPlot; paint: () => void; shown: Chi2StripData } | null>(null);
+  const plot = useRef<{ u: uPlot; paint: () => void; moveCursor: () => void; shown: Chi2StripData } | null>(null);
   const classes = data.classes.join(' ');
 
   useEffect(() => {
@@ -28,16 +28,17 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
     const { data } = live.current;
     let overlay: ReturnType<typeof createOverlayCanvas> | null = null;
     let plotRef: uPlot | null = null;
-    const paint = () => {
+    // The solutions' marks are drawn on the overlay when the strip is drawn or the solutions change.
+    const paintMarks = () => {
       const u = plotRef;
       if (!overlay || !u) return;
       overlay.paint((ctx, _w, h) => {
         ctx.font = '10px "IBM Plex Mono", ui-monospace, monospace';
         ctx.fillStyle = PLOT.solution;
         ctx.strokeStyle = PLOT.solution;
+        ctx.setLineDash([2, 2]);
         live.current.solutions.forEach((s, i) => {
           const x = Math.round(u.valToPos(s.z, 'x')) + 0.5;
-          ctx.setLineDash([2, 2]);
           ctx.beginPath();
           ctx.moveTo(x, 12);
           ctx.lineTo(x, h);
@@ -45,16 +46,24 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
           ctx.fillText(String(i + 1), x + 2, 2);
         });
         ctx.setLineDash([]);
-        const x = Math.round(u.valToPos(live.current.store.get(), 'x')) + 0.5;
-        ctx.strokeStyle = PLOT.cursor;
-        ctx.lineWidth = 2;
-        ctx.beginPath();
-        ctx.moveTo(x, 0);
-        ctx.lineTo(x, h);
-        ctx.stroke();
-        ctx.lineWidth = 1;
       });
     };
+    // The trial-z cursor is an element of its own moved by a transform: following a drag then costs
+    // the compositor a new offset, not a repaint and upload of a canvas as wide as the strip.
+    const cursor = document.createElement('div');
+    cursor.setAttribute('aria-hidden', 'true');
+    cursor.style.cssText = `position:absolute;left:0;top:0;width:2px;height:100%;pointer-events:none;will-change:transform;background:${PLOT.cursor};`;
+    let cursorX = Number.NaN;
+    let cursorShown = true;
+    const moveCursor = () => {
+      const u = plotRef;
+      if (!u) return;
+      const x = Math.round(u.valToPos(live.current.store.get(), 'x'));
+      const shown = x >= -1 && x <= u.over.clientWidth;
+      if (shown !== cursorShown) cursor.style.opacity = (cursorShown = shown) ? '1' : '0';
+      if (shown && x !== cursorX) cursor.style.transform = `translateX(${(cursorX = x) - 0.5}px)`;
+    };
+    const paint = () => (paintMarks(), moveCursor());
     const u = new uPlot(
       {
         width: el.clientWidth || 800,
@@ -74,8 +83,9 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
       el,
     );
     plotRef = u;
-    plot.current = { u, paint, shown: data };
+    plot.current = { u, paint, moveCursor, shown: data };
     overlay = createOverlayCanvas(u);
+    u.over.appendChild(cursor);
     paint();
     const click = (e: MouseEvent) => live.current.store.set(u.posToVal(e.clientX - u.over.getBoundingClientRect().left, 'x'));
     u.over.addEventListener('click', click);
@@ -104,7 +114,7 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
   // The cursor follows the trial z (once per frame) and the marks follow the solutions.
   useEffect(() => {
     plot.current?.paint();
-    return store.subscribe(() => plot.current?.paint());
+    return store.subscribe(() => plot.current?.moveCursor());
   }, [store, solutions]);
 
   return (

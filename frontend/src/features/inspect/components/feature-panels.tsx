@@ -1,9 +1,11 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { SelectField } from '@/components/ui/field';
 import type { DisplayArrays } from '@/components/spectrum/use-display-arrays';
 import { useTrialZDerived } from '../hooks/use-trial-z';
 import { FEATURE_WINDOWS, windowSpan } from '../utils/feature-windows';
 import type { FeatureWindow } from '../utils/feature-windows';
+import { createViewGate } from '../utils/view-gate';
+import type { ViewGate } from '../utils/view-gate';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { drawFeature, FEATURE_H, FEATURE_W } from './draw-feature';
 
@@ -13,7 +15,9 @@ const HALF_WIDTHS = [1000, 3000, 6000] as const;
  * Close-ups in velocity around the deciding features at the trial z, for features the data cover.
  * During a drag the list re-renders only when a feature enters or leaves the data; the canvases
  * repaint themselves once per frame from the trial-z store, with the feature's observed
- * wavelength drawn in them (text in the page would cost a layout on every frame).
+ * wavelength drawn in them (text in the page would cost a layout on every frame). While the
+ * panels are scrolled out of view they neither follow a drag nor draw a new spectrum; they catch
+ * up when they come back (a move to the next spectrum then does not pay for close-ups nobody sees).
  */
 export function FeaturePanels({ display, store }: { display: DisplayArrays; store: TrialZStore }) {
   const [halfWidth, setHalfWidth] = useState<number>(3000);
@@ -29,9 +33,16 @@ export function FeaturePanels({ display, store }: { display: DisplayArrays; stor
       .join(' '),
   );
   const visible = FEATURE_WINDOWS.filter((f) => ids.split(' ').includes(f.id));
+  const section = useRef<HTMLElement>(null);
+  const gate = useMemo(createViewGate, []);
+  useEffect(() => {
+    const seen = new IntersectionObserver((entries) => gate.set(entries.at(-1)?.isIntersecting ?? true));
+    seen.observe(section.current!);
+    return () => seen.disconnect();
+  }, [gate]);
 
   return (
-    <section aria-labelledby="feature-panels-title" className="flex flex-col gap-2">
+    <section ref={section} aria-labelledby="feature-panels-title" className="flex flex-col gap-2">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h2 id="feature-panels-title" className="text-md font-semibold text-ink-900">
           Features at the trial z
@@ -50,7 +61,7 @@ export function FeaturePanels({ display, store }: { display: DisplayArrays; stor
         <ul className="flex flex-wrap gap-3">
           {visible.map((f) => (
             <li key={f.id}>
-              <FeatureCanvas feature={f} store={store} halfWidth={halfWidth} display={display} />
+              <FeatureCanvas feature={f} store={store} halfWidth={halfWidth} display={display} section={gate} />
             </li>
           ))}
         </ul>
@@ -59,8 +70,17 @@ export function FeaturePanels({ display, store }: { display: DisplayArrays; stor
   );
 }
 
-function FeatureCanvas({ feature, store, halfWidth, display }: { feature: FeatureWindow; store: TrialZStore; halfWidth: number; display: DisplayArrays }) {
+function FeatureCanvas({ feature, store, halfWidth, display, section }: { feature: FeatureWindow; store: TrialZStore; halfWidth: number; display: DisplayArrays; section: ViewGate }) {
   const ref = useRef<HTMLCanvasElement>(null);
+  // This panel's own visibility, kept from one spectrum to the next; until its observer first
+  // reports, it is taken from the section's (a panel that appears while the section is scrolled
+  // away does not paint).
+  const [gate] = useState(() => createViewGate(section.visible));
+  useEffect(() => {
+    const seen = new IntersectionObserver((entries) => gate.set(entries.at(-1)?.isIntersecting ?? true));
+    seen.observe(ref.current!);
+    return () => seen.disconnect();
+  }, [gate]);
   useEffect(() => {
     const canvas = ref.current!;
     const ratio = window.devicePixelRatio || 1;
@@ -70,20 +90,13 @@ function FeatureCanvas({ feature, store, halfWidth, display }: { feature: Featur
     const ctx = canvas.getContext('2d')!;
     ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
     const paint = () => drawFeature(ctx, feature, store.get(), halfWidth, display);
-    paint();
-    // A panel scrolled out of view does not follow a drag; it catches up when it comes back.
-    let visible = true;
-    const seen = new IntersectionObserver(([entry]) => {
-      visible = entry?.isIntersecting ?? true;
-      if (visible) paint();
-    });
-    seen.observe(canvas);
-    const unsubscribe = store.subscribe(() => visible && paint());
+    gate.paintOrDefer(canvas, paint);
+    const unsubscribe = store.subscribe(() => gate.paintOrDefer(canvas, paint));
     return () => {
-      seen.disconnect();
+      gate.forget(canvas);
       unsubscribe();
     };
-  }, [feature, store, halfWidth, display]);
+  }, [feature, store, halfWidth, display, gate]);
   const marks = feature.marks.map((m) => m.label).join(', ');
   return (
     <figure className="rounded-control border border-paper-300 bg-paper-50 p-1.5">

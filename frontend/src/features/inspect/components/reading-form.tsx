@@ -7,7 +7,7 @@ import { LiveNumber } from '@/components/ui/live-number';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
-import { useTrialZ, useTrialZSettled } from '../hooks/use-trial-z';
+import { useTrialZSettled, useTrialZText } from '../hooks/use-trial-z';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES, CLASS_ORDER } from '@/lib/spectrum-class';
 
@@ -101,12 +101,9 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
   );
 }
 
+/** Follows the comb on every frame of a drag without a React render (useTrialZText). */
 function CombZ({ store }: { store: TrialZStore }) {
-  return (
-    <LiveNumber chars={8} className="text-md font-semibold text-ink-900">
-      {formatRedshift(useTrialZ(store))}
-    </LiveNumber>
-  );
+  return <LiveNumber ref={useTrialZText<HTMLSpanElement>(store, formatRedshift)} chars={8} className="text-md font-semibold text-ink-900" />;
 }
 
 /**

@@ -1,11 +1,34 @@
-import { useCallback, useSyncExternalStore } from 'react';
+import { useCallback, useLayoutEffect, useRef, useSyncExternalStore } from 'react';
+import type { RefObject } from 'react';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 
 /**
- * The trial z, for small things that show it (the input, the reading's z). The store notifies at
- * most once per animation frame, so a fast drag re-renders these once per frame, in that frame.
+ * Text that follows the trial z on every frame of a drag, written into the element's text node by
+ * the store's per-frame notification rather than through a React render: the element (a
+ * `LiveNumber`) must leave its content to this hook. Returns the ref to put on it.
  */
-export const useTrialZ = (store: TrialZStore) => useSyncExternalStore(store.subscribe, store.get);
+export function useTrialZText<E extends HTMLElement>(store: TrialZStore, format: (z: number) => string): RefObject<E | null> {
+  const ref = useRef<E>(null);
+  const formatRef = useRef(format);
+  formatRef.current = format;
+  useLayoutEffect(() => {
+    const write = () => {
+      const el = ref.current;
+      if (el) writeText(el, formatRef.current(store.get()));
+    };
+    write();
+    return store.subscribe(write);
+  }, [store]);
+  return ref;
+}
+
+/** Replaces an element's text, reusing its text node (cheaper than a new one on every frame) and skipping equal text. */
+export function writeText(el: HTMLElement, text: string) {
+  const node = el.firstChild;
+  if (node !== null && node === el.lastChild && node.nodeType === 3) {
+    if ((node as Text).data !== text) (node as Text).data = text;
+  } else el.textContent = text;
+}
 
 /**
  * A value derived from the trial z (e.g. which solution the comb sits on): the component renders
