@@ -15,7 +15,9 @@ export interface OverlayCanvas {
 export function createOverlayCanvas(u: uPlot): OverlayCanvas {
   const canvas = document.createElement('canvas');
   canvas.setAttribute('aria-hidden', 'true');
-  canvas.style.cssText = 'position:absolute;left:0;top:0;pointer-events:none;';
+  // A layer of its own: a repaint of the overlay then reaches the compositor as new canvas content,
+  // without repainting and re-rasterising the plot it sits on.
+  canvas.style.cssText = 'position:absolute;left:0;top:0;pointer-events:none;will-change:transform;';
   u.over.appendChild(canvas);
   const ctx = canvas.getContext('2d')!;
   let width = 0;

@@ -8,11 +8,10 @@ import { bandColumns } from './band-columns';
 import { createCombScratch, drawComb, drawPeaks, KIND_COLOURED } from './draw-comb';
 import type { CombLook } from './draw-comb';
 import { dragZ } from './comb';
-import { displayWindow } from './display-window';
 import type { WindowArrays } from './display-window';
+import { preparedWindow } from './prepared-window';
 import { PLOT } from './plot-palette';
 import { decimalsFor, niceStep, restFrameSplits } from './rest-frame-axis';
-import { lowerBound, robustRange } from './robust-range';
 import type { TrialZStore } from './trial-z-store';
 import { createOverlayCanvas } from './overlay-canvas';
 
@@ -34,6 +33,11 @@ export interface PlotComb {
 
 interface Props {
   display: DisplayArrays;
+  /**
+   * What is likely shown next (the next spectrum in a queue), made on demand: in idle time the
+   * plot makes it (smoothing it if need be) and reduces its whole range for its own width.
+   */
+  upcoming?: (() => DisplayArrays) | null;
   lines: CombLine[];
   /** The first comb is the one a comb drag moves and the rest-frame axis follows. Keep the array stable (memoise it). */
   combs: readonly PlotComb[];
@@ -65,10 +69,10 @@ type Window = [number, number];
  * two points per screen column (display-window.ts), so drawing costs the same on 4,000 pixels as
  * on 100,000. A comb move repaints only the overlay.
  */
-export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
+export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, restFrame, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
-  const live = useRef({ display, lines, combs, peaks, tool, restFrame, onPeak, view: fullRange(display), win: null as WindowArrays | null, columns: 0 });
+  const live = useRef({ display, lines, combs, peaks, tool, restFrame, onPeak, view: fullRange(display), win: null as WindowArrays | null, yRange: null as [number, number] | null, columns: 0 });
   const paintComb = useRef<() => void>(() => {});
   const showWindow = useRef<(view: Window) => void>(() => {});
   live.current.lines = lines;
@@ -118,9 +122,9 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
       const u = plot.current;
       if (!u || !(view[1] > view[0])) return;
       const { display } = live.current;
-      const columns = Math.max(1, Math.round(u.bbox.width));
-      const win = displayWindow(display, view[0], view[1], columns);
-      Object.assign(live.current, { view, win, columns });
+      const columns = columnsOf(u);
+      const { win, yRange } = preparedWindow(display, view[0], view[1], columns);
+      Object.assign(live.current, { view, win, yRange, columns });
       u.batch(() => {
         if (u.series[SKY]!.show !== (display.source.sky !== null)) u.setSeries(SKY, { show: display.source.sky !== null });
         if (u.series[MODEL]!.show !== (display.model !== null)) u.setSeries(MODEL, { show: display.model !== null });
@@ -130,14 +134,8 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
     };
     showWindow.current = show;
 
-    // The flux range of the window being shown (uPlot asks before it commits the new x scale).
-    const yRange = (): uPlot.Range.MinMax => {
-      const { flux, source } = live.current.display;
-      const [min, max] = live.current.view;
-      const i0 = lowerBound(source.wavelength, min);
-      const i1 = lowerBound(source.wavelength, max);
-      return robustRange(flux, source.mask, i0, Math.max(i1, i0 + 1)) ?? [-1, 1];
-    };
+    // The flux range of the window being shown (uPlot asks before it commits the new x scale), found with its arrays.
+    const yRange = (): uPlot.Range.MinMax => live.current.yRange ?? [-1, 1];
 
     const drawMasks = (u: uPlot) => {
       const runs = live.current.win?.masked;
@@ -207,8 +205,8 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
     // is an upper bound (finer columns than needed, never coarser). A resize that widens the area
     // reduces the arrays again.
     const firstColumns = Math.max(1, Math.round((el.clientWidth || 800) * (window.devicePixelRatio || 1)));
-    const firstWin = displayWindow(display, initial[0], initial[1], firstColumns);
-    Object.assign(live.current, { view: initial, win: firstWin, columns: firstColumns });
+    const { win: firstWin, yRange: firstY } = preparedWindow(display, initial[0], initial[1], firstColumns);
+    Object.assign(live.current, { view: initial, win: firstWin, yRange: firstY, columns: firstColumns });
 
     const u = new uPlot(
       {
@@ -313,6 +311,22 @@ export function SpectrumPlot({ display, lines, combs, tool, restFrame, peaks = N
 
   useEffect(() => paintComb.current(), [lines, peaks]);
 
+  // The next spectrum's whole range, reduced ahead for this plot's width while the reader is on this one.
+  useEffect(() => {
+    if (upcoming === null) return;
+    const prepare = () => {
+      const u = plot.current;
+      if (!u) return;
+      // The width show() will reduce to.
+      const columns = columnsOf(u);
+      const next = upcoming();
+      const [min, max] = fullRange(next);
+      preparedWindow(next, min, max, columns);
+    };
+    const handle = whenIdle(prepare);
+    return () => cancelIdle(handle);
+  }, [upcoming]);
+
   return (
     <div
       ref={host}
@@ -332,6 +346,13 @@ const fullRange = (d: DisplayArrays): Window => {
   const hi = w[w.length - 1] ?? 1;
   return hi > lo ? [lo, hi] : [lo - 0.5, lo + 0.5];
 };
+
+/** Screen columns of the plotting area (device px): what a window is reduced to. */
+const columnsOf = (u: uPlot) => Math.max(1, Math.round(u.bbox.width));
+
+// Idle callbacks where the browser has them (not Safari), else a short timeout.
+const whenIdle = (run: () => void): number => (typeof requestIdleCallback === 'function' ? requestIdleCallback(run, { timeout: 2000 }) : window.setTimeout(run, 200));
+const cancelIdle = (handle: number) => (typeof cancelIdleCallback === 'function' ? cancelIdleCallback(handle) : window.clearTimeout(handle));
 
 const axisLabel = (rest: boolean) => (rest ? 'Rest-frame wavelength at the trial z (Å, vacuum)' : 'Observed wavelength (Å, vacuum)');
 

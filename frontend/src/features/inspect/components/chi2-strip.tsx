@@ -59,7 +59,8 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
       const u = plotRef;
       if (!u) return;
       const x = Math.round(u.valToPos(live.current.store.get(), 'x'));
-      const shown = x >= -1 && x <= u.over.clientWidth;
+      // uPlot's plotting-area width (device px) rather than the element's, which would force a layout.
+      const shown = x >= -1 && x <= u.bbox.width / (window.devicePixelRatio || 1);
       if (shown !== cursorShown) cursor.style.opacity = (cursorShown = shown) ? '1' : '0';
       if (shown && x !== cursorX) cursor.style.transform = `translateX(${(cursorX = x) - 0.5}px)`;
     };

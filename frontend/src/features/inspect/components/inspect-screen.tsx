@@ -46,7 +46,7 @@ export function InspectScreen({ spectrumId, nextId, nav, header, aside }: Props)
       </div>
     );
   }
-  return <InspectWorkspace detail={detail.data} arrays={data.data} curves={curves.data} lines={lines.data} nav={nav} header={header(detail.data)} aside={aside?.(detail.data)} />;
+  return <InspectWorkspace nextId={nextId} detail={detail.data} arrays={data.data} curves={curves.data} lines={lines.data} nav={nav} header={header(detail.data)} aside={aside?.(detail.data)} />;
 }
 
 function usePrefetchSpectrum(spectrumId: number | null) {

@@ -5,8 +5,10 @@ import { Notice } from '@/components/ui/notice';
 import { Panel } from '@/components/ui/panel';
 import type { CombLine, SpectrumDetail } from '../api/schemas';
 import { PLOT } from '@/components/spectrum/plot-palette';
-import { useDisplayArrays } from '@/components/spectrum/use-display-arrays';
-import { useSolutionModel } from '../api/get-solution-model';
+import { displayArraysOf, useDisplayArrays } from '@/components/spectrum/use-display-arrays';
+import { useQuery } from '@tanstack/react-query';
+import { getSpectrumDataQueryOptions } from '@/lib/spectrum-data';
+import { getSolutionModelQueryOptions, useSolutionModel } from '../api/get-solution-model';
 import { useInspectKeys } from '../hooks/use-inspect-keys';
 import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
@@ -45,6 +47,8 @@ export interface QueueNavigation {
 
 interface Props {
   detail: SpectrumDetail;
+  /** The spectrum after this one (prefetched by the screen): the plot prepares it ahead. */
+  nextId?: number | null;
   arrays: SpectrumArrays;
   curves: Chi2StripData | undefined;
   lines: CombLine[];
@@ -60,7 +64,7 @@ interface Props {
  * reader's view settings (tool, smoothing, frame, template) carry over, while the comb, the draft
  * reading and a picked peak start afresh with each spectrum (usePerSpectrum).
  */
-export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, aside }: Props) {
+export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines, nav, header, aside }: Props) {
   const { campaign, scan } = detail;
   const spectrumId = detail.spectrum.id;
   const solutions = useMemo(() => scan?.solutions ?? [], [scan]);
@@ -83,6 +87,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
   const [showModel, setShowModel] = useState(true);
   const model = useSolutionModel(spectrumId, showModel ? modelRank : null);
   const display = useDisplayArrays(arrays, smoothing, showModel ? (model.data ?? null) : null);
+  const upcoming = useUpcomingDisplay(nextId, smoothing, showModel);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
@@ -171,6 +176,7 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
             </p>
             <SpectrumPlot
               display={display}
+              upcoming={upcoming}
               lines={lines}
               peaks={scan?.lineMatches.peaks ?? []}
               combs={combs}
@@ -229,6 +235,18 @@ export function InspectWorkspace({ detail, arrays, curves, lines, nav, header, a
       <KeyHelp open={helpOpen} onClose={() => setHelpOpen(false)} />
     </div>
   );
+}
+
+/**
+ * The next spectrum as the plot will show it when the reader moves on (same smoothing; its top
+ * solution's template when templates are drawn), made on demand. Reads what the screen prefetched.
+ */
+function useUpcomingDisplay(nextId: number | null, smoothing: Smoothing, showModel: boolean) {
+  const data = useQuery({ ...getSpectrumDataQueryOptions(nextId ?? 0), enabled: nextId !== null });
+  const model = useQuery({ ...getSolutionModelQueryOptions(nextId ?? 0, 1), enabled: nextId !== null && showModel, retry: false });
+  const arrays = nextId !== null ? data.data : undefined;
+  const nextModel = showModel && nextId !== null ? (model.data ?? null) : null;
+  return useMemo(() => (arrays ? () => displayArraysOf(arrays, smoothing, nextModel) : null), [arrays, smoothing, nextModel]);
 }
 
 function Legend({ hasSky, hasModel }: { hasSky: boolean; hasModel: boolean }) {

@@ -42,30 +42,34 @@ export const TrialZInput = forwardRef<HTMLInputElement, { store: TrialZStore }>(
       <label htmlFor="trial-z" className="text-sm font-medium text-ink-800">
         Trial redshift
       </label>
-      <input
-        ref={input}
-        id="trial-z"
-        inputMode="decimal"
-        autoComplete="off"
-        spellCheck={false}
-        defaultValue={zText(store.get())}
-        aria-invalid={invalid || undefined}
-        aria-describedby="trial-z-hint"
-        onChange={(e) => {
-          setDraft(e.target.value);
-          editing.current = true;
-          const v = Number(e.target.value);
-          if (e.target.value.trim() !== '' && Number.isFinite(v) && v >= store.min && v <= store.max) store.set(v);
-        }}
-        onBlur={() => setDraft(null)}
-        onKeyDown={(e) => {
-          if (e.key === 'Enter' || e.key === 'Escape') {
-            setDraft(null);
-            e.currentTarget.blur();
-          }
-        }}
-        className={`${controlClass} num w-32 text-md`}
-      />
+      {/* A box of fixed size with layout and size containment: a new value, every frame of a drag,
+          re-lays out the field alone, not the toolbar and panels around it. */}
+      <div className="h-[38px] w-32" style={{ contain: 'size layout' }}>
+        <input
+          ref={input}
+          id="trial-z"
+          inputMode="decimal"
+          autoComplete="off"
+          spellCheck={false}
+          defaultValue={zText(store.get())}
+          aria-invalid={invalid || undefined}
+          aria-describedby="trial-z-hint"
+          onChange={(e) => {
+            setDraft(e.target.value);
+            editing.current = true;
+            const v = Number(e.target.value);
+            if (e.target.value.trim() !== '' && Number.isFinite(v) && v >= store.min && v <= store.max) store.set(v);
+          }}
+          onBlur={() => setDraft(null)}
+          onKeyDown={(e) => {
+            if (e.key === 'Enter' || e.key === 'Escape') {
+              setDraft(null);
+              e.currentTarget.blur();
+            }
+          }}
+          className={`${controlClass} num h-[38px] w-32 text-md`}
+        />
+      </div>
       <p id="trial-z-hint" className="text-xs text-ink-500">
         {invalid ? (
           <span className="text-danger-700">
