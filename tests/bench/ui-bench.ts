@@ -97,7 +97,13 @@ try {
   // The same with the page scrolled so the feature close-ups are in view too (below the fold at the top,
   // where they do not repaint): plot, χ² strip and close-ups all follow the comb.
   await page.evaluate(() => window.scrollTo(0, 300));
-  const inView = await page.evaluate(() => [...document.querySelectorAll('canvas[role="img"]')].filter((c) => c.getBoundingClientRect().top < innerHeight).length);
+  // Close-ups of features outside the data stay mounted but hidden (no box): not counted.
+  const inView = await page.evaluate(() =>
+    [...document.querySelectorAll('canvas[role="img"]')].filter((c) => {
+      const r = c.getBoundingClientRect();
+      return r.height > 0 && r.top < innerHeight && r.bottom > 0;
+    }).length,
+  );
   const dragWithPanels = await inPageDrag(page, DRAG_MOVES);
   await page.evaluate(() => window.scrollTo(0, 0));
 

@@ -15,9 +15,10 @@ const HALF_WIDTHS = [1000, 3000, 6000] as const;
  * Close-ups in velocity around the deciding features at the trial z, for features the data cover.
  * During a drag the list re-renders only when a feature enters or leaves the data; the canvases
  * repaint themselves once per frame from the trial-z store, with the feature's observed
- * wavelength drawn in them (text in the page would cost a layout on every frame). While the
- * panels are scrolled out of view they neither follow a drag nor draw a new spectrum; they catch
- * up when they come back (a move to the next spectrum then does not pay for close-ups nobody sees).
+ * wavelength drawn in them (text in the page would cost a layout on every frame). While a
+ * close-up is scrolled out of view (or hidden) it neither follows a drag nor draws a new spectrum;
+ * it catches up when it comes back (a move to the next spectrum then does not pay for close-ups
+ * nobody sees).
  */
 export function FeaturePanels({ display, store }: { display: DisplayArrays; store: TrialZStore }) {
   const [halfWidth, setHalfWidth] = useState<number>(3000);
@@ -32,17 +33,17 @@ export function FeaturePanels({ display, store }: { display: DisplayArrays; stor
       .map((f) => f.id)
       .join(' '),
   );
-  const visible = FEATURE_WINDOWS.filter((f) => ids.split(' ').includes(f.id));
-  const section = useRef<HTMLElement>(null);
+  const inData = new Set(ids.split(' '));
+  const list = useRef<HTMLUListElement>(null);
   const gate = useMemo(createViewGate, []);
   useEffect(() => {
     const seen = new IntersectionObserver((entries) => gate.set(entries.at(-1)?.isIntersecting ?? true));
-    seen.observe(section.current!);
+    seen.observe(list.current!);
     return () => seen.disconnect();
   }, [gate]);
 
   return (
-    <section ref={section} aria-labelledby="feature-panels-title" className="flex flex-col gap-2">
+    <section aria-labelledby="feature-panels-title" className="flex flex-col gap-2">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <h2 id="feature-panels-title" className="text-md font-semibold text-ink-900">
           Features at the trial z
@@ -55,17 +56,16 @@ export function FeaturePanels({ display, store }: { display: DisplayArrays; stor
           ))}
         </SelectField>
       </div>
-      {visible.length === 0 ? (
-        <p className="text-ink-500">None of the close-up features falls inside the data at this redshift.</p>
-      ) : (
-        <ul className="flex flex-wrap gap-3">
-          {visible.map((f) => (
-            <li key={f.id}>
-              <FeatureCanvas feature={f} store={store} halfWidth={halfWidth} display={display} section={gate} />
-            </li>
-          ))}
-        </ul>
-      )}
+      {inData.has('') ? <p className="text-ink-500">None of the close-up features falls inside the data at this redshift.</p> : null}
+      {/* Every close-up stays mounted and is hidden while its feature is outside the data: a canvas
+          made or dropped costs more than the paint (software compositing), on every new spectrum. */}
+      <ul ref={list} className="flex flex-wrap gap-3">
+        {FEATURE_WINDOWS.map((f) => (
+          <li key={f.id} hidden={!inData.has(f.id)}>
+            <FeatureCanvas feature={f} shown={inData.has(f.id)} store={store} halfWidth={halfWidth} display={display} list={gate} />
+          </li>
+        ))}
+      </ul>
     </section>
   );
 }
@@ -75,18 +75,21 @@ export function FeaturePanels({ display, store }: { display: DisplayArrays; stor
  * every frame of a drag reaches the compositor as new canvas content without repainting the
  * panel around it (measured: 0.3–1.6 ms less per frame with two close-ups in view).
  */
-function FeatureCanvas({ feature, store, halfWidth, display, section }: { feature: FeatureWindow; store: TrialZStore; halfWidth: number; display: DisplayArrays; section: ViewGate }) {
+function FeatureCanvas({ feature, shown, store, halfWidth, display, list }: { feature: FeatureWindow; shown: boolean; store: TrialZStore; halfWidth: number; display: DisplayArrays; list: ViewGate }) {
   const ref = useRef<HTMLCanvasElement>(null);
-  // This panel's own visibility, kept from one spectrum to the next; until its observer first
-  // reports, it is taken from the section's (a panel that appears while the section is scrolled
-  // away does not paint).
-  const [gate] = useState(() => createViewGate(section.visible));
+  // This close-up's own visibility (hidden, or scrolled away), kept from one spectrum to the next.
+  const [gate] = useState(() => createViewGate(false));
+  const wasShown = useRef(false);
   useEffect(() => {
     const seen = new IntersectionObserver((entries) => gate.set(entries.at(-1)?.isIntersecting ?? true));
     seen.observe(ref.current!);
     return () => seen.disconnect();
   }, [gate]);
   useEffect(() => {
+    if (!shown) {
+      wasShown.current = false;
+      return;
+    }
     const canvas = ref.current!;
     const ratio = window.devicePixelRatio || 1;
     // Setting a canvas's size, even to the same value, throws its bitmap away: only when it changes.
@@ -95,13 +98,20 @@ function FeatureCanvas({ feature, store, halfWidth, display, section }: { featur
     const ctx = canvas.getContext('2d')!;
     ctx.setTransform(ratio, 0, 0, ratio, 0, 0);
     const paint = () => drawFeature(ctx, feature, store.get(), halfWidth, display);
+    // A close-up that has just appeared takes the list's visibility until its own observer reports
+    // (a frame later): in a list on screen it paints at once, as a new element would.
+    if (!wasShown.current) {
+      wasShown.current = true;
+      gate.forget(canvas);
+      gate.set(list.visible);
+    }
     gate.paintOrDefer(canvas, paint);
     const unsubscribe = store.subscribe(() => gate.paintOrDefer(canvas, paint));
     return () => {
       gate.forget(canvas);
       unsubscribe();
     };
-  }, [feature, store, halfWidth, display, gate]);
+  }, [feature, shown, store, halfWidth, display, gate, list]);
   const marks = feature.marks.map((m) => m.label).join(', ');
   return (
     <figure className="rounded-control border border-paper-300 bg-paper-50 p-1.5">
