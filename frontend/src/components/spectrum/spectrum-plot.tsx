@@ -165,16 +165,13 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
       const { top, height } = u.bbox;
       u.ctx.save();
       u.ctx.fillStyle = PLOT.errorBand;
-      // The columns' rectangles never overlap: one path filled once, a single drawing operation.
-      u.ctx.beginPath();
       for (let c = 0; c < columns; c++) {
         const t = bandTop[c]!;
         if (Number.isNaN(t)) continue;
         const y0 = Math.max(top, t);
         const y1 = Math.min(top + height, bandBottom[c]!);
-        if (y1 > y0 - 1) u.ctx.rect(left + c, y0, 1, Math.max(1, y1 - y0));
+        if (y1 > y0 - 1) u.ctx.fillRect(left + c, y0, 1, Math.max(1, y1 - y0));
       }
-      u.ctx.fill();
       u.ctx.restore();
     };
 

@@ -123,15 +123,12 @@ function drawColumns(ctx: CanvasRenderingContext2D, d: DisplayArrays, cols: Pixe
   const bottom = new Float32Array(columns);
   const band = columnBand(d.flux, d.source.error, cols, mask);
   bandColumns(x, band.low, band.high, (l) => toX(l) - PAD.l, (v) => v, columns, top, bottom);
-  // One path of column rectangles, filled once: one drawing operation per frame instead of one per column.
-  ctx.beginPath();
   for (let c = 0; c < columns; c++) {
     if (Number.isNaN(top[c]!)) continue;
     // top/bottom hold flux values here (toY is applied per rectangle): the upper edge is the larger.
     const y0 = toY(bottom[c]!);
-    ctx.rect(PAD.l + c, y0, 1, Math.max(1, toY(top[c]!) - y0));
+    ctx.fillRect(PAD.l + c, y0, 1, Math.max(1, toY(top[c]!) - y0));
   }
-  ctx.fill();
   const flux = columnMinMax(d.flux, cols, mask);
   ctx.beginPath();
   let pen = false;
