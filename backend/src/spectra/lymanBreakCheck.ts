@@ -29,7 +29,7 @@ const RED_REST: readonly [number, number] = [1270, 1450];
 const MIN_PIXELS = 10;
 /** Scatter of the mean forest transmission between sightlines, as a fraction of T (common practice: ~20 %). */
 const FOREST_SCATTER = 0.2;
-/** Sky-subtraction and flux-calibration floor, as a fraction of the red mean (common practice). */
+/** Sky-subtraction and flux-calibration floor, as a fraction of the brighter of the two window means (common practice). */
 const CALIBRATION_FLOOR = 0.03;
 
 /** Prefix sums of ivar-weighted flux over the prepared spectrum's grid, for O(1) window means. */
