@@ -47,15 +47,17 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
       <p className="text-sm text-ink-700">
         Redshift from the comb: <CombZ store={store} />
       </p>
-      <fieldset>
+      {/* min-w-0: a fieldset is otherwise as wide as its longest line and pushes out of the card. */}
+      <fieldset className="min-w-0">
         <legend className="mb-1 text-sm font-medium text-ink-800">Grade</legend>
         <div className="flex flex-col gap-0.5">
           {scheme.map((g) => (
-            <label key={g.code} className="flex min-w-0 cursor-pointer items-baseline gap-2 overflow-hidden rounded-control px-1 py-0.5 hover:bg-paper-200 has-[:checked]:bg-ember-50" title={g.meaning}>
+            <label key={g.code} className="flex min-w-0 cursor-pointer flex-wrap items-baseline gap-x-2 rounded-control px-1 py-0.5 hover:bg-paper-200 has-[:checked]:bg-ember-50">
               <input type="radio" name="grade" value={g.code} checked={draft.grade === g.code} onChange={() => onDraft((d) => ({ ...d, grade: g.code }))} className="accent-ember-600" />
               <span className="num font-semibold">{g.code}</span>
               <span>{g.label}</span>
-              <span className="min-w-0 truncate text-xs text-ink-500">{g.meaning}</span>
+              {/* The meaning wraps on its own line: readers grade by it, so it is never cut off. */}
+              <span className="basis-full pl-6 text-xs text-ink-500">{g.meaning}</span>
             </label>
           ))}
         </div>
