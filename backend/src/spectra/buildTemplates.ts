@@ -1,3 +1,4 @@
+import { MAX_COMPONENTS } from './bestAmplitudes';
 import { highPass } from './highPass';
 import { igmTransmission } from './igmTransmission';
 import { LINES, type SpectralLine } from './lineList';
@@ -24,6 +25,8 @@ export interface TemplateBasis {
   values: Float64Array;
   /** The same vector before continuum removal (instrument-smoothed, same scale as `values`). */
   unfiltered: Float64Array;
+  /** Drawn in synthetic spectra of the template (false for variants such as a broad Balmer component). */
+  synthetic: boolean;
 }
 
 /** A redshift interval over which a fixed set of basis vectors is fitted. */
@@ -90,41 +93,46 @@ export function buildTemplates(step: number, instrumentSigmaPx: number, continuu
 
 function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, sigmaPx: number, widthPx: number): BuiltTemplate {
   const staticBasis: TemplateBasis[] = [];
-  const binned: Array<{ label: string; rest: Float64Array }> = [];
+  const staticZMax: number[] = [];
+  const binned: Array<{ label: string; rest: Float64Array; synthetic: boolean }> = [];
   const used = new Set<SpectralLine>();
   for (const comp of recipe.components) {
     const lines = selectLines(strengthKeyOf(recipe, comp), comp);
     lines.forEach((l) => used.add(l));
     const rest = componentSpectrum(recipe, comp, lines, lambda, step);
     if (comp.igm === 'red-only') {
-      staticBasis.push({ label: `${comp.name} (red of Lyα)`, ...finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
+      staticBasis.push({ label: `${comp.name} (red of Lyα)`, synthetic: comp.synthetic ?? true, ...finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
+      staticZMax.push(comp.zMax ?? Infinity);
     } else if (comp.igm === 'madau1995') {
+      if (comp.zMax !== undefined) throw new Error(`Template ${recipe.id}: zMax is not supported on an IGM-attenuated component (${comp.name}).`);
       // The attenuated blue side stays tied to the red side (one amplitude): fitted separately it
       // would become a free narrow feature at Lyα at high z, where the forest is nearly black.
-      binned.push({ label: comp.name, rest });
+      binned.push({ label: comp.name, rest, synthetic: comp.synthetic ?? true });
     } else {
-      staticBasis.push({ label: comp.name, ...finish(rest, sigmaPx, widthPx) });
+      staticBasis.push({ label: comp.name, synthetic: comp.synthetic ?? true, ...finish(rest, sigmaPx, widthPx) });
+      staticZMax.push(comp.zMax ?? Infinity);
     }
   }
   const basis = [...staticBasis];
   const staticIdx = staticBasis.map((_, i) => i);
+  // Bins: the IGM bins when a component is attenuated, split where a static component stops.
+  const igmEdges = binned.length ? IGM_BIN_EDGES : [recipe.zMin, recipe.zMax];
+  const cuts = staticZMax.filter((z) => z > recipe.zMin && z < recipe.zMax);
+  const edges = [...new Set([...igmEdges, ...cuts])].sort((x, y) => x - y);
   const bins: TemplateBin[] = [];
-  if (binned.length === 0) {
-    bins.push({ zLo: recipe.zMin, zHi: recipe.zMax, basis: staticIdx });
-  } else {
-    for (let b = 0; b + 1 < IGM_BIN_EDGES.length; b++) {
-      const zLo = Math.max(recipe.zMin, IGM_BIN_EDGES[b]!);
-      const zHi = Math.min(recipe.zMax, IGM_BIN_EDGES[b + 1]!);
-      if (zHi <= zLo) continue;
-      const zc = Math.sqrt((1 + zLo) * (1 + zHi)) - 1;
-      const idx = [...staticIdx];
-      for (const f of binned) {
-        const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * igmTransmission(lambda[j]! * (1 + zc), zc)));
-        idx.push(basis.length);
-        basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, ...finish(attenuated, sigmaPx, widthPx) });
-      }
-      bins.push({ zLo, zHi, basis: idx });
+  for (let b = 0; b + 1 < edges.length; b++) {
+    const zLo = Math.max(recipe.zMin, edges[b]!);
+    const zHi = Math.min(recipe.zMax, edges[b + 1]!);
+    if (zHi <= zLo) continue;
+    const idx = staticIdx.filter((i) => staticZMax[i]! >= zHi);
+    const zc = Math.sqrt((1 + zLo) * (1 + zHi)) - 1;
+    for (const f of binned) {
+      const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * igmTransmission(lambda[j]! * (1 + zc), zc)));
+      idx.push(basis.length);
+      basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, synthetic: f.synthetic, ...finish(attenuated, sigmaPx, widthPx) });
     }
+    if (idx.length > MAX_COMPONENTS) throw new Error(`Template ${recipe.id}: ${idx.length} components fitted at once in ${zLo} … ${zHi}; at most ${MAX_COMPONENTS}.`);
+    bins.push({ zLo, zHi, basis: idx });
   }
   return {
     id: recipe.id,

@@ -78,6 +78,7 @@ export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
     const f = rest - j;
     let v = 0;
     bin.basis.forEach((b, k) => {
+      if (!t.basis[b]!.synthetic) return;
       const arr = physical ? t.basis[b]!.unfiltered : t.basis[b]!.values;
       const val = j >= 0 && j + 1 < arr.length ? arr[j]! * (1 - f) + arr[j + 1]! * f : 0;
       v += val * (k === 0 ? 1 : 0.5);

@@ -1,4 +1,4 @@
-import { bestAmplitudes } from './bestAmplitudes';
+import { bestAmplitudes, MAX_COMPONENTS } from './bestAmplitudes';
 import type { BuiltTemplate, TemplateSet } from './buildTemplates';
 import { directCorrelator, fftCorrelator, type LagWindow, type ShiftCorrelator } from './correlateShifts';
 import { zToShift } from './logGrid';
@@ -150,6 +150,8 @@ interface Job {
   vector: PreparedVector;
   window: LagWindow;
   corr: ShiftCorrelator;
+  /** Highest shift of the window: out[hi − s] is the correlation at shift s. */
+  hi: number;
   out?: Float64Array;
 }
 
@@ -186,7 +188,7 @@ export function scanTemplates(data: ScanData, set: TemplateSet, requests: Templa
     const plan = planTemplate(data, set, req, method);
     if (plan) plans.push(plan);
   }
-  runJobs(data, plans.flatMap((p) => p.bins.flatMap((b) => [...b.proj, ...new Set(b.gram)])).filter((j) => j.vector !== ZERO_VECTOR));
+  runJobs(data, [...new Set(plans.flatMap((p) => p.bins.flatMap((b) => [...b.proj, ...b.gram])))].filter((j) => j.vector !== ZERO_VECTOR));
   return plans.map((p) => finishTemplate(data, p));
 }
 
@@ -201,40 +203,59 @@ function planTemplate(data: ScanData, set: TemplateSet, req: TemplateRequest, me
   const sMin = Math.ceil(zToShift(Math.max(req.zMin, template.zMin), step));
   const sMax = Math.floor(zToShift(Math.min(req.zMax, template.zMax), step));
   if (sMax < sMin) return undefined;
-  const bins: TemplatePlan['bins'] = [];
-  for (const bin of template.bins) {
-    const lo = Math.max(sMin, Math.ceil(zToShift(bin.zLo, step)));
-    const hi = Math.min(sMax, Math.floor(zToShift(bin.zHi, step)));
-    if (hi < lo) continue;
-    // The buffer's top shift is the bin's own upper shift rounded up, so it does not depend on the
-    // range a caller asked for; lags ℓ = top − s then run from top − hi to top − lo.
-    const top = Math.ceil(zToShift(bin.zHi, step) / ALIGN) * ALIGN;
+  // The shifts each bin covers inside the requested range.
+  const ranges = template.bins.map((bin) => ({
+    bin,
+    lo: Math.max(sMin, Math.ceil(zToShift(bin.zLo, step))),
+    hi: Math.min(sMax, Math.floor(zToShift(bin.zHi, step))),
+  })).filter((r) => r.hi >= r.lo);
+  // A vector several bins use (a component fitted at every z, beside one fitted only at low z) is
+  // correlated once over the union of their shifts rather than once per bin.
+  const spans = new Map<string, { lo: number; hi: number; zHi: number }>();
+  const need = (key: string, r: (typeof ranges)[number]) => {
+    const u = spans.get(key);
+    if (u) {
+      u.lo = Math.min(u.lo, r.lo);
+      u.hi = Math.max(u.hi, r.hi);
+      u.zHi = Math.max(u.zHi, r.bin.zHi);
+    } else spans.set(key, { lo: r.lo, hi: r.hi, zHi: r.bin.zHi });
+  };
+  const productKey = (p: number, q: number) => (p <= q ? `p${p},${q}` : `p${q},${p}`);
+  for (const r of ranges) {
+    for (const b of r.bin.basis) need(`b${b}`, r);
+    for (const p of r.bin.basis) for (const q of r.bin.basis) if (p <= q) need(productKey(p, q), r);
+  }
+  const jobs = new Map<string, Job>();
+  const jobFor = (key: string, kind: 'wf' | 'w', values: () => Float64Array, zero: boolean): Job => {
+    let job = jobs.get(key);
+    if (job) return job;
+    const { lo, hi, zHi } = spans.get(key)!;
+    // The buffer's top shift is the upper shift of the bins' z range rounded up, so it does not
+    // depend on the range a caller asked for; lags ℓ = top − s then run from top − hi to top − lo.
+    const top = Math.ceil(zToShift(zHi, step) / ALIGN) * ALIGN;
     const window = { l0: top - hi, count: hi - lo + 1 };
     let size = 1;
     while (size < data.span + top - lo) size <<= 1;
     // A handful of shifts (stars near z = 0) is cheaper by the direct sum than by a transform.
     const corr = method === 'fft' && window.count > DIRECT_BELOW ? fftCorrelator(size) : directCorrelator(size);
+    job = zero
+      ? { data: kind, vector: ZERO_VECTOR, window, corr, hi, out: new Float64Array(window.count) }
+      : { data: kind, vector: templateVector(set, template, key, values, data.origin, top, corr), window, corr, hi };
+    jobs.set(key, job);
+    return job;
+  };
+  const bins: TemplatePlan['bins'] = [];
+  for (const { bin, lo, hi } of ranges) {
     const m = bin.basis.length;
-    const proj: Job[] = [];
+    const proj = bin.basis.map((b) => jobFor(`b${b}`, 'wf', () => template.basis[b]!.values, false));
     const gram: Job[] = [];
-    for (const b of bin.basis) {
-      const vector = templateVector(set, template, `b${b}`, () => template.basis[b]!.values, data.origin, top, corr);
-      proj.push({ data: 'wf', vector, window, corr });
-    }
     for (let p = 0; p < m; p++) for (let q = 0; q < m; q++) {
-      if (q < p) {
-        gram.push(gram[q * m + p]!);
-        continue;
-      }
-      const [x, y] = bin.basis[p]! <= bin.basis[q]! ? [bin.basis[p]!, bin.basis[q]!] : [bin.basis[q]!, bin.basis[p]!];
+      const x = Math.min(bin.basis[p]!, bin.basis[q]!);
+      const y = Math.max(bin.basis[p]!, bin.basis[q]!);
       // Components with disjoint supports (line groups far apart in wavelength) have an exactly
       // zero product: their Gram entry is 0 at every shift and needs no correlation.
-      if (x !== y && isZero(basisProduct(set, template, x, y))) {
-        gram.push({ data: 'w', vector: ZERO_VECTOR, window, corr, out: new Float64Array(window.count) });
-        continue;
-      }
-      const vector = templateVector(set, template, `p${x},${y}`, () => basisProduct(set, template, x, y), data.origin, top, corr);
-      gram.push({ data: 'w', vector, window, corr });
+      const zero = x !== y && isZero(basisProduct(set, template, x, y));
+      gram.push(jobFor(productKey(x, y), 'w', () => basisProduct(set, template, x, y), zero));
     }
     bins.push({ lo, hi, m, proj, gram });
   }
@@ -269,9 +290,9 @@ function runJobs(data: ScanData, jobs: Job[]): void {
   }
 }
 
-const scratchA = new Float64Array(9);
-const scratchR = new Float64Array(3);
-const scratchAmp = new Float64Array(3);
+const scratchA = new Float64Array(MAX_COMPONENTS * MAX_COMPONENTS);
+const scratchR = new Float64Array(MAX_COMPONENTS);
+const scratchAmp = new Float64Array(MAX_COMPONENTS);
 
 function finishTemplate(data: ScanData, plan: TemplatePlan): TemplateCurve {
   const { sMin, lags, maxBasis, template } = plan;
@@ -281,8 +302,10 @@ function finishTemplate(data: ScanData, plan: TemplatePlan): TemplateCurve {
   const r = scratchR;
   const amp = scratchAmp;
   for (const { lo, hi, proj, gram, m } of plan.bins) {
-    const projs = proj.map((j) => j.out!);
-    const grams = gram.map((j) => j.out!);
+    // Views of each correlation over this bin's shifts: element hi − s is shift s.
+    const view = (j: Job) => j.out!.subarray(j.hi - hi, j.hi - lo + 1);
+    const projs = proj.map(view);
+    const grams = gram.map(view);
     // A component that barely overlaps the data at a shift gives an unstable amplitude, and FFT
     // round-off leaves tiny non-zero Gram entries where it does not overlap at all: such
     // components are left out below a fraction of their best overlap anywhere in the range.
@@ -298,7 +321,6 @@ function finishTemplate(data: ScanData, plan: TemplatePlan): TemplateCurve {
     });
     const cap = data.chi2Null * (1 + 1e-9);
     for (let s = lo; s <= hi; s++) {
-      // Correlation outputs run from the bin's top shift downward: index hi − s.
       const l = hi - s;
       const idx = s - sMin;
       let reduction: number;

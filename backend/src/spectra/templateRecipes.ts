@@ -12,6 +12,15 @@ export interface ComponentRecipe {
   continuum?: ContinuumRecipe;
   select: { kind: LineKind[]; species?: string[]; names?: string[] };
   igm?: 'madau1995' | 'red-only';
+  /**
+   * Fitted only up to this redshift (the template's z range is split there). For a component that
+   * would otherwise let the template mimic another class at higher z.
+   */
+  zMax?: number;
+  /** false: left out of synthetic spectra of the template (a variant the scan allows, not the typical object). */
+  synthetic?: boolean;
+  /** Why the component exists and where its numbers come from, when it is not one of the plain recipes. */
+  why?: string;
   as?: 'absorption';
   /** Line strengths of this key for this component alone (overrides the recipe's). */
   strengthKey?: string;
