@@ -57,7 +57,7 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     // Issue 3 asks for ≥ 95 %. This guards the level reached so far against regressions:
     // 103/109 = 94.5 % with engine 0.5.0, whose emission-line galaxy may add a broad Balmer
     // component at z ≤ 0.5 (the broad-line AGN spec-8851 at z = 0.0018 no longer reads as a lone
-    // [O II] at 0.76); 102/109 = 93.6 % with engine 0.4.2 (97 before: the telluric-corrected flux column of the XQ100
+    // [O II] at 0.76; docs/decisions/engine-scan.md lists the six left); 102/109 = 93.6 % with engine 0.4.2 (97 before: the telluric-corrected flux column of the XQ100
     // near-infrared arm is now read, cg922's rest-frame axis is put back to observed wavelengths from
     // its own header, and the quasar template's blueshifted, wider C IV group brings two z ≈ 6
     // near-infrared arms within tolerance; with 3 % of the sky added to σ, a lone sky-line residual

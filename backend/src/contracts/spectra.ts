@@ -20,6 +20,10 @@ export const solutionSchema = z.object({
   detectionChi2: z.number(),
   lines: z.array(solutionLineSchema),
   priorWeight: z.number().optional(),
+  /** Share of the χ² gain in the strongest 0.006 dex window (absorption-line galaxies and stars). */
+  featureShare: z.number().optional(),
+  /** χ² added because one feature carried more than 90 % of the gain (included in chi2). */
+  singleFeaturePenalty: z.number().optional(),
 });
 export type Solution = z.infer<typeof solutionSchema>;
 

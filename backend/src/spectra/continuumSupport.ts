@@ -15,19 +15,20 @@ export function continuumSupport(ivar: Float64Array, ratio = 30, block = 64, rea
   const n = ivar.length;
   const blocks = Math.ceil(n / block);
   const blockMedian = new Float64Array(blocks);
-  const values: number[] = [];
+  // Typed-array sorts are numeric without a comparator call per comparison (this runs per scan).
+  const values = new Float64Array(Math.max(block, 2 * reach + 1));
   for (let b = 0; b < blocks; b++) {
-    values.length = 0;
-    for (let i = b * block; i < Math.min(n, (b + 1) * block); i++) if (ivar[i]! > 0) values.push(ivar[i]!);
-    values.sort((x, y) => x - y);
-    blockMedian[b] = values.length ? values[values.length >> 1]! : NaN;
+    let k = 0;
+    for (let i = b * block; i < Math.min(n, (b + 1) * block); i++) if (ivar[i]! > 0) values[k++] = ivar[i]!;
+    const sorted = values.subarray(0, k).sort();
+    blockMedian[b] = k ? sorted[k >> 1]! : NaN;
   }
   const floor = new Float64Array(blocks);
   for (let b = 0; b < blocks; b++) {
-    values.length = 0;
-    for (let c = Math.max(0, b - reach); c <= Math.min(blocks - 1, b + reach); c++) if (blockMedian[c]! > 0) values.push(blockMedian[c]!);
-    values.sort((x, y) => x - y);
-    floor[b] = values.length ? values[values.length >> 1]! / (ratio * ratio) : 0;
+    let k = 0;
+    for (let c = Math.max(0, b - reach); c <= Math.min(blocks - 1, b + reach); c++) if (blockMedian[c]! > 0) values[k++] = blockMedian[c]!;
+    const sorted = values.subarray(0, k).sort();
+    floor[b] = k ? sorted[k >> 1]! / (ratio * ratio) : 0;
   }
   const valid = new Uint8Array(n);
   for (let i = 0; i < n; i++) valid[i] = ivar[i]! > 0 && ivar[i]! >= floor[Math.floor(i / block)]! ? 1 : 0;

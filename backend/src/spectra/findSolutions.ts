@@ -13,6 +13,10 @@ export interface RawSolution {
   shift: number;
   /** Best amplitudes of the template's basis vectors at the minimum. */
   amplitudes: number[];
+  /** χ² added by the single-feature check (included in chi2). */
+  penalty?: number;
+  /** Share of the χ² gain in the strongest feature window (templates the check applies to). */
+  featureShare?: number;
 }
 
 /** Minima closer than this (pixels, ≈ 1000 km/s at 1e-4 dex) are one solution. */
@@ -24,21 +28,16 @@ export const DISTINCT_PX = 15;
  * σ_s = √(2/χ²''), converted to z with dz = (1+z)·ln10·step·σ_s.
  */
 export function findSolutions(curves: TemplateCurve[], step: number, maxSolutions: number): RawSolution[] {
+  return pickDistinct(findMinima(curves, step, 4 * maxSolutions + 4), maxSolutions);
+}
+
+/** The lowest `perCurve` local minima of every curve, refined, best first. */
+export function findMinima(curves: TemplateCurve[], step: number, perCurve: number): RawSolution[] {
   const candidates: RawSolution[] = [];
   for (const c of curves) {
     const y = c.chi2;
-    const mins: number[] = [];
-    for (let i = 0; i < y.length; i++) {
-      const v = y[i]!;
-      let isMin = true;
-      for (let k = 1; k <= 3 && isMin; k++) {
-        if (i - k >= 0 && y[i - k]! < v) isMin = false;
-        if (i + k < y.length && y[i + k]! < v) isMin = false;
-      }
-      if (isMin) mins.push(i);
-    }
-    mins.sort((a, b) => y[a]! - y[b]!);
-    for (const i of mins.slice(0, 4 * maxSolutions + 4)) {
+    const mins = lowestLocalMinima(y, perCurve);
+    for (const i of mins) {
       let offset = 0;
       let curvature = NaN;
       if (i > 0 && i < y.length - 1) {
@@ -67,11 +66,60 @@ export function findSolutions(curves: TemplateCurve[], step: number, maxSolution
     }
   }
   candidates.sort((a, b) => a.chi2 - b.chi2);
+  return candidates;
+}
+
+/**
+ * The best `maxSolutions` candidates at least DISTINCT_PX apart, from a list sorted by χ².
+ * `penalty`, when given, is asked once about each candidate about to be chosen; a candidate with a
+ * positive penalty gets it added to its χ² and goes back into the list at its new rank. Only
+ * candidates that would be chosen are asked (the check may be costly), and the result equals
+ * penalising every candidate first, since penalties only ever raise χ².
+ */
+export function pickDistinct(candidates: RawSolution[], maxSolutions: number, penalty?: (candidate: RawSolution) => number): RawSolution[] {
+  const queue = candidates.slice();
+  const asked = new Set<RawSolution>();
   const chosen: RawSolution[] = [];
-  for (const cand of candidates) {
+  while (queue.length > 0 && chosen.length < maxSolutions) {
+    const cand = queue.shift()!;
     if (chosen.some((s) => Math.abs(s.shift - cand.shift) <= DISTINCT_PX)) continue;
+    if (penalty && !asked.has(cand)) {
+      asked.add(cand);
+      const p = penalty(cand);
+      if (p > 0) {
+        cand.chi2 += p;
+        let k = 0;
+        while (k < queue.length && queue[k]!.chi2 <= cand.chi2) k++;
+        queue.splice(k, 0, cand);
+        continue;
+      }
+    }
     chosen.push(cand);
-    if (chosen.length >= maxSolutions) break;
   }
   return chosen;
+}
+
+/**
+ * Indices of the `count` lowest local minima of y (a point no higher than its three neighbours on
+ * each side), lowest first. A bounded insertion list: noise gives thousands of minima per curve,
+ * and most are rejected by one comparison with the current worst kept.
+ */
+function lowestLocalMinima(y: Float64Array, count: number): number[] {
+  const kept: number[] = [];
+  const n = y.length;
+  for (let i = 0; i < n; i++) {
+    const v = y[i]!;
+    if (kept.length === count && v >= y[kept[count - 1]!]!) continue;
+    let isMin = true;
+    for (let k = 1; k <= 3 && isMin; k++) {
+      if (i - k >= 0 && y[i - k]! < v) isMin = false;
+      if (i + k < n && y[i + k]! < v) isMin = false;
+    }
+    if (!isMin) continue;
+    let at = kept.length;
+    while (at > 0 && y[kept[at - 1]!]! > v) at--;
+    kept.splice(at, 0, i);
+    if (kept.length > count) kept.pop();
+  }
+  return kept;
 }

@@ -122,10 +122,11 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
   const nativePx = (logSteps[logSteps.length >> 1] ?? step) / step;
   const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? continuumWidthFor(nativePx * step)) / step)) | 1;
   const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
-  const snrValues: number[] = [];
-  for (let i = 0; i < n; i++) if (ivar[i]! > 0) snrValues.push(Math.abs(spectrum.flux[i]!) * Math.sqrt(ivar[i]!));
+  const snrValues = new Float64Array(n);
+  let usable = 0;
+  for (let i = 0; i < n; i++) if (ivar[i]! > 0) snrValues[usable++] = Math.abs(spectrum.flux[i]!) * Math.sqrt(ivar[i]!);
   // A typed array sorts numerically without a comparator call per comparison.
-  const snr = Float64Array.from(snrValues).sort();
+  const snr = snrValues.subarray(0, usable).sort();
   return {
     step,
     g0: grid.g0,

@@ -1,11 +1,12 @@
 import { templateSetFor, type TemplateSet } from './buildTemplates';
-import { findSolutions } from './findSolutions';
+import { findMinima, pickDistinct, type RawSolution } from './findSolutions';
 import { shiftToZ } from './logGrid';
 import { addBreakChi2, windowSums } from './lymanBreakCheck';
 import { matchEmissionLines, type LineMatchResult } from './matchEmissionLines';
 import { prepareSpectrum, type PrepareOptions, type PreparedSpectrum } from './prepareSpectrum';
 import { rankWithPhotoZ, type PhotoZPrior } from './rankWithPhotoZ';
-import { scanData, scanTemplates, type TemplateCurve, type TemplateRequest } from './scanTemplate';
+import { scanData, scanTemplates, type ScanData, type TemplateCurve, type TemplateRequest } from './scanTemplate';
+import { checksSingleFeature, featureShare } from './singleFeatureCheck';
 import type { Spectrum, SpectrumClass, TemplateClass } from './types';
 import { ENGINE_VERSION } from './version';
 import { TEMPLATE_RECIPES } from './templateRecipes';
@@ -26,6 +27,8 @@ export interface ScanOptions extends PrepareOptions {
   curvePoints?: number;
   /** Minimum χ² improvement over a zero model for any class decision (default 50: the best of ~10⁴ trial shifts × templates on pure noise reaches ~20–40). */
   minDetectionChi2?: number;
+  /** Cap the evidence of one feature for absorption-line galaxies and stars (singleFeatureCheck.ts; default true). */
+  singleFeatureCheck?: boolean;
 }
 
 /** A feature of the line list at a solution's redshift, inside the observed range. */
@@ -52,6 +55,10 @@ export interface Solution {
   lines: SolutionLine[];
   /** Prior weight when a photometric redshift was given (1 inside its range). */
   priorWeight?: number;
+  /** Share of the χ² gain carried by the strongest 0.006 dex window (absorption-line galaxies and stars). */
+  featureShare?: number;
+  /** χ² added because one feature carried more than 90 % of the gain (included in chi2). */
+  singleFeaturePenalty?: number;
 }
 
 /** χ²(z) of one template, decimated (minimum per block) for plotting. */
@@ -121,7 +128,9 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   for (const c of curves) dropShiftsWithoutFeatures(c, prepared, data.chi2Null);
   addLymanBreakChecks(curves, prepared);
   const maxSolutions = options.maxSolutions ?? 5;
-  const raw = findSolutions(curves, set.step, maxSolutions);
+  const candidates = findMinima(curves, set.step, 4 * maxSolutions + 4);
+  const check = options.singleFeatureCheck ?? true;
+  const raw = pickDistinct(candidates, maxSolutions, check ? (cand) => singleFeaturePenalty(cand, curves, data, set) : undefined);
   const solutions: Solution[] = raw.map((s, k) => ({
     z: s.z,
     zErr: s.zErr,
@@ -131,6 +140,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     deltaChi2: k + 1 < raw.length ? raw[k + 1]!.chi2 - s.chi2 : null,
     detectionChi2: data.chi2Null - s.chi2,
     lines: linesInRange(set, s.template, s.z, prepared),
+    ...(s.featureShare !== undefined ? { featureShare: s.featureShare } : {}),
+    ...(s.penalty ? { singleFeaturePenalty: s.penalty } : {}),
   }));
   const ranked = options.photoZ ? rankWithPhotoZ(solutions, options.photoZ) : solutions;
   const best = ranked[0];
@@ -178,6 +189,16 @@ function dropShiftsWithoutFeatures(c: TemplateCurve, prepared: PreparedSpectrum,
     running += covered[i]!;
     if (running === 0) c.chi2[i] = chi2Null;
   }
+}
+
+/** The single-feature check (singleFeatureCheck.ts) of one candidate: records its share, returns its penalty. */
+function singleFeaturePenalty(cand: RawSolution, curves: TemplateCurve[], data: ScanData, set: TemplateSet): number {
+  const template = curves.find((c) => c.template.id === cand.template)!.template;
+  if (!checksSingleFeature(template)) return 0;
+  const share = featureShare(data, set, template, cand.shift, cand.amplitudes);
+  cand.featureShare = share.gain > 0 ? share.window / share.gain : 0;
+  if (share.penalty > 0) cand.penalty = share.penalty;
+  return share.penalty;
 }
 
 /**

@@ -57,6 +57,11 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
                   </span>
                 ) : null}
               </span>
+              {s.singleFeaturePenalty && s.featureShare !== undefined ? (
+                <span className="mt-0.5 block text-xs text-warning-700" title="The χ² gain of this fit comes almost entirely from one 0.006 dex window; its evidence was capped and the solution ranked lower.">
+                  One feature carries {Math.round(100 * s.featureShare)} % of the evidence: demoted
+                </span>
+              ) : null}
               {lines.length > 0 ? (
                 <span className="mt-0.5 block text-xs text-ink-600">
                   {lines.slice(0, MAX_LINES_SHOWN).join(' · ')}
