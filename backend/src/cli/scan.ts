@@ -3,11 +3,12 @@ import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
 import { scanSpectrum } from '../spectra/scanSpectrum';
 
-// `npm run scan -- <files...> [--zmin A --zmax B] [--json]`: one JSON object per file per line.
+// `npm run scan -- <files...> [--zmin A --zmax B] [--step S|native] [--json]`: one JSON object per file per line.
 const args = process.argv.slice(2);
 const files: string[] = [];
 let zMin = 0;
 let zMax = 9;
+let step: number | 'native' | undefined;
 for (let i = 0; i < args.length; i++) {
   const a = args[i]!;
   if (a === '--zmin' || a === '--zmax') {
@@ -15,6 +16,10 @@ for (let i = 0; i < args.length; i++) {
     if (!Number.isFinite(v)) usage(`${a} needs a number`);
     if (a === '--zmin') zMin = v;
     else zMax = v;
+  } else if (a === '--step') {
+    const v = args[++i];
+    step = v === 'native' ? 'native' : Number(v);
+    if (step !== 'native' && !(step > 0 && step <= 0.01)) usage('--step needs a grid step in dex (0 < step ≤ 0.01) or "native"');
   } else if (a === '--json') continue;
   else if (a.startsWith('--')) usage(`unknown option ${a}`);
   else files.push(a);
@@ -24,11 +29,11 @@ if (files.length === 0) usage('no files given');
 for (const file of files) {
   try {
     const spectrum = readSpectrum(new Uint8Array(readFileSync(file)));
-    const r = scanSpectrum(spectrum, { zMin, zMax });
+    const r = scanSpectrum(spectrum, { zMin, zMax, step });
     console.log(JSON.stringify({
       file, ok: true, class: r.class,
       solutions: r.solutions.map((s) => ({ z: s.z, zErr: s.zErr, class: s.class, template: s.template, chi2: s.chi2, deltaChi2: s.deltaChi2, lines: s.lines.map((l) => ({ name: l.name, rest: l.rest, observed: l.observed })) })),
-      meta: { pixels: r.meta.pixels, wavelengthMin: r.meta.wavelengthMin, wavelengthMax: r.meta.wavelengthMax, medium: r.meta.medium, snrMedian: r.meta.snrMedian },
+      meta: { pixels: r.meta.pixels, step: r.meta.step, wavelengthMin: r.meta.wavelengthMin, wavelengthMax: r.meta.wavelengthMax, medium: r.meta.medium, snrMedian: r.meta.snrMedian },
     }));
   } catch (e) {
     const code = e instanceof SpectrumReadError ? e.code : e instanceof RangeError ? 'bad-range' : (e as NodeJS.ErrnoException).code ?? 'internal';
@@ -37,6 +42,6 @@ for (const file of files) {
 }
 
 function usage(why: string): never {
-  console.error(`Usage: npm run scan -- <files...> [--zmin A --zmax B] [--json]  (${why})`);
+  console.error(`Usage: npm run scan -- <files...> [--zmin A --zmax B] [--step S|native] [--json]  (${why})`);
   process.exit(2);
 }

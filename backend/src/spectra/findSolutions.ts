@@ -19,8 +19,8 @@ export interface RawSolution {
   featureShare?: number;
 }
 
-/** Minima closer than this (pixels, ≈ 1000 km/s at 1e-4 dex) are one solution. */
-export const DISTINCT_PX = 15;
+/** Minima closer than this in log10(1+z) (≈ 1000 km/s; 15 pixels of the default grid) are one solution. */
+export const DISTINCT_DEX = 15e-4;
 
 /**
  * Ranked distinct χ² minima over all template curves. Each minimum is refined by a parabola
@@ -28,7 +28,7 @@ export const DISTINCT_PX = 15;
  * σ_s = √(2/χ²''), converted to z with dz = (1+z)·ln10·step·σ_s.
  */
 export function findSolutions(curves: TemplateCurve[], step: number, maxSolutions: number): RawSolution[] {
-  return pickDistinct(findMinima(curves, step, 4 * maxSolutions + 4), maxSolutions);
+  return pickDistinct(findMinima(curves, step, 4 * maxSolutions + 4), step, maxSolutions);
 }
 
 /** The lowest `perCurve` local minima of every curve, refined, best first. */
@@ -70,19 +70,20 @@ export function findMinima(curves: TemplateCurve[], step: number, perCurve: numb
 }
 
 /**
- * The best `maxSolutions` candidates at least DISTINCT_PX apart, from a list sorted by χ².
+ * The best `maxSolutions` candidates at least DISTINCT_DEX apart, from a list sorted by χ².
  * `penalty`, when given, is asked once about each candidate about to be chosen; a candidate with a
  * positive penalty gets it added to its χ² and goes back into the list at its new rank. Only
  * candidates that would be chosen are asked (the check may be costly), and the result equals
  * penalising every candidate first, since penalties only ever raise χ².
  */
-export function pickDistinct(candidates: RawSolution[], maxSolutions: number, penalty?: (candidate: RawSolution) => number): RawSolution[] {
+export function pickDistinct(candidates: RawSolution[], step: number, maxSolutions: number, penalty?: (candidate: RawSolution) => number): RawSolution[] {
+  const distinctPx = Math.round(DISTINCT_DEX / step);
   const queue = candidates.slice();
   const asked = new Set<RawSolution>();
   const chosen: RawSolution[] = [];
   while (queue.length > 0 && chosen.length < maxSolutions) {
     const cand = queue.shift()!;
-    if (chosen.some((s) => Math.abs(s.shift - cand.shift) <= DISTINCT_PX)) continue;
+    if (chosen.some((s) => Math.abs(s.shift - cand.shift) <= distinctPx)) continue;
     if (penalty && !asked.has(cand)) {
       asked.add(cand);
       const p = penalty(cand);

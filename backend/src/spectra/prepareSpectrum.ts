@@ -7,8 +7,11 @@ import type { Medium, Spectrum } from './types';
 
 /** How a spectrum is cleaned and put on the log grid before a scan. */
 export interface PrepareOptions {
-  /** log10 step of the grid, dex (default 1e-4 ≈ 69 km/s). */
-  step?: number;
+  /**
+   * log10 step of the grid, dex (default 1e-4 ≈ 69 km/s), or 'native': the spectrum's own median
+   * pixel, snapped to a level of GRID_STEPS (see gridStepFor).
+   */
+  step?: number | 'native';
   /** Override of the file's air/vacuum statement. */
   medium?: Medium;
   /** Mask the brightest night-sky lines ([O I] 5577, 6300, 6364; Na D), default true. */
@@ -69,6 +72,30 @@ export function continuumWidthFor(nativeStepDex: number): number {
   return CONTINUUM_WIDTHS_DEX.reduce((best, w) => (Math.abs(Math.log(w / wanted)) < Math.abs(Math.log(best / wanted)) ? w : best), 0.03);
 }
 
+/**
+ * Grid steps 'native' may choose, dex: factors of two around the default, so that few template sets
+ * are ever built. 2.5e-5 (17 km/s) is the finest: a grid four times finer than the default makes
+ * the transforms four times longer. 8e-4 (550 km/s) is the coarsest: a line must still span pixels.
+ */
+export const GRID_STEPS = [2.5e-5, 5e-5, 1e-4, 2e-4, 4e-4, 8e-4];
+
+/** The median log10 step between neighbouring pixels (sampled: 512 pairs suffice), dex. */
+export function nativeStepOf(wavelength: Float64Array): number {
+  const n = wavelength.length;
+  const steps: number[] = [];
+  for (let i = 1; i < n; i += Math.max(1, Math.floor(n / 512))) steps.push(Math.log10(wavelength[i]! / wavelength[i - 1]!));
+  steps.sort((a, b) => a - b);
+  return steps[steps.length >> 1] ?? DEFAULT_LOG_STEP;
+}
+
+/** The grid step for a spectrum: the number asked for, or for 'native' the GRID_STEPS level nearest its own pixels. */
+export function gridStepFor(wavelength: Float64Array, step: number | 'native' = DEFAULT_LOG_STEP): number {
+  if (step !== 'native') return step;
+  const native = nativeStepOf(wavelength);
+  if (!(native > 0)) return DEFAULT_LOG_STEP;
+  return GRID_STEPS.reduce((best, s) => (Math.abs(Math.log(s / native)) < Math.abs(Math.log(best / native)) ? s : best), DEFAULT_LOG_STEP);
+}
+
 /** Bright night-sky emission, vacuum Å (reference-values.md §6: [O I] 5577.339/6300.304/6363.776 air, Na D). */
 const SKY_LINES_VAC = [5578.887, 5891.583, 5897.558, 6302.046, 6365.536];
 const SKY_HALF_WIDTH_A = 5;
@@ -81,10 +108,10 @@ const TELLURIC_AIR: ReadonlyArray<readonly [number, number]> = [[6860, 6925], [7
  * conserving flux, and removes the continuum with a wide running mean.
  */
 export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}): PreparedSpectrum {
-  const step = options.step ?? DEFAULT_LOG_STEP;
   const medium = options.medium ?? spectrum.meta.medium;
   const n = spectrum.wavelength.length;
   const vac = medium === 'air' ? Float64Array.from(spectrum.wavelength, toVacuum) : spectrum.wavelength;
+  const step = gridStepFor(vac, options.step);
   const ivar = Float64Array.from(spectrum.ivar);
   const masks: string[] = [];
   const maskRange = (lo: number, hi: number) => {
@@ -116,10 +143,7 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
       last = i;
     }
   }
-  const logSteps: number[] = [];
-  for (let i = 1; i < n; i += Math.max(1, Math.floor(n / 512))) logSteps.push(Math.log10(vac[i]! / vac[i - 1]!));
-  logSteps.sort((a, b) => a - b);
-  const nativePx = (logSteps[logSteps.length >> 1] ?? step) / step;
+  const nativePx = nativeStepOf(vac) / step;
   const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? continuumWidthFor(nativePx * step)) / step)) | 1;
   const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
   const snrValues = new Float64Array(n);

@@ -130,7 +130,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const maxSolutions = options.maxSolutions ?? 5;
   const candidates = findMinima(curves, set.step, 4 * maxSolutions + 4);
   const check = options.singleFeatureCheck ?? true;
-  const raw = pickDistinct(candidates, maxSolutions, check ? (cand) => singleFeaturePenalty(cand, curves, data, set) : undefined);
+  const raw = pickDistinct(candidates, set.step, maxSolutions, check ? (cand) => singleFeaturePenalty(cand, curves, data, set) : undefined);
   const solutions: Solution[] = raw.map((s, k) => ({
     z: s.z,
     zErr: s.zErr,

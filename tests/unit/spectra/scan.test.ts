@@ -3,6 +3,7 @@ import { generateSyntheticSpectrum } from '../../../backend/src/spectra/generate
 import { scanSpectrum } from '../../../backend/src/spectra/scanSpectrum';
 import { rankWithPhotoZ } from '../../../backend/src/spectra/rankWithPhotoZ';
 import { ENGINE_VERSION } from '../../../backend/src/spectra/version';
+import { GRID_STEPS, gridStepFor } from '../../../backend/src/spectra/prepareSpectrum';
 
 describe('scanSpectrum on seeded synthetic spectra', () => {
   it('FFT and direct evaluation give the same χ² curve', () => {
@@ -98,5 +99,30 @@ describe('shifts where a template has no feature in the observed range', () => {
     const beyond = Array.from(curve.z).map((z, i) => [z, curve.chi2[i]!] as const).filter(([z]) => z > 1.65);
     expect(beyond.length).toBeGreaterThan(100);
     for (const [, chi2] of beyond) expect(chi2).toBe(r.chi2Null);
+  });
+});
+
+describe("grid step 'native'", () => {
+  const logSampled = (step: number, n = 1000) => Float64Array.from({ length: n }, (_, i) => 4000 * 10 ** (i * step));
+  it('snaps the median native step to the nearest grid level (factors of two around 1e-4)', () => {
+    expect(gridStepFor(logSampled(1e-5), 'native')).toBe(2.5e-5);
+    expect(gridStepFor(logSampled(1.9e-4), 'native')).toBe(2e-4);
+    expect(gridStepFor(logSampled(3e-4), 'native')).toBe(4e-4);
+    expect(gridStepFor(logSampled(5e-3), 'native')).toBe(8e-4);
+    // A linear axis: the median of its log steps decides (Δλ = 1 Å from 4000 Å: ≈ 0.9e-4 dex).
+    expect(gridStepFor(Float64Array.from({ length: 3000 }, (_, i) => 4000 + i), 'native')).toBe(1e-4);
+    expect(gridStepFor(logSampled(1e-5))).toBe(1e-4);
+    expect(gridStepFor(logSampled(1e-5), 3e-4)).toBe(3e-4);
+    expect(GRID_STEPS).toContain(1e-4);
+  });
+
+  it('a spectrum sampled at 4e-4 dex is scanned on a 4e-4 grid and its redshift found', () => {
+    const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.8, snr: 12, seed: 21, pixels: 1088 });
+    const r = scanSpectrum(s, { step: 'native' });
+    expect(r.meta.step).toBe(4e-4);
+    expect(Math.abs(r.solutions[0]!.z - 0.8) / 1.8).toBeLessThan(0.002);
+    // Solutions stay ≈ 1000 km/s apart on the coarser grid too.
+    const zs = r.solutions.map((x) => Math.log10(1 + x.z));
+    for (let i = 0; i < zs.length; i++) for (let j = i + 1; j < zs.length; j++) expect(Math.abs(zs[i]! - zs[j]!)).toBeGreaterThan(14e-4);
   });
 });
