@@ -21,7 +21,7 @@ describe('campaigns', () => {
       ['Lantern Cluster arcs', null],
       ['Tidewater Deep Field dropouts', null],
     ]);
-    expect(forObserver[0]).toMatchObject({ zMin: 0, zMax: 9, tolerance: 0.003, memberCount: 4, myRole: 'observer' });
+    expect(forObserver[0]).toMatchObject({ zMin: 0, zMax: 9, tolerance: 0.003, gridStep: 'default', memberCount: 4, myRole: 'observer' });
   });
 
   it('creates a campaign with the PRODUCT.md defaults and makes the creator its lead', async () => {
@@ -34,6 +34,7 @@ describe('campaigns', () => {
       zMin: 0,
       zMax: 9,
       tolerance: 0.003,
+      gridStep: 'default',
       myRole: 'lead',
       memberCount: 1,
       gradeScheme: DEFAULT_GRADE_SCHEME,
@@ -74,6 +75,48 @@ describe('campaigns', () => {
     const res = await lead.patch('/api/campaigns/1').send({ gradeScheme: scheme });
     expect(res.status).toBe(200);
     expect(res.body.campaign.gradeScheme).toHaveLength(6);
+  });
+
+  it("creates a campaign that scans on each file's own sampling", async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const res = await lead.post('/api/campaigns').send({ name: 'Prism dropouts', gridStep: 'native' });
+    expect(res.status).toBe(201);
+    expect(res.body.campaign).toMatchObject({ name: 'Prism dropouts', gridStep: 'native', zMin: 0, zMax: 9 });
+    const again = await lead.get(`/api/campaigns/${res.body.campaign.id}`);
+    expect(again.body.campaign.gridStep).toBe('native');
+    const event = t.ctx.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.campaignId, res.body.campaign.id), eq(auditEvents.action, 'campaign.created')))
+      .get()!;
+    expect(event.after).toMatchObject({ gridStep: 'native' });
+  });
+
+  it('switches the scan grid and records the change', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const id = (await lead.post('/api/campaigns').send({ name: 'Grid switch' })).body.campaign.id;
+    const res = await lead.patch(`/api/campaigns/${id}`).send({ gridStep: 'native' });
+    expect(res.status).toBe(200);
+    expect(res.body.campaign.gridStep).toBe('native');
+    const event = t.ctx.db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.campaignId, id), eq(auditEvents.action, 'campaign.updated')))
+      .get()!;
+    expect(event.before).toEqual({ gridStep: 'default' });
+    expect(event.after).toEqual({ gridStep: 'native' });
+  });
+
+  it('refuses a scan grid other than default or native, changing nothing', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const message = 'gridStep: The scan grid is either "default" or "native".';
+    const created = await lead.post('/api/campaigns').send({ name: 'Odd grid', gridStep: '5e-5' });
+    expect(created.status).toBe(400);
+    expect(created.body).toEqual({ error: { code: 'invalid_input', message } });
+    const updated = await lead.patch('/api/campaigns/1').send({ gridStep: 'fine' });
+    expect(updated.status).toBe(400);
+    expect(updated.body).toEqual({ error: { code: 'invalid_input', message } });
+    expect((await lead.get('/api/campaigns/1')).body.campaign.gridStep).toBe('default');
   });
 
   it('answers 404 for a campaign that does not exist', async () => {

@@ -1,8 +1,10 @@
-import { readdirSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { count, inArray } from 'drizzle-orm';
+import { count, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { scanResults, spectra, storedFiles } from '../../backend/src/db/schema';
+import { readSpectrum } from '../../backend/src/spectra/readSpectrum';
+import { solutionModel } from '../../backend/src/spectra/solutionModel';
 import { brokenSpectrumFiles, syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -144,6 +146,67 @@ describe('uploading a zip of spectra', () => {
     expect(rows).toHaveLength(12);
     expect(rows.filter((r) => r.isCurrent).every((r) => (r.settings as { zMax: number }).zMax === 7)).toBe(true);
     expect(rows.filter((r) => r.isCurrent)).toHaveLength(6);
+  });
+
+  it('offers a re-scan after the scan grid changes, and scans on each file\'s own sampling', { timeout: 90_000 }, async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const ids = (await lead.get('/api/campaigns/2/spectra')).body.rows.map((r: { id: number }) => r.id);
+    const current = () => t.ctx.db.select().from(scanResults).where(inArray(scanResults.spectrumId, ids)).all().filter((r) => r.isCurrent);
+    expect(current().map((r) => r.settings)).toEqual(Array(6).fill({ zMin: 0, zMax: 7, gridStep: 'default' }));
+
+    // A scan stored before campaigns had a grid setting carries none: it was made on the default grid.
+    const legacy = current()[0]!;
+    t.ctx.db.update(scanResults).set({ settings: { zMin: 0, zMax: 7 } }).where(eq(scanResults.id, legacy.id)).run();
+    expect((await lead.get('/api/campaigns/2/scan-status')).body).toMatchObject({ upToDate: 6, stale: 0, gridStep: 'default' });
+    expect((await lead.get(`/api/spectra/${legacy.spectrumId}`)).body.scan.settings).toEqual({ zMin: 0, zMax: 7, gridStep: 'default' });
+
+    expect((await lead.patch('/api/campaigns/2').send({ gridStep: 'native' })).status).toBe(200);
+    expect((await lead.get('/api/campaigns/2/scan-status')).body).toMatchObject({ spectra: 6, upToDate: 0, stale: 6, zMax: 7, gridStep: 'native' });
+    const rescan = await lead.post('/api/campaigns/2/rescans').send({});
+    expect(rescan.status).toBe(202);
+    expect(rescan.body.spectra).toBe(6);
+    const job = await waitForJob(lead, rescan.body.jobId);
+    expect(job).toMatchObject({ kind: 'scan', state: 'done', summary: { rescanned: 6, failed: 0 } });
+    expect((await lead.get('/api/campaigns/2/scan-status')).body).toMatchObject({ upToDate: 6, stale: 0, gridStep: 'native' });
+    // 2000 pixels over 3600–9800 Å are log10(9800/3600)/1999 = 2.18e-4 dex wide: the nearest grid level is 2e-4.
+    expect(current().map((r) => [(r.settings as { gridStep: string }).gridStep, (r.meta as { step: number }).step])).toEqual(Array(6).fill(['native', 2e-4]));
+  });
+
+  it("stores a native-grid scan at the file's snapped pixel and rebuilds its model on the same grid", { timeout: 90_000 }, async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const created = await lead.post('/api/campaigns').send({ name: 'Prism arcs', gridStep: 'native' });
+    expect(created.status).toBe(201);
+    const campaignId: number = created.body.campaign.id;
+    // 1088 pixels log-uniform over 3600–9800 Å: log10(9800/3600)/1087 = 4.0008e-4 dex, nearest level 4e-4.
+    const upload = await lead.post(`/api/campaigns/${campaignId}/uploads`).attach('files', zip(syntheticSpectrumFiles(2, { pixels: 1088, prefix: 'PRISM' })), 'prism.zip');
+    expect(upload.status).toBe(202);
+    const job = await waitForJob(lead, upload.body.jobId);
+    expect(job.summary).toMatchObject({ stored: 2, failed: 0 });
+
+    const stored = t.ctx.db.select({ id: spectra.id, sha256: spectra.sha256, pixels: spectra.pixels }).from(spectra).where(eq(spectra.campaignId, campaignId)).all();
+    expect(stored.map((s) => s.pixels)).toEqual([1088, 1088]);
+    for (const s of stored) {
+      const detail = (await lead.get(`/api/spectra/${s.id}`)).body;
+      expect(detail.campaign.gridStep).toBe('native');
+      expect(detail.scan.settings).toEqual({ zMin: 0, zMax: 9, gridStep: 'native' });
+      expect(detail.scan.meta.step).toBe(4e-4);
+    }
+
+    const { id, sha256 } = stored[0]!;
+    const top = (await lead.get(`/api/spectra/${id}`)).body.scan.solutions[0];
+    const res = await lead.get(`/api/spectra/${id}/solutions/1/model`).buffer(true).parse((r, done) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    expect(res.status).toBe(200);
+    const served = Array.from(new Float32Array(new Uint8Array(res.body as Buffer).buffer));
+    const spectrum = readSpectrum(readFileSync(t.ctx.store.pathOf(sha256)));
+    const onNative = Array.from(new Float32Array(solutionModel(spectrum, top, { zMin: 0, zMax: 9, step: 'native' })));
+    const onDefault = Array.from(new Float32Array(solutionModel(spectrum, top, { zMin: 0, zMax: 9 })));
+    expect(served).toHaveLength(1088);
+    expect(served).toEqual(onNative);
+    expect(served).not.toEqual(onDefault);
   });
 
   it('says when no file arrived', async () => {

@@ -8,6 +8,14 @@ export type CampaignRole = z.infer<typeof campaignRoleSchema>;
 /** Largest redshift a campaign may search; the engine's templates are built for 0 ≤ z ≤ 9. */
 export const Z_LIMIT = 9;
 
+/**
+ * The log-λ grid a campaign's scans use: 'default' is 1e-4 dex (≈ 69 km/s pixels); 'native' follows
+ * each file's own median pixel, snapped to one of the engine's grid levels (2.5e-5 … 8e-4 dex).
+ */
+export const GRID_STEP_CHOICES = ['default', 'native'] as const;
+export const gridStepSchema = z.enum(GRID_STEP_CHOICES, { error: 'The scan grid is either "default" or "native".' });
+export type GridStep = z.infer<typeof gridStepSchema>;
+
 const campaignFields = {
   name: z.string().trim().min(1, 'Give the campaign a name.').max(120),
   description: z.string().trim().max(4000),
@@ -15,6 +23,7 @@ const campaignFields = {
   zMax: z.number().min(0).max(Z_LIMIT, `The highest redshift searched is ${Z_LIMIT}.`),
   /** Agreement tolerance in |Δz|/(1+z) between two readings. */
   tolerance: z.number().gt(0, 'The tolerance must be positive.').max(0.1, 'A tolerance above 0.1 in dz/(1+z) is not an agreement.'),
+  gridStep: gridStepSchema,
   gradeScheme: gradeSchemeSchema,
 };
 
@@ -29,6 +38,7 @@ export const createCampaignRequestSchema = z
     zMin: campaignFields.zMin.default(0),
     zMax: campaignFields.zMax.default(Z_LIMIT),
     tolerance: campaignFields.tolerance.default(0.003),
+    gridStep: campaignFields.gridStep.default('default'),
     gradeScheme: campaignFields.gradeScheme.optional(),
   })
   .strict()
@@ -50,6 +60,7 @@ export const campaignSchema = z.object({
   zMin: z.number(),
   zMax: z.number(),
   tolerance: z.number(),
+  gridStep: gridStepSchema,
   gradeScheme: gradeSchemeSchema,
   createdAt: z.string(),
   updatedAt: z.string(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { gridStepSchema } from './campaigns';
 
 /** File name endings Redward reads as spectra (case-insensitive); zip archives hold any of them. */
 export const SPECTRUM_FILE_ENDINGS = ['.fits', '.fit', '.fts', '.fits.gz', '.fit.gz', '.fts.gz', '.csv', '.tsv', '.txt', '.dat', '.ascii'] as const;
@@ -94,6 +95,7 @@ export const scanStatusSchema = z.object({
   engineVersion: z.string(),
   zMin: z.number(),
   zMax: z.number(),
+  gridStep: gridStepSchema,
 });
 export type ScanStatus = z.infer<typeof scanStatusSchema>;
 export const rescanResponseSchema = z.object({ jobId: z.number().int(), spectra: z.number().int() });

@@ -1,3 +1,4 @@
+import { gridStepSchema } from './campaigns';
 import { gradeSchemeSchema } from './grades';
 import { readingSchema, spectrumClassSchema } from './readings';
 import { targetSchema } from './targets';
@@ -43,7 +44,8 @@ export type LineMatches = z.infer<typeof lineMatchesSchema>;
 const scanSchema = z.object({
   id: z.number().int(),
   engineVersion: z.string(),
-  settings: z.looseObject({ zMin: z.number().optional(), zMax: z.number().optional() }),
+  // Scans stored before campaigns had a grid setting carry no gridStep; they used 'default'.
+  settings: z.looseObject({ zMin: z.number().optional(), zMax: z.number().optional(), gridStep: gridStepSchema.optional() }),
   class: z.string(),
   solutions: z.array(solutionSchema),
   lineMatches: lineMatchesSchema,
@@ -89,6 +91,7 @@ export const spectrumDetailSchema = z.object({
     zMin: z.number(),
     zMax: z.number(),
     tolerance: z.number(),
+    gridStep: gridStepSchema,
     gradeScheme: gradeSchemeSchema,
     myRole: z.enum(['lead', 'reader', 'observer']).nullable(),
   }),

@@ -25,6 +25,8 @@ export const campaigns = sqliteTable('campaigns', {
   description: text('description').notNull().default(''),
   zMin: real('z_min').notNull().default(0),
   zMax: real('z_max').notNull().default(9),
+  /** The scan's log-λ grid: 'default' (1e-4 dex ≈ 69 km/s) or 'native' (each file's own median pixel). */
+  gridStep: text('grid_step', { enum: ['default', 'native'] }).notNull().default('default'),
   /** Agreement tolerance between two readings, in |Δz|/(1+z). */
   tolerance: real('tolerance').notNull().default(0.003),
   gradeScheme: text('grade_scheme', { mode: 'json' }).$type<GradeScheme>().notNull(),

@@ -1,4 +1,5 @@
 import { and, eq } from 'drizzle-orm';
+import type { GridStep } from '../contracts/campaigns';
 import { assignments, jobItems, scanResults, spectra } from '../db/schema';
 import type { ServiceContext } from '../services/context';
 import { linkTarget, type LinkableTarget } from '../ingest/link-target';
@@ -11,6 +12,8 @@ import type { ScanOutcome } from './scan-worker';
 export interface JobSettings {
   zMin: number;
   zMax: number;
+  /** Absent in jobs queued before campaigns had a grid setting: those scan on the default grid. */
+  gridStep?: GridStep;
   /** Readers to assign each newly stored spectrum to, for the first and second reading. */
   assign?: { first?: number; second?: number };
 }
@@ -42,7 +45,8 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
       });
     }
   }
-  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), fileName: item.fileName, zMin: ic.settings.zMin, zMax: ic.settings.zMax });
+  const { zMin, zMax, gridStep = 'default' } = ic.settings;
+  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), fileName: item.fileName, zMin, zMax, gridStep });
   if (!result.ok) return finishItem(ic, item, { state: 'failed', errorCode: result.code, errorMessage: result.message });
 
   ctx.db.transaction((tx) => {
@@ -113,7 +117,7 @@ function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: J
       spectrumId,
       jobId,
       engineVersion: result.scan.engineVersion,
-      settings: { zMin: settings.zMin, zMax: settings.zMax },
+      settings: { zMin: settings.zMin, zMax: settings.zMax, gridStep: settings.gridStep ?? 'default' },
       spectrumClass: result.scan.class,
       zBest: top?.z ?? null,
       zBestErr: top?.zErr ?? null,

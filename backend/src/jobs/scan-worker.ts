@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import type { GridStep } from '../contracts/campaigns';
 import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
 import { scanSpectrum, type ScanResult, type Solution } from '../spectra/scanSpectrum';
@@ -11,6 +12,12 @@ export interface ScanTask {
   fileName: string;
   zMin: number;
   zMax: number;
+  gridStep: GridStep;
+}
+
+/** The engine's grid option for a campaign's grid setting: 'default' leaves the engine's own default. */
+export function engineStep(gridStep: GridStep | undefined): { step?: 'native' } {
+  return gridStep === 'native' ? { step: 'native' } : {};
 }
 
 export interface SpectrumSummary {
@@ -44,7 +51,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   const n = spectrum.wavelength.length;
   const summary = { meta: spectrum.meta, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! };
   try {
-    const { curves, ...scan } = scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax });
+    const { curves, ...scan } = scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) });
     return { ok: true, spectrum: summary, scanned: { ok: true, scan, curves: packCurves(curves) } };
   } catch (err) {
     return {
@@ -60,6 +67,8 @@ export interface ModelTask {
   solution: Pick<Solution, 'z' | 'template'>;
   zMin?: number | undefined;
   zMax?: number | undefined;
+  /** The grid the scan was made on: the model is rebuilt on the same one. */
+  gridStep: GridStep;
 }
 
 export type ModelTaskResult = { ok: true; model: Float32Array } | { ok: false; message: string };
@@ -71,7 +80,7 @@ export type ModelTaskResult = { ok: true; model: Float32Array } | { ok: false; m
 export function runModelTask(task: ModelTask): ModelTaskResult {
   try {
     const spectrum = readSpectrum(readFileSync(task.filePath));
-    return { ok: true, model: new Float32Array(solutionModel(spectrum, task.solution, { zMin: task.zMin, zMax: task.zMax })) };
+    return { ok: true, model: new Float32Array(solutionModel(spectrum, task.solution, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) })) };
   } catch (err) {
     return { ok: false, message: (err as Error).message };
   }

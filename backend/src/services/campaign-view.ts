@@ -26,6 +26,7 @@ export function toCampaignViews(
     zMin: row.zMin,
     zMax: row.zMax,
     tolerance: row.tolerance,
+    gridStep: row.gridStep,
     gradeScheme: row.gradeScheme,
     createdAt: row.createdAt,
     updatedAt: row.updatedAt,

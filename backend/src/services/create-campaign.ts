@@ -1,4 +1,4 @@
-import type { Campaign } from '../contracts/campaigns';
+import type { Campaign, GridStep } from '../contracts/campaigns';
 import { DEFAULT_GRADE_SCHEME, type GradeScheme } from '../contracts/grades';
 import { campaigns, memberships } from '../db/schema';
 import { getCampaignView } from './campaign-view';
@@ -11,6 +11,7 @@ export interface NewCampaign {
   zMin: number;
   zMax: number;
   tolerance: number;
+  gridStep: GridStep;
   gradeScheme?: GradeScheme | undefined;
 }
 

@@ -72,12 +72,12 @@ export async function receiveUpload(
   for (const s of staged) store.commitHashed(s.tempFile, s.entry.sha256, s.entry.sizeBytes);
 
   const entries = staged.map((s) => s.entry);
-  const campaign = ctx.db.select({ zMin: campaigns.zMin, zMax: campaigns.zMax }).from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
+  const campaign = ctx.db.select({ zMin: campaigns.zMin, zMax: campaigns.zMax, gridStep: campaigns.gridStep }).from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
   const jobId = ctx.db.transaction((tx) => {
     for (const e of entries) tx.insert(storedFiles).values({ sha256: e.sha256, sizeBytes: e.sizeBytes }).onConflictDoNothing().run();
     const job = tx
       .insert(jobs)
-      .values({ kind: 'ingest', campaignId, createdBy: actor.id, total: entries.length, settings: { zMin: campaign.zMin, zMax: campaign.zMax, ...(options.assign ? { assign: options.assign } : {}) } })
+      .values({ kind: 'ingest', campaignId, createdBy: actor.id, total: entries.length, settings: { zMin: campaign.zMin, zMax: campaign.zMax, gridStep: campaign.gridStep, ...(options.assign ? { assign: options.assign } : {}) } })
       .returning({ id: jobs.id })
       .get();
     const CHUNK = 500;

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { scanResults, spectra } from '../db/schema';
 import { AppError, notFound } from '../http/errors';
+import type { GridStep } from '../contracts/campaigns';
 import type { Solution } from '../spectra/scanSpectrum';
 import type { ServiceContext } from './context';
 
@@ -18,12 +19,14 @@ export async function packSolutionModel(ctx: ServiceContext, spectrumId: number,
   const solution = scan ? (scan.solutions as Solution[])[rank - 1] : undefined;
   if (!scan || !solution) throw notFound(`This spectrum has no solution ${rank}.`, 'solution_not_found');
   const row = ctx.db.select({ sha256: spectra.sha256 }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
-  const settings = scan.settings as { zMin?: number; zMax?: number };
+  const settings = scan.settings as { zMin?: number; zMax?: number; gridStep?: GridStep };
   const result = await ctx.scanPool.model({
     filePath: ctx.store.pathOf(row.sha256),
     solution: { z: solution.z, template: solution.template },
     zMin: settings.zMin,
     zMax: settings.zMax,
+    // Scans stored before campaigns had a grid setting were made on the default grid.
+    gridStep: settings.gridStep ?? 'default',
   });
   // A scan made by an older engine may name a template this engine no longer has.
   if (!result.ok) throw new AppError(409, 'model_unavailable', `The model of this solution cannot be rebuilt (${result.message}); re-scan the spectrum.`);

@@ -1,5 +1,5 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
-import type { CampaignRole } from '../contracts/campaigns';
+import type { CampaignRole, GridStep } from '../contracts/campaigns';
 import type { Reading } from '../contracts/readings';
 import type { Scan, SpectrumDetail } from '../contracts/spectra';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
@@ -63,7 +63,16 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
       errorsEstimated: s.errorsEstimated,
       warnings: s.warnings,
     },
-    campaign: { id: campaign.id, name: campaign.name, zMin: campaign.zMin, zMax: campaign.zMax, tolerance: campaign.tolerance, gradeScheme: campaign.gradeScheme, myRole: role },
+    campaign: {
+      id: campaign.id,
+      name: campaign.name,
+      zMin: campaign.zMin,
+      zMax: campaign.zMax,
+      tolerance: campaign.tolerance,
+      gridStep: campaign.gridStep,
+      gradeScheme: campaign.gradeScheme,
+      myRole: role,
+    },
     target: target && {
       id: target.id,
       catalogueId: target.catalogueId,
@@ -81,7 +90,8 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
       ? {
           id: scan.id,
           engineVersion: scan.engineVersion,
-          settings: scan.settings,
+          // Scans stored before campaigns had a grid setting were all made on the default grid.
+          settings: { ...scan.settings, gridStep: (scan.settings.gridStep as GridStep | undefined) ?? 'default' },
           class: scan.spectrumClass,
           // JSON columns come back untyped; they hold what the scan stored (typed by its result).
           solutions: scan.solutions as Scan['solutions'],

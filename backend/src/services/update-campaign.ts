@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { Campaign, CampaignRole } from '../contracts/campaigns';
+import type { Campaign, CampaignRole, GridStep } from '../contracts/campaigns';
 import type { GradeScheme } from '../contracts/grades';
 import { campaigns } from '../db/schema';
 import { badRequest } from '../http/errors';
@@ -13,6 +13,7 @@ export interface CampaignChanges {
   zMin?: number | undefined;
   zMax?: number | undefined;
   tolerance?: number | undefined;
+  gridStep?: GridStep | undefined;
   gradeScheme?: GradeScheme | undefined;
 }
 

@@ -7,6 +7,11 @@ export const formatRedshiftRange = (zMin: number, zMax: number) => `${zMin} ≤ 
 
 export const formatTolerance = (tolerance: number) => `|Δz|/(1+z) ≤ ${tolerance}`;
 
+/** A campaign's scan grid in words: 'default' is 1e-4 dex, i.e. 69 km/s per pixel. */
+export const GRID_STEP_LABELS = { default: '69 km/s pixels (default)', native: "Each file's own sampling" } as const;
+
+export const formatGridStep = (gridStep: keyof typeof GRID_STEP_LABELS) => (gridStep === 'native' ? "each file's own sampling" : '69 km/s pixels');
+
 const pad = (n: number) => String(n).padStart(2, '0');
 
 /** UTC, ISO-like: collaborators sit in many time zones and observing logs are kept in UTC. */

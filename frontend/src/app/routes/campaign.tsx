@@ -1,3 +1,4 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { Link, useParams } from 'react-router-dom';
 import type { Campaign } from '@contracts/campaigns';
 import { Page } from '@/components/layout/page';
@@ -11,6 +12,7 @@ import { CampaignFacts } from '@/features/campaigns/components/campaign-facts';
 import { CampaignSettingsForm } from '@/features/campaigns/components/campaign-settings-form';
 import { GradeSchemeTable } from '@/features/campaigns/components/grade-scheme-table';
 import { CampaignMembers } from '@/features/members/components/campaign-members';
+import { getScanStatusQueryOptions } from '@/features/spectra/api/scan-status';
 import { RescanNotice } from '@/features/spectra/components/rescan-notice';
 import { SpectraCounts } from '@/features/spectra/components/spectra-counts';
 import { NotFoundRoute } from './not-found';
@@ -30,6 +32,7 @@ export function CampaignRoute() {
 
 function CampaignOverview({ id }: { id: number }) {
   const campaign = useCampaign(id);
+  const queryClient = useQueryClient();
 
   if (campaign.isPending) return <Loading label="Loading campaign…" />;
   if (campaign.isError) {
@@ -58,7 +61,8 @@ function CampaignOverview({ id }: { id: number }) {
       </Panel>
       {isLead ? (
         <Panel title="Settings">
-          <CampaignSettingsForm key={c.id} campaign={c} />
+          {/* A new range or grid makes scans out of date: the re-scan notice above asks again at once. */}
+          <CampaignSettingsForm key={c.id} campaign={c} onSaved={() => queryClient.invalidateQueries({ queryKey: getScanStatusQueryOptions(c.id).queryKey })} />
         </Panel>
       ) : null}
     </Page>

@@ -1,10 +1,11 @@
 import type { Campaign } from '@contracts/campaigns';
-import { formatDate, formatRedshiftRange, formatTolerance } from '@/lib/format';
+import { formatDate, formatGridStep, formatRedshiftRange, formatTolerance } from '@/lib/format';
 
-/** The settings every reader needs in view: what range is searched and when two readings agree. */
+/** The settings every reader needs in view: what range is searched, on which grid, and when two readings agree. */
 export function CampaignFacts({ campaign }: { campaign: Campaign }) {
   const facts = [
     { term: 'Redshift range', value: formatRedshiftRange(campaign.zMin, campaign.zMax), mono: true },
+    { term: 'Scan grid', value: formatGridStep(campaign.gridStep), mono: false },
     { term: 'Agreement tolerance', value: formatTolerance(campaign.tolerance), mono: true },
     { term: 'Members', value: String(campaign.memberCount), mono: true },
     { term: 'Created', value: formatDate(campaign.createdAt), mono: true },
@@ -16,7 +17,7 @@ export function CampaignFacts({ campaign }: { campaign: Campaign }) {
       ) : (
         <p className="text-ink-500">No description.</p>
       )}
-      <dl className="grid grid-cols-1 gap-x-6 gap-y-2 min-[480px]:grid-cols-2 md:grid-cols-4">
+      <dl className="grid grid-cols-1 gap-x-6 gap-y-2 min-[480px]:grid-cols-2 md:grid-cols-3 xl:grid-cols-5">
         {facts.map((f) => (
           <div key={f.term} className="flex flex-col">
             <dt className="text-xs font-semibold uppercase tracking-wide text-ink-500">{f.term}</dt>

@@ -7,11 +7,15 @@ import { TextAreaField, TextField } from '@/components/ui/field';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { useUpdateCampaign } from '../api/update-campaign';
 import { GradeSchemeFields } from './grade-scheme-fields';
+import { GridStepField } from './grid-step-field';
 import { settingsFormSchema, settingsFromCampaign } from './settings-schema';
 import type { SettingsFormOutput, SettingsFormValues } from './settings-schema';
 
-/** Leads only; the server refuses anyone else, this form is simply not shown to them. */
-export function CampaignSettingsForm({ campaign }: { campaign: Campaign }) {
+/**
+ * Leads only; the server refuses anyone else, this form is simply not shown to them. `onSaved` lets
+ * the page refresh what depends on the settings (a new range or grid makes the scans out of date).
+ */
+export function CampaignSettingsForm({ campaign, onSaved }: { campaign: Campaign; onSaved?: (saved: Campaign) => void }) {
   const update = useUpdateCampaign(campaign.id);
   const { register, control, handleSubmit, formState, reset } = useForm<SettingsFormValues, unknown, SettingsFormOutput>({
     resolver: zodResolver(settingsFormSchema),
@@ -20,7 +24,12 @@ export function CampaignSettingsForm({ campaign }: { campaign: Campaign }) {
   const errors = formState.errors;
 
   const onSubmit = handleSubmit((values) =>
-    update.mutate(values, { onSuccess: (saved) => reset(settingsFromCampaign(saved)) }),
+    update.mutate(values, {
+      onSuccess: (saved) => {
+        reset(settingsFromCampaign(saved));
+        onSaved?.(saved);
+      },
+    }),
   );
 
   return (
@@ -44,6 +53,12 @@ export function CampaignSettingsForm({ campaign }: { campaign: Campaign }) {
           hint="In |Δz|/(1+z)."
           error={errors.tolerance?.message}
           {...register('tolerance', { valueAsNumber: true })}
+        />
+        <GridStepField
+          fieldClassName="sm:col-span-2"
+          hint="Own sampling: each file's median pixel, rounded to a step between 17 and 550 km/s. Changing the range or the grid offers a re-scan."
+          error={errors.gridStep?.message}
+          {...register('gridStep')}
         />
       </div>
       <GradeSchemeFields control={control} register={register} errors={errors} />

@@ -1,4 +1,4 @@
-import { updateCampaignRequestSchema } from '@contracts/campaigns';
+import { gridStepSchema, updateCampaignRequestSchema } from '@contracts/campaigns';
 import type { Campaign } from '@contracts/campaigns';
 import { z } from 'zod';
 
@@ -16,6 +16,7 @@ export const settingsFormSchema = z
     zMin: number(),
     zMax: number(),
     tolerance: number(),
+    gridStep: gridStepSchema,
     // Friendlier wording than the contract's generic length message for the common slip.
     gradeScheme: z.array(z.object({ code: number(), label: z.string().trim().min(1, 'Give the grade a label.'), meaning: z.string() })),
   })
@@ -35,5 +36,6 @@ export const settingsFromCampaign = (c: Campaign): SettingsFormValues => ({
   zMin: c.zMin,
   zMax: c.zMax,
   tolerance: c.tolerance,
+  gridStep: c.gridStep,
   gradeScheme: c.gradeScheme.map((g) => ({ ...g })),
 });

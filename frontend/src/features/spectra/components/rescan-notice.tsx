@@ -1,12 +1,12 @@
 import { Link } from 'react-router-dom';
 import { Button, buttonClass } from '@/components/ui/button';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
-import { formatCount } from '@/lib/format';
+import { formatCount, formatGridStep } from '@/lib/format';
 import { useQueueRescan, useScanStatus } from '../api/scan-status';
 
 /**
- * Offers a re-scan when scans no longer match the campaign: its redshift range changed, or the
- * engine did. Earlier results are kept; the new ones become current.
+ * Offers a re-scan when scans no longer match the campaign: its redshift range or scan grid
+ * changed, or the engine did. Earlier results are kept; the new ones become current.
  */
 export function RescanNotice({ campaignId, isLead }: { campaignId: number; isLead: boolean }) {
   const status = useScanStatus(campaignId);
@@ -18,7 +18,8 @@ export function RescanNotice({ campaignId, isLead }: { campaignId: number; isLea
     <Notice tone="warning" role="status" title="Scans out of date">
       <p>
         <span className="num">{n}</span> of <span className="num">{formatCount(s.spectra)}</span> spectra were scanned with another
-        redshift range or engine version than the campaign now uses (<span className="num">{s.zMin} ≤ z ≤ {s.zMax}</span>, {s.engineVersion}).
+        redshift range, scan grid or engine version than the campaign now uses (<span className="num">{s.zMin} ≤ z ≤ {s.zMax}</span>,{' '}
+        {formatGridStep(s.gridStep)}, {s.engineVersion}).
       </p>
       {isLead ? (
         <div className="mt-2 flex flex-wrap items-center gap-2">

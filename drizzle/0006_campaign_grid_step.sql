@@ -1,0 +1,1 @@
+ALTER TABLE `campaigns` ADD `grid_step` text DEFAULT 'default' NOT NULL;
