@@ -141,7 +141,26 @@ describe('spectrum data for plotting', () => {
     const finite = Array.from(model).filter(Number.isFinite);
     expect(finite.length).toBeGreaterThan(1500);
     expect(Math.max(...finite)).toBeGreaterThan(Math.min(...finite));
-    expect((await reader1.get(`/api/spectra/${spectrumIds[2]}/solutions/99/model`)).status).toBe(404);
+    const missing = await reader1.get(`/api/spectra/${spectrumIds[2]}/solutions/99/model`);
+    expect(missing.status).toBe(404);
+    expect(missing.headers['content-type']).toMatch(/^application\/json/);
+    expect(missing.body.error.code).toBe('solution_not_found');
+  });
+
+  it('names the scan a model belongs to: cached only then, and a superseded scan id is refused', async () => {
+    const id = spectrumIds[2]!;
+    const scanId = (await reader1.get(`/api/spectra/${id}`)).body.scan.id as number;
+    const named = await reader1.get(`/api/spectra/${id}/solutions/1/model?scan=${scanId}`).buffer(true);
+    expect(named.status).toBe(200);
+    expect(named.headers['cache-control']).toBe('private, max-age=3600');
+    const unnamed = await reader1.get(`/api/spectra/${id}/solutions/1/model`).buffer(true);
+    expect(unnamed.headers['cache-control']).toBe('no-cache');
+    const stale = await reader1.get(`/api/spectra/${id}/solutions/1/model?scan=${scanId + 1000}`);
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('scan_superseded');
+    const bad = await reader1.get(`/api/spectra/${id}/solutions/1/model?scan=latest`);
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.code).toBe('invalid_input');
   });
 
   it('serves the χ²(z) curves and the line list of the comb', async () => {

@@ -113,3 +113,8 @@ export type ScanCurves = z.infer<typeof scanCurvesSchema>;
 
 
 export { spectrumClassSchema };
+
+/** GET /api/spectra/:id/solutions/:rank/model?scan=… — the scan whose solution is drawn (its id in the detail's `scan`). */
+export const solutionModelQuerySchema = z.object({
+  scan: z.coerce.number().int('The scan is named by its id, a whole number.').positive('The scan is named by its id, a positive number.').optional(),
+});

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { queueQuerySchema, submitReadingRequestSchema } from '../contracts/readings';
-import { scanCurvesSchema, spectrumDetailSchema } from '../contracts/spectra';
+import { scanCurvesSchema, solutionModelQuerySchema, spectrumDetailSchema } from '../contracts/spectra';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -48,7 +48,9 @@ export function readingRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/data',
     access: viewer,
     handle: ({ req, res }) => {
-      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(packSpectrumData(ctx, spectrumId(req)));
+      // Packed before any header is set: an error must leave as JSON, not as an octet stream.
+      const packed = packSpectrumData(ctx, spectrumId(req));
+      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(packed);
     },
   });
 
@@ -65,10 +67,14 @@ export function readingRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId/solutions/:rank/model',
     access: viewer,
-    handle: async ({ req, res }) => {
+    query: solutionModelQuerySchema,
+    handle: async ({ req, res, query }) => {
       const rank = Number(req.params.rank);
       if (!Number.isInteger(rank) || rank < 1) throw notFound('Solutions are numbered from 1.', 'solution_not_found');
-      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(await packSolutionModel(ctx, spectrumId(req), rank));
+      const scan = query.scan;
+      // Cached only when the URL names its scan: then it can never show another scan's model.
+      const model = await packSolutionModel(ctx, spectrumId(req), rank, scan);
+      res.type('application/octet-stream').set('Cache-Control', scan === undefined ? 'no-cache' : 'private, max-age=3600').send(model);
     },
   });
 

@@ -10,12 +10,17 @@ import type { ServiceContext } from './context';
  * NaN outside the fitted range), for drawing over the data. It is rebuilt from the stored file
  * with the scan's own settings, in a worker thread, so it shows exactly what the scan scored.
  */
-export async function packSolutionModel(ctx: ServiceContext, spectrumId: number, rank: number): Promise<Buffer> {
+export async function packSolutionModel(ctx: ServiceContext, spectrumId: number, rank: number, scanId?: number): Promise<Buffer> {
   const scan = ctx.db
-    .select({ solutions: scanResults.solutions, settings: scanResults.settings })
+    .select({ id: scanResults.id, solutions: scanResults.solutions, settings: scanResults.settings })
     .from(scanResults)
     .where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true)))
     .get();
+  // The client names the scan it drew, so a model cached by the browser belongs to one scan only:
+  // after a re-scan the old URL answers that it is gone instead of serving the new scan's model.
+  if (scan && scanId !== undefined && scan.id !== scanId) {
+    throw new AppError(409, 'scan_superseded', 'This spectrum has been re-scanned since the page was loaded; reload it to see the new solutions.');
+  }
   const solution = scan ? (scan.solutions as Solution[])[rank - 1] : undefined;
   if (!scan || !solution) throw notFound(`This spectrum has no solution ${rank}.`, 'solution_not_found');
   const row = ctx.db.select({ sha256: spectra.sha256 }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;

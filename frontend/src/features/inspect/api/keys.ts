@@ -5,5 +5,5 @@ export const inspectKeys = {
   spectrum: (spectrumId: number) => [...inspectKeys.all(), 'spectrum', spectrumId] as const,
   detail: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'detail'] as const,
   curves: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'curves'] as const,
-  model: (spectrumId: number, rank: number) => [...inspectKeys.spectrum(spectrumId), 'model', rank] as const,
+  model: (spectrumId: number, scanId: number, rank: number) => [...inspectKeys.spectrum(spectrumId), 'model', scanId, rank] as const,
 };

@@ -53,10 +53,13 @@ function usePrefetchSpectrum(spectrumId: number | null) {
   const queryClient = useQueryClient();
   useEffect(() => {
     if (spectrumId === null) return;
-    void queryClient.prefetchQuery(getSpectrumDetailQueryOptions(spectrumId));
     void queryClient.prefetchQuery(getSpectrumDataQueryOptions(spectrumId));
     void queryClient.prefetchQuery(getScanCurvesQueryOptions(spectrumId));
-    // The comb opens on the top solution, whose template is drawn: fetch it ahead too.
-    void queryClient.prefetchQuery(getSolutionModelQueryOptions(spectrumId, 1));
+    // The comb opens on the top solution, whose template is drawn: fetch it ahead too, once the
+    // detail has said which scan it belongs to.
+    void queryClient.fetchQuery(getSpectrumDetailQueryOptions(spectrumId)).then(
+      (detail) => (detail.scan ? queryClient.prefetchQuery(getSolutionModelQueryOptions(spectrumId, detail.scan.id, 1)) : undefined),
+      () => undefined,
+    );
   }, [queryClient, spectrumId]);
 }

@@ -9,6 +9,7 @@ import { displayArraysOf, useDisplayArrays } from '@/components/spectrum/use-dis
 import { useQuery } from '@tanstack/react-query';
 import { getSpectrumDataQueryOptions } from '@/lib/spectrum-data';
 import { getSolutionModelQueryOptions, useSolutionModel } from '../api/get-solution-model';
+import { getSpectrumDetailQueryOptions } from '../api/get-spectrum-detail';
 import { useInspectKeys } from '../hooks/use-inspect-keys';
 import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
@@ -85,7 +86,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   // The template of the solution last snapped to (the top one at first) is drawn over the data.
   const [modelRank, setModelRank] = usePerSpectrum<number | null>(spectrumId, () => (solutions.length > 0 ? 1 : null));
   const [showModel, setShowModel] = useState(true);
-  const model = useSolutionModel(spectrumId, showModel ? modelRank : null);
+  const model = useSolutionModel(spectrumId, scan?.id ?? null, showModel ? modelRank : null);
   const display = useDisplayArrays(arrays, smoothing, showModel ? (model.data ?? null) : null);
   const upcoming = useUpcomingDisplay(nextId, smoothing, showModel);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
@@ -243,7 +244,10 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
  */
 function useUpcomingDisplay(nextId: number | null, smoothing: Smoothing, showModel: boolean) {
   const data = useQuery({ ...getSpectrumDataQueryOptions(nextId ?? 0), enabled: nextId !== null });
-  const model = useQuery({ ...getSolutionModelQueryOptions(nextId ?? 0, 1), enabled: nextId !== null && showModel, retry: false });
+  // The next spectrum's scan id comes from its detail, which the screen prefetched.
+  const detail = useQuery({ ...getSpectrumDetailQueryOptions(nextId ?? 0), enabled: nextId !== null });
+  const nextScanId = detail.data?.scan?.id ?? null;
+  const model = useQuery({ ...getSolutionModelQueryOptions(nextId ?? 0, nextScanId ?? 0, 1), enabled: nextId !== null && nextScanId !== null && showModel, retry: false });
   const arrays = nextId !== null ? data.data : undefined;
   const nextModel = showModel && nextId !== null ? (model.data ?? null) : null;
   return useMemo(() => (arrays ? () => displayArraysOf(arrays, smoothing, nextModel) : null), [arrays, smoothing, nextModel]);
