@@ -2,12 +2,16 @@ import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import type { Solution } from '../api/schemas';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
+import { placeRankLabels } from '../utils/rank-labels';
 import { PLOT } from '@/components/spectrum/plot-palette';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES } from '@/lib/spectrum-class';
 import { createOverlayCanvas } from '@/components/spectrum/overlay-canvas';
 
 const HEIGHT = 170;
+/** Rank numbers: one row's height and the least distance between two numbers on a row, px. */
+const RANK_ROW_PX = 12;
+const RANK_GAP_PX = 14;
 
 /**
  * χ²(z) per class under the spectrum: dips are candidate redshifts. The solutions are marked with
@@ -32,20 +36,30 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
     const paintMarks = () => {
       const u = plotRef;
       if (!overlay || !u) return;
-      overlay.paint((ctx, _w, h) => {
+      overlay.paint((ctx, w, h) => {
         ctx.font = '10px "IBM Plex Mono", ui-monospace, monospace';
-        ctx.fillStyle = PLOT.solution;
+        ctx.textBaseline = 'top';
         ctx.strokeStyle = PLOT.solution;
+        const xs = live.current.solutions.map((s) => Math.round(u.valToPos(s.z, 'x')) + 0.5);
+        const labels = placeRankLabels(xs, w, RANK_GAP_PX);
         ctx.setLineDash([2, 2]);
-        live.current.solutions.forEach((s, i) => {
-          const x = Math.round(u.valToPos(s.z, 'x')) + 0.5;
+        for (const l of labels) {
           ctx.beginPath();
-          ctx.moveTo(x, 12);
-          ctx.lineTo(x, h);
+          ctx.moveTo(l.x, 1 + l.row * RANK_ROW_PX + RANK_ROW_PX);
+          ctx.lineTo(l.x, h);
           ctx.stroke();
-          ctx.fillText(String(i + 1), x + 2, 2);
-        });
+        }
         ctx.setLineDash([]);
+        // Each number on a paper ground, so the curves under the top of the strip do not hide it.
+        for (const l of labels) {
+          const text = String(l.rank);
+          const tw = ctx.measureText(text).width;
+          const y = 1 + l.row * RANK_ROW_PX;
+          ctx.fillStyle = PLOT.labelGround;
+          ctx.fillRect(l.x - tw / 2 - 2, y, tw + 4, RANK_ROW_PX - 1);
+          ctx.fillStyle = PLOT.solution;
+          ctx.fillText(text, l.x - tw / 2, y + 1);
+        }
       });
     };
     // The trial-z cursor is an element of its own moved by a transform: following a drag then costs
