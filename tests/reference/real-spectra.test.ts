@@ -54,7 +54,9 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     }
     const fraction = pass / total;
     console.log(`${lines.join('\n')}\nreliable rows within tolerance: ${pass}/${total} = ${(100 * fraction).toFixed(1)} %`);
-    // Issue 3 asks for ≥ 95 %. This guards the level reached so far against regressions:
+    // Issue 3 asks for ≥ 95 %: 104/109 = 95.4 % with engine 0.5.2, whose Lyman-break template
+    // without Lyα emission draws Lyα in absorption (the weak-lined quasar spec-5328, whose Lyα sits
+    // in a damped absorber, comes out at its redshift instead of 0.0073 in Δz/(1+z) high);
     // 103/109 = 94.5 % with engine 0.5.0, whose emission-line galaxy may add a broad Balmer
     // component at z ≤ 0.5 (the broad-line AGN spec-8851 at z = 0.0018 no longer reads as a lone
     // [O II] at 0.76; docs/decisions/engine-scan.md lists the six left); 102/109 = 93.6 % with engine 0.4.2 (97 before: the telluric-corrected flux column of the XQ100
@@ -64,7 +66,7 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     // at 9310 Å no longer beats the M3 giant spec-4055 as [O II] at z = 1.50). spSpec-51630-0266-637 disagrees with its own data rather
     // than with the engine: Hα, [N II], [S II], Hβ and [O II] sit at z = 0.0847, and its header's
     // Z_CONF = 0.53 and Z_WARNIN = 4608 flag the catalogued 0.0880 as doubtful.
-    expect(fraction).toBeGreaterThanOrEqual(0.94);
+    expect(fraction).toBeGreaterThanOrEqual(0.95);
   });
 
   it('rest-frame composites and cool-dwarf templates come out at z ≈ 0 with their class (table printed)', () => {

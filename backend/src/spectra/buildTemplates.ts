@@ -1,7 +1,7 @@
 import { MAX_COMPONENTS } from './bestAmplitudes';
 import { highPass } from './highPass';
 import { igmTransmission } from './igmTransmission';
-import { LINES, type SpectralLine } from './lineList';
+import { TEMPLATE_LINES, type SpectralLine } from './lineList';
 import { C_KMS } from './logGrid';
 import { TEMPLATE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type TemplateRecipe } from './templateRecipes';
 import type { TemplateClass } from './types';
@@ -150,12 +150,13 @@ function strengthKeyOf(recipe: TemplateRecipe, comp: ComponentRecipe): string {
 }
 
 function selectLines(recipeId: string, comp: ComponentRecipe): SpectralLine[] {
-  return LINES.filter(
+  return TEMPLATE_LINES.filter(
     (l) =>
       (l.strength[recipeId] ?? 0) > 0 &&
       comp.select.kind.includes(l.kind) &&
       (!comp.select.species || comp.select.species.includes(l.species)) &&
-      (!comp.select.names || comp.select.names.includes(l.name)),
+      (!comp.select.names || comp.select.names.includes(l.name)) &&
+      !(comp.select.except ?? []).includes(l.name),
   );
 }
 

@@ -20,10 +20,18 @@ export interface SpectralLine {
   profile?: 'head-red' | 'broad';
   /** Lorentzian half width of the line's opacity, Å (pressure-broadened lines in opacity components). */
   dampingA?: number;
+  /**
+   * false: a second profile of a feature already on the comb (the Lyα absorption of Lyman-break
+   * galaxies beside Lyα emission), used by templates only.
+   */
+  comb?: boolean;
 }
 
-/** All features, sorted by rest wavelength. The JSON is the single source of truth. */
-export const LINES: readonly SpectralLine[] = (data.lines as SpectralLine[]).slice().sort((a, b) => a.rest - b.rest);
+/** Every feature the templates may draw, sorted by rest wavelength. The JSON is the single source of truth. */
+export const TEMPLATE_LINES: readonly SpectralLine[] = (data.lines as SpectralLine[]).slice().sort((a, b) => a.rest - b.rest);
+
+/** The features of the comb and of readings: each feature once (template-only profiles left out). */
+export const LINES: readonly SpectralLine[] = TEMPLATE_LINES.filter((l) => l.comb !== false);
 
 /** Looks a feature up by its exact name; throws a RangeError naming it when absent. */
 export function lineByName(name: string): SpectralLine {

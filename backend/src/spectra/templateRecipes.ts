@@ -10,7 +10,8 @@ export type ContinuumRecipe =
 export interface ComponentRecipe {
   name: string;
   continuum?: ContinuumRecipe;
-  select: { kind: LineKind[]; species?: string[]; names?: string[] };
+  /** Lines drawn: of these kinds, and (when given) of these species or names, minus the names in `except`. */
+  select: { kind: LineKind[]; species?: string[]; names?: string[]; except?: string[] };
   igm?: 'madau1995' | 'red-only';
   /**
    * Fitted only up to this redshift (the template's z range is split there). For a component that
