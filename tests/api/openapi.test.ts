@@ -1,6 +1,24 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openApiDocumentSchema } from '../../backend/src/contracts/openapi';
 import { createTestApp, type TestApp } from '../helpers/test-app';
+
+/*
+ * The documented operations that answer something other than JSON, and so declare no response
+ * schema. Anything not listed here must have one: a new JSON route without `response` fails.
+ */
+const NOT_JSON = new Map([
+  // 204 No Content on success.
+  ['post /api/account/password', '204: the password changed, this session kept'],
+  ['post /api/auth/logout', '204: the session ended'],
+  // Binary: packed float arrays the inspection screen reads directly.
+  ['get /api/spectra/{spectrumId}/data', 'octet stream: the spectrum arrays'],
+  ['get /api/spectra/{spectrumId}/solutions/{rank}/model', 'octet stream: float32 model on the pixels'],
+  // Server-sent events.
+  ['get /api/jobs/{jobId}/events', 'text/event-stream: job progress'],
+  // HTML for people.
+  ['get /api/docs', 'text/html: this document as a page'],
+]);
 
 let t: TestApp;
 beforeAll(async () => {
@@ -26,6 +44,33 @@ describe('the OpenAPI document', () => {
     const confirmed = doc.paths['/api/campaigns/{id}/confirmed'].get;
     expect(confirmed.parameters.find((p: { name: string }) => p.name === 'format').schema.enum).toEqual(['json', 'csv', 'ecsv', 'votable', 'fits']);
     expect(doc.components.securitySchemes.token).toEqual({ type: 'http', scheme: 'bearer' });
+  });
+
+  it('declares the JSON answer of every operation that has one', async () => {
+    const res = await request(t.app).get('/api/openapi.json');
+    const doc = openApiDocumentSchema.parse(res.body);
+    const withoutSchema: string[] = [];
+    const withSchema: string[] = [];
+    for (const [path, ops] of Object.entries(doc.paths)) {
+      for (const [method, op] of Object.entries(ops)) {
+        const success = Object.entries(op!.responses).find(([status]) => status !== 'default');
+        expect(success, `${method} ${path} documents its success status`).toBeDefined();
+        const schema = success![1].content?.['application/json']?.schema;
+        (schema ? withSchema : withoutSchema).push(`${method} ${path}`);
+      }
+    }
+    // Exactly the allow-list answers without a schema: no JSON route forgot one, and no listed
+    // route gained one (then it belongs off the list).
+    expect(withoutSchema.sort()).toEqual([...NOT_JSON.keys()].sort());
+    expect(withSchema.length).toBeGreaterThan(40);
+
+    // Spot checks that the schema is the contract the client parses with.
+    const campaign = doc.paths['/api/campaigns/{id}']!.get!.responses['200']!.content!['application/json'].schema;
+    expect(Object.keys((campaign.properties as { campaign: { properties: object } }).campaign.properties)).toContain('gridStep');
+    const upload = doc.paths['/api/campaigns/{id}/uploads']!.post!.responses['202']!.content!['application/json'].schema;
+    expect(upload.required).toEqual(['jobId', 'files', 'entries', 'bytes']);
+    const queue = doc.paths['/api/me/queue']!.get!.responses['200']!.content!['application/json'].schema;
+    expect(queue.type).toBe('array');
   });
 
   it('has a page for people', async () => {

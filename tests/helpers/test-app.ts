@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
 import { loadConfig } from '../../backend/src/config';
+import { validateResponses } from '../../backend/src/http/define-route';
 import { createRedward, type Redward } from '../../backend/src/server';
 
 export const TEST_ORIGIN = 'http://redward.test';
@@ -19,7 +20,8 @@ export interface TestApp extends Redward {
 
 /**
  * A complete Redward on its own temporary data folder: migrated SQLite, demo seed, a real
- * mail catcher on an ephemeral port. One per test file keeps files independent.
+ * mail catcher on an ephemeral port, JSON answers checked against their response schemas.
+ * One per test file keeps files independent.
  */
 export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'redward-test-'));
@@ -39,6 +41,9 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     },
   };
   const redward = await createRedward(config, () => clock.now);
+  // Every JSON answer is parsed with its route's contract, so drift between a service and the
+  // schema the client parses it with fails the test that made the request.
+  validateResponses(redward.ctx);
   const agent = () => request.agent(redward.app).set('Origin', TEST_ORIGIN);
   return {
     ...redward,

@@ -12,6 +12,7 @@ export const adminUserSchema = z.object({
 });
 export type AdminUser = z.infer<typeof adminUserSchema>;
 export const adminUsersResponseSchema = z.object({ users: z.array(adminUserSchema) });
+export const adminUserResponseSchema = z.object({ user: adminUserSchema });
 
 export const updateUserRequestSchema = z
   .object({ isAdmin: z.boolean(), disabled: z.boolean() })

@@ -47,5 +47,7 @@ export const apiTokenSchema = z.object({
 });
 export type ApiToken = z.infer<typeof apiTokenSchema>;
 export const apiTokenListSchema = z.object({ tokens: z.array(apiTokenSchema) });
+/** DELETE /api/account/tokens/:id answers with the token as it now is (revokedAt set). */
+export const revokedTokenResponseSchema = z.object({ apiToken: apiTokenSchema });
 /** The token itself appears only in this response. */
 export const createdTokenSchema = z.object({ token: z.string(), apiToken: apiTokenSchema });

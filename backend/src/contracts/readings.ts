@@ -50,4 +50,6 @@ export const queueItemSchema = z.object({
   spectrumClass: z.string().nullable(),
 });
 export type QueueItem = z.infer<typeof queueItemSchema>;
+/** GET /api/me/queue: the caller's unread assignments in one campaign, in reading order. */
+export const readingQueueSchema = z.array(queueItemSchema);
 export const queueQuerySchema = z.object({ campaign: z.coerce.number().int().positive() });

@@ -51,6 +51,14 @@ export const disagreementSchema = z.object({
 
 export const delegateRequestSchema = z.object({ readerId: z.number().int().positive() }).strict();
 export type Disagreement = z.infer<typeof disagreementSchema>;
+/** GET /api/campaigns/:id/disagreements: the open ones the caller may settle. */
+export const disagreementListSchema = z.array(disagreementSchema);
+export const delegateResponseSchema = z.object({ disagreementId: z.number().int(), delegatedTo: z.object({ id: z.number().int(), name: z.string() }) });
+
+/** A settlement or a correction answers with the confirmed record it created. */
+export const confirmedIdResponseSchema = z.object({ confirmedId: z.number().int() });
+/** Every confirmed record of one spectrum, current and superseded, oldest first. */
+export const confirmedHistorySchema = z.object({ history: z.array(confirmedRedshiftSchema) });
 
 export const assignReadersRequestSchema = z.object({ readerIds: z.array(z.number().int().positive()).min(2, 'Choose at least two readers.').max(200) }).strict();
 export type AssignReadersRequest = z.infer<typeof assignReadersRequestSchema>;
@@ -112,6 +120,23 @@ export const confirmedPageSchema = z.object({
   }),
 });
 export type ConfirmedPage = z.infer<typeof confirmedPageSchema>;
+
+/** The consistency check of one image family (GET /api/campaigns/:id/families). */
+export const familyCheckSchema = z.object({
+  family: z.string(),
+  members: z.array(z.object({ targetId: z.string().nullable(), spectrumId: z.number().int(), recordId: z.number().int(), z: z.number(), gradeCode: z.number().int(), gradeLabel: z.string() })),
+  /** Images of the family without a confirmed redshift yet. */
+  unconfirmed: z.array(z.object({ imageFamily: z.string(), targetId: z.string().nullable(), spectrumId: z.number().int().nullable() })),
+  meanZ: z.number().nullable(),
+  /** (max z − min z)/(1 + mean z) over the confirmed members. */
+  spread: z.number().nullable(),
+  discrepant: z.boolean(),
+  incomplete: z.boolean(),
+  flagged: z.boolean(),
+});
+export type FamilyCheck = z.infer<typeof familyCheckSchema>;
+export const familiesResponseSchema = z.object({ families: z.array(familyCheckSchema), tolerance: z.number() });
+export type FamiliesResponse = z.infer<typeof familiesResponseSchema>;
 
 export const campaignStatisticsSchema = z.object({
   photoZ: z.object({

@@ -1,7 +1,8 @@
 import type { NextFunction, Request, RequestHandler, Response, Router } from 'express';
-import type { z } from 'zod';
+import { z } from 'zod';
 import type { ServiceContext } from '../services/context';
 import { authorize, type Access, type Authorization } from './access';
+import { AppError } from './errors';
 import { validationError } from './validation-error';
 
 export interface RouteInput<B, Q> extends Authorization {
@@ -21,15 +22,14 @@ export interface RouteSpec<B, Q> {
   before?: RequestHandler[];
   /** Status for a returned value; `undefined` results always answer 204. */
   status?: number;
-  /** The JSON answer, for the OpenAPI document (routes that send files leave it out). */
+  /**
+   * The JSON answer: documented in the OpenAPI document and, where responses are validated (the
+   * test app), checked before it is sent. Routes that stream files, binary or events leave it out.
+   */
   response?: z.ZodType;
   handle: (input: RouteInput<B, Q>) => unknown;
 }
 
-/**
- * Registers one route as a chain: limits → authorize → validate → use-case. The handler
- * returns the JSON body; errors it throws reach the error middleware.
- */
 export interface RouteDoc {
   method: string;
   path: string;
@@ -43,6 +43,23 @@ export interface RouteDoc {
 /** Every route defined for an application, for the OpenAPI document; one list per context. */
 export const routeDocs = new WeakMap<ServiceContext, RouteDoc[]>();
 
+/** Applications whose JSON answers are checked against their route's `response` schema. */
+const validatedContexts = new WeakSet<ServiceContext>();
+
+/**
+ * Checks every JSON answer of this application against its route's `response` schema before it
+ * is sent; an answer that does not match fails the request with a 500 naming the route. The test
+ * app turns this on so contract drift fails the API tests; production never does, and pays only one
+ * set lookup per answer (no serialisation, no parse).
+ */
+export function validateResponses(ctx: ServiceContext): void {
+  validatedContexts.add(ctx);
+}
+
+/**
+ * Registers one route as a chain: limits → authorize → validate → use-case. The handler
+ * returns the JSON body; errors it throws reach the error middleware.
+ */
 export function defineRoute<B = undefined, Q = undefined>(ctx: ServiceContext, router: Router, spec: RouteSpec<B, Q>): void {
   const docs = routeDocs.get(ctx) ?? [];
   routeDocs.set(ctx, docs);
@@ -63,7 +80,10 @@ export function defineRoute<B = undefined, Q = undefined>(ctx: ServiceContext, r
       const result = await spec.handle({ ...auth, req, res, body, query });
       if (res.headersSent) return;
       if (result === undefined) res.status(204).end();
-      else res.status(spec.status ?? 200).json(result);
+      else {
+        if (validatedContexts.has(ctx)) checkResponse(`${spec.method.toUpperCase()} ${spec.path}`, spec.response, result);
+        res.status(spec.status ?? 200).json(result);
+      }
     } catch (err) {
       next(err);
     }
@@ -75,4 +95,33 @@ function parseOrThrow<T>(schema: z.ZodType<T>, value: unknown, where: 'body' | '
   const parsed = schema.safeParse(value);
   if (!parsed.success) throw validationError(parsed.error, where);
   return parsed.data;
+}
+
+/**
+ * Parses what the client will receive (the value after JSON serialisation, as the client's own
+ * contract parse sees it) with the route's schema, and refuses fields the schema does not declare
+ * (zod would strip them silently, leaving them undocumented). Only called where responses are validated.
+ */
+function checkResponse(route: string, schema: z.ZodType | undefined, result: unknown): void {
+  if (!schema) {
+    throw new AppError(500, 'response_schema_missing', `${route} answered JSON but declares no response schema; set \`response\` in its defineRoute.`);
+  }
+  const sent: unknown = JSON.parse(JSON.stringify(result));
+  const parsed = schema.safeParse(sent);
+  if (!parsed.success) {
+    throw new AppError(500, 'response_contract_mismatch', `${route} answered JSON that does not match its response schema:\n${z.prettifyError(parsed.error)}`);
+  }
+  const extra = [...new Set(undeclaredFields(sent, parsed.data, '$'))];
+  if (extra.length > 0) {
+    throw new AppError(500, 'response_contract_mismatch', `${route} answered fields its response schema does not declare: ${extra.join(', ')}.`);
+  }
+}
+
+/** Paths of object keys present in what was sent but dropped by the schema's parse. */
+function undeclaredFields(sent: unknown, kept: unknown, at: string): string[] {
+  if (sent === null || typeof sent !== 'object' || kept === null || typeof kept !== 'object') return [];
+  if (Array.isArray(sent)) return sent.flatMap((item, i) => undeclaredFields(item, (kept as unknown[])[i], `${at}[]`));
+  return Object.entries(sent).flatMap(([key, value]) =>
+    key in kept ? undeclaredFields(value, (kept as Record<string, unknown>)[key], `${at}.${key}`) : [`${at}.${key}`],
+  );
 }

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { changePasswordRequestSchema, createTokenRequestSchema, updateAccountRequestSchema } from '../contracts/auth';
+import { apiTokenListSchema, changePasswordRequestSchema, createdTokenSchema, createTokenRequestSchema, meResponseSchema, revokedTokenResponseSchema, updateAccountRequestSchema } from '../contracts/auth';
 import { createApiToken, listApiTokens, revokeApiToken } from '../services/api-tokens';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
@@ -15,6 +15,7 @@ export function accountRoutes(ctx: ServiceContext): Router {
     path: '/account',
     access: access.signedIn,
     body: updateAccountRequestSchema,
+    response: meResponseSchema,
     handle: ({ user, body }) => ({ user: updateAccount(ctx, user!, body.name) }),
   });
 
@@ -36,6 +37,7 @@ export function accountRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/account/tokens',
     access: access.signedIn,
+    response: apiTokenListSchema,
     handle: ({ user }) => ({ tokens: listApiTokens(ctx, user!) }),
   });
 
@@ -45,6 +47,7 @@ export function accountRoutes(ctx: ServiceContext): Router {
     access: access.signedIn,
     body: createTokenRequestSchema,
     status: 201,
+    response: createdTokenSchema,
     handle: ({ user, body }) => createApiToken(ctx, user!, body.name),
   });
 
@@ -52,6 +55,7 @@ export function accountRoutes(ctx: ServiceContext): Router {
     method: 'delete',
     path: '/account/tokens/:tokenId',
     access: access.signedIn,
+    response: revokedTokenResponseSchema,
     handle: ({ req, user }) => ({ apiToken: revokeApiToken(ctx, user!, Number(req.params.tokenId)) }),
   });
 

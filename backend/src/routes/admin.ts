@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { updateUserRequestSchema } from '../contracts/admin';
+import { adminUserResponseSchema, adminUsersResponseSchema, mailListResponseSchema, mailMessageResponseSchema, updateUserRequestSchema } from '../contracts/admin';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { notFound } from '../http/errors';
@@ -21,6 +21,7 @@ export function adminRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/admin/users',
     access: access.admin,
+    response: adminUsersResponseSchema,
     handle: () => ({ users: listUsers(ctx) }),
   });
 
@@ -29,6 +30,7 @@ export function adminRoutes(ctx: ServiceContext): Router {
     path: '/admin/users/:userId',
     access: access.admin,
     body: updateUserRequestSchema,
+    response: adminUserResponseSchema,
     handle: ({ req, user, body }) => ({ user: updateUser(ctx, user!, numericId(req.params.userId, 'user'), body) }),
   });
 
@@ -36,6 +38,7 @@ export function adminRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/admin/mail',
     access: access.admin,
+    response: mailListResponseSchema,
     handle: () => ({ messages: listCaughtMail(ctx) }),
   });
 
@@ -43,6 +46,7 @@ export function adminRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/admin/mail/:mailId',
     access: access.admin,
+    response: mailMessageResponseSchema,
     handle: ({ req }) => ({ message: getCaughtMail(ctx, numericId(req.params.mailId, 'message')) }),
   });
 

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { loginRequestSchema } from '../contracts/auth';
+import { loginRequestSchema, meResponseSchema } from '../contracts/auth';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { loginRateLimits } from '../http/rate-limits';
@@ -15,6 +15,7 @@ export function authRoutes(ctx: ServiceContext): Router {
     access: access.public,
     before: loginRateLimits(),
     body: loginRequestSchema,
+    response: meResponseSchema,
     handle: async ({ req, body }) => {
       const { user, epoch } = await signIn(ctx, body.email, body.password);
       req.session.userId = user.id;
@@ -38,6 +39,7 @@ export function authRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/auth/me',
     access: access.signedIn,
+    response: meResponseSchema,
     handle: ({ user }) => ({ user }),
   });
 

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { createCampaignRequestSchema, updateCampaignRequestSchema } from '../contracts/campaigns';
+import { campaignListResponseSchema, campaignResponseSchema, createCampaignRequestSchema, updateCampaignRequestSchema } from '../contracts/campaigns';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { getCampaignView } from '../services/campaign-view';
@@ -15,6 +15,7 @@ export function campaignRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns',
     access: access.signedIn,
+    response: campaignListResponseSchema,
     handle: ({ user }) => ({ campaigns: listCampaigns(ctx, user!) }),
   });
 
@@ -24,6 +25,7 @@ export function campaignRoutes(ctx: ServiceContext): Router {
     access: access.signedIn,
     body: createCampaignRequestSchema,
     status: 201,
+    response: campaignResponseSchema,
     handle: ({ user, body }) => ({ campaign: createCampaign(ctx, user, body) }),
   });
 
@@ -31,6 +33,7 @@ export function campaignRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns/:id',
     access: access.campaignViewer,
+    response: campaignResponseSchema,
     handle: ({ campaign }) => ({ campaign: getCampaignView(ctx, campaign!.id, campaign!.role) }),
   });
 
@@ -39,6 +42,7 @@ export function campaignRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id',
     access: access.campaign('lead'),
     body: updateCampaignRequestSchema,
+    response: campaignResponseSchema,
     handle: ({ user, campaign, body }) => ({ campaign: updateCampaign(ctx, user!, campaign!.id, campaign!.role, body) }),
   });
 

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { campaignStatisticsSchema, confirmedQuerySchema } from '../contracts/release';
+import { campaignStatisticsSchema, confirmedPageSchema, confirmedQuerySchema, familiesResponseSchema } from '../contracts/release';
 import { familyTable, familyTableCsv, toCsv, toEcsv, toFitsTable, toVotable } from '../exports';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
@@ -26,6 +26,8 @@ export function confirmedRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/confirmed',
     access: access.campaignViewer,
     query: confirmedQuerySchema,
+    // The JSON page (format=json); the other formats are files.
+    response: confirmedPageSchema,
     handle: ({ res, campaign, query }) => {
       const id = campaign!.id;
       if (query.format === 'json') {
@@ -51,6 +53,8 @@ export function confirmedRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/families',
     access: access.campaignViewer,
     query: z.object({ format: z.enum(['json', 'csv']).default('json') }),
+    // format=json; csv is a file.
+    response: familiesResponseSchema,
     handle: ({ res, campaign, query }) => {
       const id = campaign!.id;
       const { rows } = confirmedRows(ctx, id, {});

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { healthResponseSchema } from '../contracts/admin';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -9,6 +10,7 @@ export function healthRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/health',
     access: access.public,
+    response: healthResponseSchema,
     handle: () => ({ ok: true, version: ctx.config.version }),
   });
   return router;

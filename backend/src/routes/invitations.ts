@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { acceptInvitationRequestSchema } from '../contracts/invitations';
+import { acceptInvitationRequestSchema, acceptInvitationResponseSchema, invitationPreviewSchema } from '../contracts/invitations';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { acceptInvitation, previewInvitation } from '../services/accept-invitation';
@@ -12,6 +12,7 @@ export function invitationRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/invitations/:token',
     access: access.public,
+    response: invitationPreviewSchema,
     handle: ({ req }) => previewInvitation(ctx, String(req.params.token)),
   });
 
@@ -20,6 +21,7 @@ export function invitationRoutes(ctx: ServiceContext): Router {
     path: '/invitations/:token/accept',
     access: access.public,
     body: acceptInvitationRequestSchema,
+    response: acceptInvitationResponseSchema,
     handle: async ({ req, user, body }) => {
       const result = await acceptInvitation(ctx, String(req.params.token), user, body);
       req.session.userId = result.user.id;

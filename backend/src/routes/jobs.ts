@@ -2,7 +2,7 @@ import { Router, type Request } from 'express';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
-import { rescanRequestSchema } from '../contracts/ingest';
+import { jobListSchema, jobProgressSchema, rescanRequestSchema, rescanResponseSchema, scanStatusSchema } from '../contracts/ingest';
 import { cancelJob, getJobProgress, jobCampaignId, listCampaignJobs } from '../services/job-progress';
 import { getScanStatus, queueRescan } from '../services/queue-rescan';
 
@@ -18,6 +18,7 @@ export function jobRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/jobs/:jobId',
     access: access.campaignOf(ofJob, 'lead'),
+    response: jobProgressSchema,
     handle: ({ req }) => getJobProgress(ctx, jobId(req)),
   });
 
@@ -25,6 +26,7 @@ export function jobRoutes(ctx: ServiceContext): Router {
     method: 'post',
     path: '/jobs/:jobId/cancel',
     access: access.campaignOf(ofJob, 'lead'),
+    response: jobProgressSchema,
     handle: ({ req, user }) => cancelJob(ctx, user!, jobId(req)),
   });
 
@@ -65,6 +67,7 @@ export function jobRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns/:id/jobs',
     access: access.campaign('lead'),
+    response: jobListSchema,
     handle: ({ campaign }) => ({ jobs: listCampaignJobs(ctx, campaign!.id) }),
   });
 
@@ -72,6 +75,7 @@ export function jobRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns/:id/scan-status',
     access: access.campaignViewer,
+    response: scanStatusSchema,
     handle: ({ campaign }) => getScanStatus(ctx, campaign!.id),
   });
 
@@ -81,6 +85,7 @@ export function jobRoutes(ctx: ServiceContext): Router {
     access: access.campaign('lead'),
     body: rescanRequestSchema,
     status: 202,
+    response: rescanResponseSchema,
     handle: ({ user, campaign, body }) => queueRescan(ctx, user!, campaign!.id, body.all),
   });
 

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { lineListResponseSchema } from '../contracts/line-list';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -12,6 +13,7 @@ export function lineListRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/line-list',
     access: access.signedIn,
+    response: lineListResponseSchema,
     handle: () => ({ medium: 'vacuum', unit: 'Angstrom', lines }),
   });
   return router;

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { inviteMemberRequestSchema } from '../contracts/campaigns';
+import { inviteMemberRequestSchema, inviteMemberResponseSchema, membersResponseSchema } from '../contracts/campaigns';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { appUrl } from '../http/app-url';
@@ -14,6 +14,7 @@ export function memberRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns/:id/members',
     access: access.campaignViewer,
+    response: membersResponseSchema,
     handle: ({ campaign }) => listMembers(ctx, campaign!.id, campaign!.role),
   });
 
@@ -23,6 +24,7 @@ export function memberRoutes(ctx: ServiceContext): Router {
     access: access.campaign('lead'),
     body: inviteMemberRequestSchema,
     status: 201,
+    response: inviteMemberResponseSchema,
     handle: async ({ user, campaign, body }) => ({
       invitation: await inviteMember(ctx, user!, campaign!.id, body.email, body.role, appUrl(ctx.config)),
     }),

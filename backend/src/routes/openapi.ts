@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { openApiDocumentSchema } from '../contracts/openapi';
 import { access } from '../http/access';
 import { defineRoute, routeDocs } from '../http/define-route';
 import { buildOpenApi } from '../http/openapi';
@@ -15,6 +16,7 @@ export function openApiRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/openapi.json',
     access: access.public,
+    response: openApiDocumentSchema,
     handle: () => document(),
   });
 

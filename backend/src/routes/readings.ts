@@ -1,5 +1,5 @@
 import { Router, type Request } from 'express';
-import { queueQuerySchema, submitReadingRequestSchema } from '../contracts/readings';
+import { queueQuerySchema, readingQueueSchema, readingResponseSchema, submitReadingRequestSchema } from '../contracts/readings';
 import { scanCurvesSchema, solutionModelQuerySchema, spectrumDetailSchema } from '../contracts/spectra';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
@@ -27,6 +27,7 @@ export function readingRoutes(ctx: ServiceContext): Router {
     path: '/me/queue',
     access: access.signedIn,
     query: queueQuerySchema,
+    response: readingQueueSchema,
     handle: ({ user, query }) => {
       const { exists, role } = findCampaignRole(ctx, user!.id, query.campaign);
       if (!exists || role === null) throw notFound('No such campaign.', 'campaign_not_found');
@@ -83,6 +84,7 @@ export function readingRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/readings',
     access: access.campaignOf(ofSpectrum, 'lead', 'reader'),
     body: submitReadingRequestSchema,
+    response: readingResponseSchema,
     handle: async ({ req, user, body }) => {
       const { reading, changed, outcome } = submitReading(ctx, user!, spectrumId(req), body);
       if (outcome.kind === 'disagreement' && outcome.opened) await notifyDisagreement(ctx, outcome.disagreementId, appUrl(ctx.config));

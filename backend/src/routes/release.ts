@@ -1,5 +1,18 @@
 import { Router, type Request } from 'express';
-import { assignReadersRequestSchema, correctionRequestSchema, delegateRequestSchema, reassignRequestSchema, settleRequestSchema, spectrumAssignmentsSchema } from '../contracts/release';
+import {
+  assignReadersRequestSchema,
+  assignReadersResponseSchema,
+  confirmedHistorySchema,
+  confirmedIdResponseSchema,
+  correctionRequestSchema,
+  delegateRequestSchema,
+  delegateResponseSchema,
+  disagreementListSchema,
+  reassignRequestSchema,
+  reassignResponseSchema,
+  settleRequestSchema,
+  spectrumAssignmentsSchema,
+} from '../contracts/release';
 import { appUrl } from '../http/app-url';
 import { assignReaders, reassignReading, spectrumAssignments } from '../services/assign-readers';
 import { access } from '../http/access';
@@ -21,6 +34,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/campaigns/:id/disagreements',
     access: access.campaign('lead', 'reader'),
+    response: disagreementListSchema,
     handle: ({ user, campaign }) => listOpenDisagreements(ctx, campaign!.id, campaign!.role === 'lead' ? undefined : user!.id),
   });
 
@@ -29,6 +43,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     path: '/disagreements/:disagreementId/settle',
     access: access.campaignOf((c, req) => disagreementCampaignId(c, disagreementId(req)), 'lead', 'reader'),
     body: settleRequestSchema,
+    response: confirmedIdResponseSchema,
     handle: ({ req, user, campaign, body }) => settleDisagreement(ctx, user!, campaign!.role, disagreementId(req), body),
   });
 
@@ -37,6 +52,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     path: '/disagreements/:disagreementId/delegate',
     access: access.campaignOf((c, req) => disagreementCampaignId(c, disagreementId(req)), 'lead'),
     body: delegateRequestSchema,
+    response: delegateResponseSchema,
     handle: ({ req, user, body }) => delegateDisagreement(ctx, user!, disagreementId(req), body.readerId, appUrl(ctx.config)),
   });
 
@@ -45,6 +61,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/corrections',
     access: access.campaignOf(ofSpectrum, 'lead'),
     body: correctionRequestSchema,
+    response: confirmedIdResponseSchema,
     handle: ({ req, user, body }) => correctConfirmed(ctx, user!, spectrumId(req), body),
   });
 
@@ -52,6 +69,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId/confirmed',
     access: access.campaignOf(ofSpectrum, 'lead', 'reader', 'observer'),
+    response: confirmedHistorySchema,
     handle: ({ req }) => ({ history: confirmedHistory(ctx, spectrumId(req)) }),
   });
 
@@ -60,6 +78,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/assignments',
     access: access.campaign('lead'),
     body: assignReadersRequestSchema,
+    response: assignReadersResponseSchema,
     handle: ({ user, campaign, body }) => assignReaders(ctx, user!, campaign!.id, body.readerIds, appUrl(ctx.config)),
   });
 
@@ -76,6 +95,7 @@ export function releaseRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/assignments',
     access: access.campaignOf(ofSpectrum, 'lead'),
     body: reassignRequestSchema,
+    response: reassignResponseSchema,
     handle: ({ req, user, body }) => reassignReading(ctx, user!, spectrumId(req), body.readingOrder, body.readerId),
   });
 

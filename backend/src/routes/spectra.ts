@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import { spectraQuerySchema } from '../contracts/ingest';
-import { linkSpectrumRequestSchema } from '../contracts/targets';
+import { spectraPageSchema, spectraQuerySchema } from '../contracts/ingest';
+import { linkSpectrumRequestSchema, linkSpectrumResponseSchema } from '../contracts/targets';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -16,6 +16,7 @@ export function spectrumRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/spectra',
     access: access.campaignViewer,
     query: spectraQuerySchema,
+    response: spectraPageSchema,
     handle: ({ campaign, query }) => listSpectra(ctx, campaign!.id, query),
   });
 
@@ -24,6 +25,7 @@ export function spectrumRoutes(ctx: ServiceContext): Router {
     path: '/spectra/:spectrumId/target',
     access: access.campaignOf((c, req) => spectrumCampaignId(c, Number(req.params.spectrumId)), 'lead'),
     body: linkSpectrumRequestSchema,
+    response: linkSpectrumResponseSchema,
     handle: ({ req, user, body }) => linkSpectrum(ctx, user!, Number(req.params.spectrumId), body.targetId),
   });
 

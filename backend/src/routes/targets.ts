@@ -1,7 +1,7 @@
 import { readFileSync, rmSync } from 'node:fs';
 import { Router } from 'express';
 import { z } from 'zod';
-import { columnMappingSchema, targetsQuerySchema } from '../contracts/targets';
+import { catalogueImportResultSchema, columnMappingSchema, targetListSchema, targetsQuerySchema } from '../contracts/targets';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { AppError, badRequest } from '../http/errors';
@@ -23,6 +23,7 @@ export function targetRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/targets',
     access: access.campaign('lead'),
     query: importQuerySchema,
+    response: catalogueImportResultSchema,
     handle: async ({ req, res, user, campaign, query }) => {
       const files = await receiveFiles(req, res, ctx.store, { ...ctx.config.uploads, maxFiles: 1, maxFileBytes: MAX_CATALOGUE_BYTES });
       try {
@@ -59,6 +60,7 @@ export function targetRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/targets',
     access: access.campaignViewer,
     query: targetsQuerySchema,
+    response: targetListSchema,
     handle: ({ campaign, query }) => ({ targets: listTargets(ctx, campaign!.id, query.q) }),
   });
 

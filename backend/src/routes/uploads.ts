@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { uploadReceiptSchema } from '../contracts/ingest';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { receiveFiles } from '../http/receive-files';
@@ -13,6 +14,7 @@ export function uploadRoutes(ctx: ServiceContext): Router {
     path: '/campaigns/:id/uploads',
     access: access.campaign('lead'),
     status: 202,
+    response: uploadReceiptSchema,
     // Files are read only after the role check: a reader's upload is refused unread.
     handle: async ({ req, res, user, campaign }) => {
       const files = await receiveFiles(req, res, ctx.store, ctx.config.uploads);

@@ -1,12 +1,10 @@
+import { confirmedIdResponseSchema } from '@contracts/release';
 import type { CorrectionRequest } from '@contracts/release';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
 import { api } from '@/lib/api-client';
 import { confirmedKeys } from './keys';
 
-const correctedSchema = z.object({ confirmedId: z.number().int() });
-
-export const correctConfirmed = (spectrumId: number, body: CorrectionRequest) => api.post(`/api/spectra/${spectrumId}/corrections`, body, correctedSchema);
+export const correctConfirmed = (spectrumId: number, body: CorrectionRequest) => api.post(`/api/spectra/${spectrumId}/corrections`, body, confirmedIdResponseSchema);
 
 export function useCorrectConfirmed(spectrumId: number) {
   const queryClient = useQueryClient();

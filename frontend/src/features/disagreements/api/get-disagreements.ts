@@ -1,14 +1,11 @@
-import { disagreementSchema } from '@contracts/release';
+import { disagreementListSchema } from '@contracts/release';
 import type { Disagreement } from '@contracts/release';
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
 import { api } from '@/lib/api-client';
 import { disagreementKeys } from './keys';
 
-const listSchema = z.array(disagreementSchema);
-
 export const getDisagreements = (campaignId: number, signal?: AbortSignal): Promise<Disagreement[]> =>
-  api.get(`/api/campaigns/${campaignId}/disagreements`, listSchema, signal);
+  api.get(`/api/campaigns/${campaignId}/disagreements`, disagreementListSchema, signal);
 
 export const getDisagreementsQueryOptions = (campaignId: number) =>
   queryOptions({ queryKey: disagreementKeys.list(campaignId), queryFn: ({ signal }) => getDisagreements(campaignId, signal) });

@@ -1,14 +1,11 @@
-import { queueItemSchema } from '@contracts/readings';
+import { readingQueueSchema } from '@contracts/readings';
 import type { QueueItem } from '@contracts/readings';
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
 import { api } from '@/lib/api-client';
 import { inspectKeys } from './keys';
 
-const queueSchema = z.array(queueItemSchema);
-
 export const getQueue = (campaignId: number, signal?: AbortSignal): Promise<QueueItem[]> =>
-  api.get(`/api/me/queue?campaign=${campaignId}`, queueSchema, signal);
+  api.get(`/api/me/queue?campaign=${campaignId}`, readingQueueSchema, signal);
 
 export const getQueueQueryOptions = (campaignId: number) =>
   queryOptions({ queryKey: inspectKeys.queue(campaignId), queryFn: ({ signal }) => getQueue(campaignId, signal) });

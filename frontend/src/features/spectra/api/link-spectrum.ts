@@ -1,10 +1,9 @@
+import { linkSpectrumResponseSchema } from '@contracts/targets';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { z } from 'zod';
+import type { z } from 'zod';
 import { api } from '@/lib/api-client';
 import { spectraKeys } from './keys';
 
-// The contracts have the request schema only; this mirrors what the route answers.
-const linkSpectrumResponseSchema = z.object({ spectrumId: z.number().int(), targetId: z.number().int().nullable() });
 export type LinkSpectrumResponse = z.infer<typeof linkSpectrumResponseSchema>;
 
 export const linkSpectrum = (spectrumId: number, targetId: number | null): Promise<LinkSpectrumResponse> =>
