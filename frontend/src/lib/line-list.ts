@@ -1,25 +1,18 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
+import { lineListResponseSchema, type LineListResponse } from '@contracts/line-list';
 import { api } from './api-client';
 
 /*
- * The rest-frame line list the comb draws. Shared here because the inspection screen and the
- * settlement page both draw combs; it mirrors GET /api/line-list (no contract schema yet).
+ * The rest-frame line list the comb draws (GET /api/line-list, parsed with the server's own
+ * contract). Shared here because the inspection screen and the settlement page both draw combs.
  */
 
-export const lineKindSchema = z.enum(['emission', 'absorption', 'band', 'break']);
-export type LineKind = z.infer<typeof lineKindSchema>;
-
-export const lineListSchema = z.object({
-  medium: z.literal('vacuum'),
-  unit: z.literal('Angstrom'),
-  lines: z.array(z.object({ name: z.string(), species: z.string(), rest: z.number(), kind: lineKindSchema, source: z.string(), widthA: z.number().optional() })),
-});
-export type CombLine = z.infer<typeof lineListSchema>['lines'][number];
+export type { LineKind } from '@contracts/line-list';
+export type CombLine = LineListResponse['lines'][number];
 
 export const lineListKey = () => ['line-list'] as const;
 
-export const getLineList = async (signal?: AbortSignal): Promise<CombLine[]> => (await api.get('/api/line-list', lineListSchema, signal)).lines;
+export const getLineList = async (signal?: AbortSignal): Promise<CombLine[]> => (await api.get('/api/line-list', lineListResponseSchema, signal)).lines;
 
 export const getLineListQueryOptions = () =>
   // The list ships with the server; it cannot change while the page is open.
