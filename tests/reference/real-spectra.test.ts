@@ -54,7 +54,9 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     }
     const fraction = pass / total;
     console.log(`${lines.join('\n')}\nreliable rows within tolerance: ${pass}/${total} = ${(100 * fraction).toFixed(1)} %`);
-    // Issue 3 asks for ≥ 95 %: 104/109 = 95.4 % with engine 0.5.2, whose Lyman-break template
+    // Issue 3 asks for ≥ 95 %: 105/109 = 96.3 % with engine 0.5.3, which adds a quasar template
+    // whose high-ionisation lines sit 5000 km/s blueward (PSOJ231-20_NIR, C IV ≈ 5000 km/s blueward
+    // of its [C II] redshift, comes out at 6.564); 104/109 = 95.4 % with engine 0.5.2, whose Lyman-break template
     // without Lyα emission draws Lyα in absorption (the weak-lined quasar spec-5328, whose Lyα sits
     // in a damped absorber, comes out at its redshift instead of 0.0073 in Δz/(1+z) high);
     // 103/109 = 94.5 % with engine 0.5.0, whose emission-line galaxy may add a broad Balmer
