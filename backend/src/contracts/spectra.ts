@@ -21,6 +21,8 @@ export const solutionSchema = z.object({
   detectionChi2: z.number(),
   lines: z.array(solutionLineSchema),
   priorWeight: z.number().optional(),
+  /** χ² per degree of freedom of the solution's fit; zErr is scaled by its root when above 1 (absent in scans before engine 0.5.4). */
+  reducedChi2: z.number().optional(),
   /** Share of the χ² gain in the strongest 0.006 dex window (absorption-line galaxies and stars). */
   featureShare: z.number().optional(),
   /** χ² added because one feature carried more than 90 % of the gain (included in chi2). */

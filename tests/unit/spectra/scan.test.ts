@@ -80,8 +80,8 @@ describe('scanSpectrum on seeded synthetic spectra', () => {
 
   it('photo-z prior re-ranks but keeps every solution', () => {
     const sols = [
-      { z: 0.5, zErr: 1e-4, class: 'galaxy' as const, template: 'a', chi2: 100, deltaChi2: 4, detectionChi2: 50, lines: [] },
-      { z: 3.1, zErr: 1e-4, class: 'galaxy' as const, template: 'a', chi2: 104, deltaChi2: null, detectionChi2: 46, lines: [] },
+      { z: 0.5, zErr: 1e-4, reducedChi2: 1, class: 'galaxy' as const, template: 'a', chi2: 100, deltaChi2: 4, detectionChi2: 50, lines: [] },
+      { z: 3.1, zErr: 1e-4, reducedChi2: 1, class: 'galaxy' as const, template: 'a', chi2: 104, deltaChi2: null, detectionChi2: 46, lines: [] },
     ];
     const ranked = rankWithPhotoZ(sols, { z: 3.0, lo: 2.8, hi: 3.2 });
     expect(ranked.map((s) => s.z)).toEqual([3.1, 0.5]);
@@ -124,5 +124,23 @@ describe("grid step 'native'", () => {
     // Solutions stay ≈ 1000 km/s apart on the coarser grid too.
     const zs = r.solutions.map((x) => Math.log10(1 + x.z));
     for (let i = 0; i < zs.length; i++) for (let j = i + 1; j < zs.length; j++) expect(Math.abs(zs[i]! - zs[j]!)).toBeGreaterThan(14e-4);
+  });
+});
+
+describe('zErr: the curvature error, scaled by √(χ²/dof) when the errors are understated', () => {
+  it('claiming errors half their size leaves zErr where it was and reports χ²/dof ≈ 4', () => {
+    const honest = generateSyntheticSpectrum({ class: 'galaxy', z: 0.62, snr: 8, seed: 44 });
+    const overstated = { ...honest, ivar: Float64Array.from(honest.ivar, (v) => 4 * v) };
+    const a = scanSpectrum(honest).solutions[0]!;
+    const b = scanSpectrum(overstated).solutions[0]!;
+    expect(b.z).toBeCloseTo(a.z, 6);
+    expect(a.reducedChi2).toBeGreaterThan(0.8);
+    expect(a.reducedChi2).toBeLessThan(1.3);
+    // Not exactly 4: 3 % of the sky is added to σ in quadrature after the file's own errors.
+    expect(b.reducedChi2 / a.reducedChi2).toBeGreaterThan(3);
+    expect(b.reducedChi2 / a.reducedChi2).toBeLessThanOrEqual(4);
+    // The curvature alone would halve zErr (4× the weight); the √(χ²/dof) factor gives it back.
+    expect(b.zErr / a.zErr).toBeGreaterThan(0.85);
+    expect(b.zErr / a.zErr).toBeLessThan(1.25);
   });
 });
