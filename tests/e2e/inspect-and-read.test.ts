@@ -74,7 +74,10 @@ it('a reader drags the comb, snaps to the top solution and saves a graded readin
   // Snapping to the top solution sets the trial redshift to its z.
   const detail = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), spectrumId);
   const topZ: number = detail.scan.solutions[0].z;
-  await page.getByRole('button', { name: /^Solution\s*1\s*:/ }).click();
+  // The top solution shows its fit's χ² per degree of freedom, as the scan stored it.
+  const top = page.getByRole('button', { name: /^Solution\s*1\s*:/ });
+  await expect.poll(() => top.textContent()).toContain(`χ²/dof ${detail.scan.solutions[0].reducedChi2.toFixed(2)}`);
+  await top.click();
   await expect.poll(() => trialZ.inputValue()).toBe(topZ.toFixed(5));
 
   // Keyboard only: leave the button, give grade 4 with Shift — it saves and moves on.

@@ -51,6 +51,11 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
                 <span className="num text-xs text-ink-600" title="χ² of the next distinct solution minus this one's">
                   Δχ² {s.deltaChi2 === null ? '—' : Math.round(s.deltaChi2).toLocaleString('en')}
                 </span>
+                {s.reducedChi2 !== undefined ? (
+                  <span className="num text-xs text-ink-600" title="χ² per degree of freedom of this fit; above 1 the error shown is scaled by its square root">
+                    χ²/dof {s.reducedChi2 < 100 ? s.reducedChi2.toFixed(2) : Math.round(s.reducedChi2).toLocaleString('en')}
+                  </span>
+                ) : null}
                 {agreement !== 'unknown' ? (
                   <span className={`text-xs ${agreement === 'inside' ? 'text-success-700' : 'text-warning-700'}`}>
                     {agreement === 'inside' ? 'inside' : 'outside'} photo-z 68 %
