@@ -15,6 +15,8 @@ export const Z_LIMIT = 9;
 export const GRID_STEP_CHOICES = ['default', 'native'] as const;
 export const gridStepSchema = z.enum(GRID_STEP_CHOICES, { error: 'The scan grid is either "default" or "native".' });
 export type GridStep = z.infer<typeof gridStepSchema>;
+/** The grid a stored scan or queued job used: those from before campaigns had the setting used the default. */
+export const gridStepOf = (settings: { gridStep?: unknown } | null | undefined): GridStep => (settings?.gridStep === 'native' ? 'native' : 'default');
 
 const campaignFields = {
   name: z.string().trim().min(1, 'Give the campaign a name.').max(120),

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import type { GridStep } from '../contracts/campaigns';
+import { gridStepOf, type GridStep } from '../contracts/campaigns';
 import { assignments, jobItems, scanResults, spectra } from '../db/schema';
 import type { ServiceContext } from '../services/context';
 import { linkTarget, type LinkableTarget } from '../ingest/link-target';
@@ -45,8 +45,8 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
       });
     }
   }
-  const { zMin, zMax, gridStep = 'default' } = ic.settings;
-  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), fileName: item.fileName, zMin, zMax, gridStep });
+  const { zMin, zMax } = ic.settings;
+  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), fileName: item.fileName, zMin, zMax, gridStep: gridStepOf(ic.settings) });
   if (!result.ok) return finishItem(ic, item, { state: 'failed', errorCode: result.code, errorMessage: result.message });
 
   ctx.db.transaction((tx) => {
@@ -117,7 +117,7 @@ function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: J
       spectrumId,
       jobId,
       engineVersion: result.scan.engineVersion,
-      settings: { zMin: settings.zMin, zMax: settings.zMax, gridStep: settings.gridStep ?? 'default' },
+      settings: { zMin: settings.zMin, zMax: settings.zMax, gridStep: gridStepOf(settings) },
       spectrumClass: result.scan.class,
       zBest: top?.z ?? null,
       zBestErr: top?.zErr ?? null,

@@ -1,5 +1,5 @@
 import { and, count, eq } from 'drizzle-orm';
-import type { GridStep } from '../contracts/campaigns';
+import { gridStepOf, type GridStep } from '../contracts/campaigns';
 import { campaigns, jobItems, jobs, scanResults, spectra } from '../db/schema';
 import { badRequest } from '../http/errors';
 import { ENGINE_VERSION } from '../spectra/version';
@@ -42,8 +42,7 @@ function staleSpectra(ctx: ServiceContext, campaignId: number): { ids: number[];
         r.engineVersion !== ENGINE_VERSION ||
         r.settings?.zMin !== campaign.zMin ||
         r.settings?.zMax !== campaign.zMax ||
-        // Scans stored before campaigns had a grid setting were made on the default grid.
-        (r.settings?.gridStep ?? 'default') !== campaign.gridStep,
+        gridStepOf(r.settings) !== campaign.gridStep,
     )
     .map((r) => r.id);
   return { ids, total: rows.length, ...campaign };

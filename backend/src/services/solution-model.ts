@@ -1,7 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { scanResults, spectra } from '../db/schema';
 import { AppError, notFound } from '../http/errors';
-import type { GridStep } from '../contracts/campaigns';
+import { gridStepOf, type GridStep } from '../contracts/campaigns';
 import type { Solution } from '../spectra/scanSpectrum';
 import type { ServiceContext } from './context';
 
@@ -30,8 +30,7 @@ export async function packSolutionModel(ctx: ServiceContext, spectrumId: number,
     solution: { z: solution.z, template: solution.template },
     zMin: settings.zMin,
     zMax: settings.zMax,
-    // Scans stored before campaigns had a grid setting were made on the default grid.
-    gridStep: settings.gridStep ?? 'default',
+    gridStep: gridStepOf(settings),
   });
   // A scan made by an older engine may name a template this engine no longer has.
   if (!result.ok) throw new AppError(409, 'model_unavailable', `The model of this solution cannot be rebuilt (${result.message}); re-scan the spectrum.`);

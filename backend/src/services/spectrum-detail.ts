@@ -1,5 +1,5 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
-import type { CampaignRole, GridStep } from '../contracts/campaigns';
+import { gridStepOf, type CampaignRole } from '../contracts/campaigns';
 import type { Reading } from '../contracts/readings';
 import type { Scan, SpectrumDetail } from '../contracts/spectra';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
@@ -90,8 +90,7 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
       ? {
           id: scan.id,
           engineVersion: scan.engineVersion,
-          // Scans stored before campaigns had a grid setting were all made on the default grid.
-          settings: { ...scan.settings, gridStep: (scan.settings.gridStep as GridStep | undefined) ?? 'default' },
+          settings: { ...scan.settings, gridStep: gridStepOf(scan.settings) },
           class: scan.spectrumClass,
           // JSON columns come back untyped; they hold what the scan stored (typed by its result).
           solutions: scan.solutions as Scan['solutions'],

@@ -61,6 +61,11 @@ export interface TemplateSet {
   products: Map<string, Float64Array>;
 }
 
+/** The bin of a template whose basis vectors are fitted at z (the last bin past the template's range). */
+export function binAt(template: BuiltTemplate, z: number): TemplateBin {
+  return template.bins.find((b) => z >= b.zLo && z <= b.zHi) ?? template.bins[template.bins.length - 1]!;
+}
+
 const memo = new Map<string, TemplateSet>();
 
 /**

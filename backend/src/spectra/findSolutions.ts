@@ -23,15 +23,11 @@ export interface RawSolution {
 export const DISTINCT_DEX = 15e-4;
 
 /**
- * Ranked distinct χ² minima over all template curves. Each minimum is refined by a parabola
- * through its three lowest points; the 1σ error is where χ² rises by 1 on that parabola,
- * σ_s = √(2/χ²''), converted to z with dz = (1+z)·ln10·step·σ_s.
+ * The lowest `perCurve` local minima of every curve, best first. Each minimum is refined by a
+ * parabola through its three lowest points; the 1σ error is where χ² rises by 1 on that parabola,
+ * σ_s = √(2/χ²''), converted to z with dz = (1+z)·ln10·step·σ_s. `pickDistinct` then ranks them
+ * into distinct solutions.
  */
-export function findSolutions(curves: TemplateCurve[], step: number, maxSolutions: number): RawSolution[] {
-  return pickDistinct(findMinima(curves, step, 4 * maxSolutions + 4), step, maxSolutions);
-}
-
-/** The lowest `perCurve` local minima of every curve, refined, best first. */
 export function findMinima(curves: TemplateCurve[], step: number, perCurve: number): RawSolution[] {
   const candidates: RawSolution[] = [];
   for (const c of curves) {

@@ -68,8 +68,12 @@ const CONTINUUM_WIDTHS_DEX = [0.03, 0.045, 0.06, 0.09, 0.12, 0.18];
  * that gave the same real-spectra results (chosen on that set).
  */
 export function continuumWidthFor(nativeStepDex: number): number {
-  const wanted = Math.max(0.03, 150 * nativeStepDex);
-  return CONTINUUM_WIDTHS_DEX.reduce((best, w) => (Math.abs(Math.log(w / wanted)) < Math.abs(Math.log(best / wanted)) ? w : best), 0.03);
+  return nearestLevel(CONTINUUM_WIDTHS_DEX, Math.max(0.03, 150 * nativeStepDex));
+}
+
+/** The level of `levels` nearest `value` in ratio (levels are spaced by factors). */
+function nearestLevel(levels: readonly number[], value: number): number {
+  return levels.reduce((best, l) => (Math.abs(Math.log(l / value)) < Math.abs(Math.log(best / value)) ? l : best));
 }
 
 /**
@@ -88,12 +92,13 @@ export function nativeStepOf(wavelength: Float64Array): number {
   return steps[steps.length >> 1] ?? DEFAULT_LOG_STEP;
 }
 
-/** The grid step for a spectrum: the number asked for, or for 'native' the GRID_STEPS level nearest its own pixels. */
-export function gridStepFor(wavelength: Float64Array, step: number | 'native' = DEFAULT_LOG_STEP): number {
+/**
+ * The grid step for a spectrum: the number asked for, or for 'native' the GRID_STEPS level nearest
+ * its own pixels (`nativeStep`, from nativeStepOf).
+ */
+export function gridStepFor(nativeStep: number, step: number | 'native' = DEFAULT_LOG_STEP): number {
   if (step !== 'native') return step;
-  const native = nativeStepOf(wavelength);
-  if (!(native > 0)) return DEFAULT_LOG_STEP;
-  return GRID_STEPS.reduce((best, s) => (Math.abs(Math.log(s / native)) < Math.abs(Math.log(best / native)) ? s : best), DEFAULT_LOG_STEP);
+  return nativeStep > 0 ? nearestLevel(GRID_STEPS, nativeStep) : DEFAULT_LOG_STEP;
 }
 
 /** Bright night-sky emission, vacuum Å (reference-values.md §6: [O I] 5577.339/6300.304/6363.776 air, Na D). */
@@ -111,7 +116,8 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
   const medium = options.medium ?? spectrum.meta.medium;
   const n = spectrum.wavelength.length;
   const vac = medium === 'air' ? Float64Array.from(spectrum.wavelength, toVacuum) : spectrum.wavelength;
-  const step = gridStepFor(vac, options.step);
+  const nativeStep = nativeStepOf(vac);
+  const step = gridStepFor(nativeStep, options.step);
   const ivar = Float64Array.from(spectrum.ivar);
   const masks: string[] = [];
   const maskRange = (lo: number, hi: number) => {
@@ -143,8 +149,8 @@ export function prepareSpectrum(spectrum: Spectrum, options: PrepareOptions = {}
       last = i;
     }
   }
-  const nativePx = nativeStepOf(vac) / step;
-  const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? continuumWidthFor(nativePx * step)) / step)) | 1;
+  const nativePx = nativeStep / step;
+  const widthPx = Math.max(3, Math.round((options.continuumWidthDex ?? continuumWidthFor(nativeStep)) / step)) | 1;
   const flux = highPass(grid.flux, widthPx, continuumSupport(grid.ivar));
   const snrValues = new Float64Array(n);
   let usable = 0;

@@ -1,4 +1,4 @@
-import type { BuiltTemplate, TemplateSet } from './buildTemplates';
+import { binAt, type BuiltTemplate, type TemplateSet } from './buildTemplates';
 import { shiftToZ } from './logGrid';
 import type { ScanData } from './scanTemplate';
 
@@ -45,8 +45,7 @@ export interface FeatureShare {
  * @param amplitudes the scan's amplitudes at that shift, in the order of the bin's basis vectors
  */
 export function featureShare(data: ScanData, set: TemplateSet, template: BuiltTemplate, shift: number, amplitudes: ArrayLike<number>): FeatureShare {
-  const z = shiftToZ(shift, set.step);
-  const bin = template.bins.find((b) => z >= b.zLo && z <= b.zHi) ?? template.bins[template.bins.length - 1]!;
+  const bin = binAt(template, shiftToZ(shift, set.step));
   const n = data.prepared.n;
   const prefix = new Float64Array(n + 1);
   const start = data.prepared.g0 - shift - set.h0;

@@ -1,3 +1,4 @@
+import { binAt } from './buildTemplates';
 import { zToShift } from './logGrid';
 import { prepareSpectrum } from './prepareSpectrum';
 import { scanData, scanTemplate } from './scanTemplate';
@@ -60,7 +61,7 @@ export function solutionFit(spectrum: Spectrum, solution: SolutionRef, options: 
     throw new RangeError(`z = ${z} lies outside the range ${template.zMin} … ${template.zMax} of template "${template.id}".`);
   }
   const step = set.step;
-  const bin = template.bins.find((b) => z >= b.zLo && z <= b.zHi) ?? template.bins[template.bins.length - 1]!;
+  const bin = binAt(template, z);
   const zLo = Math.max(bin.zLo, options.zMin ?? bin.zLo, template.zMin);
   const zHi = Math.min(bin.zHi, options.zMax ?? bin.zHi, template.zMax);
   const data = scanData(prepared);

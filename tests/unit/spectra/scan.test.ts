@@ -3,7 +3,7 @@ import { generateSyntheticSpectrum } from '../../../backend/src/spectra/generate
 import { scanSpectrum } from '../../../backend/src/spectra/scanSpectrum';
 import { rankWithPhotoZ } from '../../../backend/src/spectra/rankWithPhotoZ';
 import { ENGINE_VERSION } from '../../../backend/src/spectra/version';
-import { GRID_STEPS, gridStepFor } from '../../../backend/src/spectra/prepareSpectrum';
+import { GRID_STEPS, gridStepFor, nativeStepOf } from '../../../backend/src/spectra/prepareSpectrum';
 
 describe('scanSpectrum on seeded synthetic spectra', () => {
   it('FFT and direct evaluation give the same χ² curve', () => {
@@ -103,14 +103,14 @@ describe('shifts where a template has no feature in the observed range', () => {
 });
 
 describe("grid step 'native'", () => {
-  const logSampled = (step: number, n = 1000) => Float64Array.from({ length: n }, (_, i) => 4000 * 10 ** (i * step));
+  const logSampled = (step: number, n = 1000) => nativeStepOf(Float64Array.from({ length: n }, (_, i) => 4000 * 10 ** (i * step)));
   it('snaps the median native step to the nearest grid level (factors of two around 1e-4)', () => {
     expect(gridStepFor(logSampled(1e-5), 'native')).toBe(2.5e-5);
     expect(gridStepFor(logSampled(1.9e-4), 'native')).toBe(2e-4);
     expect(gridStepFor(logSampled(3e-4), 'native')).toBe(4e-4);
     expect(gridStepFor(logSampled(5e-3), 'native')).toBe(8e-4);
     // A linear axis: the median of its log steps decides (Δλ = 1 Å from 4000 Å: ≈ 0.9e-4 dex).
-    expect(gridStepFor(Float64Array.from({ length: 3000 }, (_, i) => 4000 + i), 'native')).toBe(1e-4);
+    expect(gridStepFor(nativeStepOf(Float64Array.from({ length: 3000 }, (_, i) => 4000 + i)), 'native')).toBe(1e-4);
     expect(gridStepFor(logSampled(1e-5))).toBe(1e-4);
     expect(gridStepFor(logSampled(1e-5), 3e-4)).toBe(3e-4);
     expect(GRID_STEPS).toContain(1e-4);
