@@ -30,6 +30,8 @@ export function readingRoutes(ctx: ServiceContext): Router {
     response: readingQueueSchema,
     handle: ({ user, query }) => {
       const { exists, role } = findCampaignRole(ctx, user!.id, query.campaign);
+      // Administrators may view every campaign, so to them its existence is no secret: say why.
+      if (exists && role === null && user!.isAdmin) throw notFound('You are not a member of this campaign, so it holds no reading queue for you.', 'campaign_not_found');
       if (!exists || role === null) throw notFound('No such campaign.', 'campaign_not_found');
       if (role === 'observer') throw forbidden('Observers have no reading queue.');
       return readingQueue(ctx, user!, query.campaign);
