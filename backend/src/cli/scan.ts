@@ -32,7 +32,8 @@ for (const file of files) {
     const r = scanSpectrum(spectrum, { zMin, zMax, step });
     console.log(JSON.stringify({
       file, ok: true, class: r.class,
-      solutions: r.solutions.map((s) => ({ z: s.z, zErr: s.zErr, class: s.class, template: s.template, chi2: s.chi2, deltaChi2: s.deltaChi2, lines: s.lines.map((l) => ({ name: l.name, rest: l.rest, observed: l.observed })) })),
+      ...(r.unknownReason ? { unknownReason: r.unknownReason } : {}),
+      solutions: r.solutions.map((s) => ({ z: s.z, zErr: s.zErr, class: s.class, template: s.template, chi2: s.chi2, deltaChi2: s.deltaChi2, lines: s.lines.map((l) => ({ name: l.name, rest: l.rest, observed: l.observed })), ...(s.interlopers ? { interlopers: s.interlopers } : {}) })),
       meta: { pixels: r.meta.pixels, step: r.meta.step, wavelengthMin: r.meta.wavelengthMin, wavelengthMax: r.meta.wavelengthMax, medium: r.meta.medium, snrMedian: r.meta.snrMedian },
     }));
   } catch (e) {

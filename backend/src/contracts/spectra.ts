@@ -27,6 +27,12 @@ export const solutionSchema = z.object({
   featureShare: z.number().optional(),
   /** χ² added because one feature carried more than 90 % of the gain (included in chi2). */
   singleFeaturePenalty: z.number().optional(),
+  /** χ² of the unfiltered continuum shape in coarse bins (included in chi2; engine ≥ 0.6.0). */
+  shapeChi2: z.number().optional(),
+  /** Lyman-break solutions: the interloper alternatives with Δχ² against this solution (> 0 favours it). */
+  interlopers: z
+    .array(z.object({ kind: z.enum(['4000-break', 'cool-star', 'brown-dwarf', 'carbon-star']), label: z.string(), template: z.string(), z: z.number(), deltaChi2: z.number() }))
+    .optional(),
 });
 export type Solution = z.infer<typeof solutionSchema>;
 
@@ -49,6 +55,8 @@ const scanSchema = z.object({
   // Scans stored before campaigns had a grid setting carry no gridStep; they used 'default'.
   settings: z.looseObject({ zMin: z.number().optional(), zMax: z.number().optional(), gridStep: gridStepSchema.optional() }),
   class: z.string(),
+  /** Why the class is 'unknown' (engine ≥ 0.6.0). */
+  unknownReason: z.string().optional(),
   solutions: z.array(solutionSchema),
   lineMatches: lineMatchesSchema,
   meta: z.object({

@@ -123,7 +123,7 @@ function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: J
       zBestErr: top?.zErr ?? null,
       solutions: result.scan.solutions,
       lineMatches: result.scan.lineMatches,
-      meta: { ...result.scan.meta, chi2Null: result.scan.chi2Null },
+      meta: { ...result.scan.meta, chi2Null: result.scan.chi2Null, ...(result.scan.unknownReason ? { unknownReason: result.scan.unknownReason } : {}) },
       curves: Buffer.from(result.curves),
       isCurrent: true,
     })

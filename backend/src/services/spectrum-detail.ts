@@ -92,6 +92,7 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
           engineVersion: scan.engineVersion,
           settings: { ...scan.settings, gridStep: gridStepOf(scan.settings) },
           class: scan.spectrumClass,
+          ...unknownReasonOf(scan.meta),
           // JSON columns come back untyped; they hold what the scan stored (typed by its result).
           solutions: scan.solutions as Scan['solutions'],
           lineMatches: scan.lineMatches as Scan['lineMatches'],
@@ -116,4 +117,10 @@ export function getScanCurves(ctx: ServiceContext, spectrumId: number) {
       chi2: Array.from(c.chi2, (v) => Number(v.toPrecision(7))),
     })),
   };
+}
+
+/** The engine's reason for an 'unknown' class, kept in the scan's meta (engine ≥ 0.6.0). */
+function unknownReasonOf(meta: unknown): { unknownReason?: string } {
+  const reason = (meta as { unknownReason?: unknown } | null)?.unknownReason;
+  return typeof reason === 'string' ? { unknownReason: reason } : {};
 }

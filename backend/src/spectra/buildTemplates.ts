@@ -3,7 +3,7 @@ import { highPass } from './highPass';
 import { igmTransmission } from './igmTransmission';
 import { TEMPLATE_LINES, type SpectralLine } from './lineList';
 import { C_KMS } from './logGrid';
-import { TEMPLATE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type TemplateRecipe } from './templateRecipes';
+import { TEMPLATE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type ProximityZone, type TemplateRecipe } from './templateRecipes';
 import type { TemplateClass } from './types';
 
 /** Rest-frame range every template covers, Å: wide enough for 0 ≤ z ≤ 9 on optical–K-band data. */
@@ -16,8 +16,10 @@ const LY_ALPHA = 1215.67;
  * edges the template's forest is off by ≤ 0.15 in transmission (z = 2.2 vs the centre 3.1), and
  * the exact transmission enters through the break-consistency term (lymanBreakCheck.ts). Halving
  * the bins (from 1-wide) cost nothing in the real-spectra or accuracy tables and ≈ 12 % of a scan.
+ * The last bin starts at z = 5.7, where the mean forest becomes nearly black (Gunn–Peterson
+ * troughs; from memory: Fan et al. 2006): a bin straddling 5.7 gave z ≈ 6 templates a grey forest.
  */
-const IGM_BIN_EDGES = [-0.01, 2.2, 4.2, 6.2, 9.6];
+const IGM_BIN_EDGES = [-0.01, 2.2, 4.2, 5.7, 9.6];
 
 /** One basis vector of a template: a rest-frame array on the global log grid, continuum removed. */
 export interface TemplateBasis {
@@ -27,6 +29,14 @@ export interface TemplateBasis {
   unfiltered: Float64Array;
   /** Drawn in synthetic spectra of the template (false for variants such as a broad Balmer component). */
   synthetic: boolean;
+  /** The component has a continuum (false: emission lines only). */
+  continuum: boolean;
+  /**
+   * For an IGM-attenuated vector: the redshift its mean transmission was evaluated at (the bin
+   * centre) and the same vector without attenuation (smoothed, same scale), so that checks on the
+   * unfiltered shape can apply the transmission of the exact redshift.
+   */
+  igm?: { zc: number; unattenuated: Float64Array };
 }
 
 /** A redshift interval over which a fixed set of basis vectors is fitted. */
@@ -99,22 +109,22 @@ export function buildTemplates(step: number, instrumentSigmaPx: number, continuu
 function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, sigmaPx: number, widthPx: number): BuiltTemplate {
   const staticBasis: TemplateBasis[] = [];
   const staticZMax: number[] = [];
-  const binned: Array<{ label: string; rest: Float64Array; synthetic: boolean }> = [];
+  const binned: Array<{ label: string; rest: Float64Array; synthetic: boolean; continuum: boolean; proximity?: ProximityZone }> = [];
   const used = new Set<SpectralLine>();
   for (const comp of recipe.components) {
     const lines = selectLines(strengthKeyOf(recipe, comp), comp);
     lines.forEach((l) => used.add(l));
     const rest = componentSpectrum(recipe, comp, lines, lambda, step);
     if (comp.igm === 'red-only') {
-      staticBasis.push({ label: `${comp.name} (red of Lyα)`, synthetic: comp.synthetic ?? true, ...finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
+      staticBasis.push({ label: `${comp.name} (red of Lyα)`, synthetic: comp.synthetic ?? true, continuum: comp.continuum !== undefined, ...finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
       staticZMax.push(comp.zMax ?? Infinity);
     } else if (comp.igm === 'madau1995') {
       if (comp.zMax !== undefined) throw new Error(`Template ${recipe.id}: zMax is not supported on an IGM-attenuated component (${comp.name}).`);
       // The attenuated blue side stays tied to the red side (one amplitude): fitted separately it
       // would become a free narrow feature at Lyα at high z, where the forest is nearly black.
-      binned.push({ label: comp.name, rest, synthetic: comp.synthetic ?? true });
+      binned.push({ label: comp.name, rest, synthetic: comp.synthetic ?? true, continuum: comp.continuum !== undefined, proximity: comp.proximityZone });
     } else {
-      staticBasis.push({ label: comp.name, synthetic: comp.synthetic ?? true, ...finish(rest, sigmaPx, widthPx) });
+      staticBasis.push({ label: comp.name, synthetic: comp.synthetic ?? true, continuum: comp.continuum !== undefined, ...finish(rest, sigmaPx, widthPx) });
       staticZMax.push(comp.zMax ?? Infinity);
     }
   }
@@ -132,9 +142,11 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
     const idx = staticIdx.filter((i) => staticZMax[i]! >= zHi);
     const zc = Math.sqrt((1 + zLo) * (1 + zHi)) - 1;
     for (const f of binned) {
-      const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * igmTransmission(lambda[j]! * (1 + zc), zc)));
+      const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * transmissionWithProximity(lambda[j]!, zc, f.proximity)));
       idx.push(basis.length);
-      basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, synthetic: f.synthetic, ...finish(attenuated, sigmaPx, widthPx) });
+      const finished = finish(attenuated, sigmaPx, widthPx);
+      const unattenuated = Float64Array.from(gaussianSmooth(f.rest, sigmaPx), (v) => v / finished.scale);
+      basis.push({ label: `${f.label} × IGM(z=${zc.toFixed(2)})`, synthetic: f.synthetic, continuum: f.continuum, values: finished.values, unfiltered: finished.unfiltered, igm: { zc, unattenuated } });
     }
     if (idx.length > MAX_COMPONENTS) throw new Error(`Template ${recipe.id}: ${idx.length} components fitted at once in ${zLo} … ${zHi}; at most ${MAX_COMPONENTS}.`);
     bins.push({ zLo, zHi, basis: idx });
@@ -148,6 +160,18 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
     bins,
     lines: [...used].sort((a, b) => a.rest - b.rest),
   };
+}
+
+/**
+ * Mean IGM transmission at rest wavelength λ for a source at z, raised inside a quasar's
+ * proximity zone (where its own radiation keeps the gas ionised) to a ramp from `transmission` at
+ * Lyα down to 0 at `velocityKms` blueward, for sources above `fromZ`.
+ */
+export function transmissionWithProximity(restA: number, z: number, zone?: ProximityZone): number {
+  const t = igmTransmission(restA * (1 + z), z);
+  if (!zone || z < zone.fromZ || restA >= LY_ALPHA) return t;
+  const dv = (1 - restA / LY_ALPHA) * C_KMS;
+  return dv < zone.velocityKms ? Math.max(t, zone.transmission * (1 - dv / zone.velocityKms)) : t;
 }
 
 function strengthKeyOf(recipe: TemplateRecipe, comp: ComponentRecipe): string {
@@ -170,8 +194,12 @@ function continuumAt(c: ContinuumRecipe | undefined, lam: number): number {
   switch (c.shape) {
     case 'power-law':
       return (lam / 1500) ** c.slope;
-    case 'blackbody':
-      return planck(lam, c.temperatureK) / planck(5000, c.temperatureK);
+    case 'blackbody': {
+      // A mix adds cooler (or hotter) stars, each normalised at 5000 Å and weighted.
+      let f = planck(lam, c.temperatureK) / planck(5000, c.temperatureK);
+      for (const m of c.mix ?? []) f += (m.weight * planck(lam, m.temperatureK)) / planck(5000, m.temperatureK);
+      return f;
+    }
   }
 }
 
@@ -233,7 +261,8 @@ function componentSpectrum(recipe: TemplateRecipe, comp: ComponentRecipe, lines:
 
 /**
  * Molecular band opacity: a red-degraded band rises sharply at its head and fades redward as
- * τ₀·exp(−(λ − λ_head)/widthA) (the rotational lines thin out away from the head); a 'broad'
+ * τ₀·exp(−(λ − λ_head)/widthA) (the rotational lines thin out away from the head), a
+ * violet-degraded one ('head-violet', C2 Swan) the same towards the blue; a 'broad'
  * band (H₂O, CH₄, H₂ CIA) is a Gaussian in λ of FWHM widthA.
  */
 function addBandOpacity(tau: Float64Array, lambda: Float64Array, line: SpectralLine, tau0: number, centre: number): void {
@@ -244,6 +273,14 @@ function addBandOpacity(tau: Float64Array, lambda: Float64Array, line: SpectralL
     for (let j = 0; j < n; j++) {
       const x = (lambda[j]! - line.rest) / sigma;
       if (x > -5 && x < 5) tau[j]! += tau0 * Math.exp(-0.5 * x * x);
+    }
+    return;
+  }
+  if (line.profile === 'head-violet') {
+    for (let j = Math.min(n - 1, Math.ceil(centre)); j >= 0; j--) {
+      const d = line.rest - lambda[j]!;
+      if (d > 8 * w) break;
+      if (d >= 0) tau[j]! += tau0 * Math.exp(-d / w);
     }
     return;
   }
@@ -276,7 +313,7 @@ function applyGaussian(arr: Float64Array, centre: number, sigmaPx: number, peak:
 }
 
 /** Instrument smoothing, continuum removal, and unit scale (max |value| = 1). */
-function finish(values: Float64Array, sigmaPx: number, widthPx: number): { values: Float64Array; unfiltered: Float64Array } {
+function finish(values: Float64Array, sigmaPx: number, widthPx: number): { values: Float64Array; unfiltered: Float64Array; scale: number } {
   const smoothed = Float64Array.from(gaussianSmooth(values, sigmaPx));
   const filtered = highPass(smoothed, widthPx);
   let max = 0;
@@ -287,7 +324,7 @@ function finish(values: Float64Array, sigmaPx: number, widthPx: number): { value
       smoothed[j]! /= max;
     }
   }
-  return { values: filtered, unfiltered: smoothed };
+  return { values: filtered, unfiltered: smoothed, scale: max > 0 ? max : 1 };
 }
 
 function gaussianSmooth(values: Float64Array, sigmaPx: number): Float64Array {

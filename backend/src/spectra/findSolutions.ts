@@ -17,6 +17,8 @@ export interface RawSolution {
   penalty?: number;
   /** Share of the χ² gain in the strongest feature window (templates the check applies to). */
   featureShare?: number;
+  /** χ² of the unfiltered continuum shape in coarse bins (continuumShapeCheck.ts; included in chi2). */
+  shapeChi2?: number;
 }
 
 /** Minima closer than this in log10(1+z) (≈ 1000 km/s; 15 pixels of the default grid) are one solution. */

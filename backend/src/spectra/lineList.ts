@@ -16,8 +16,8 @@ export interface SpectralLine {
   source: string;
   /** Rest-frame extent of a broad feature, Å. */
   widthA?: number;
-  /** Band shape: a sharp head with absorption to the red, or a symmetric broad trough. */
-  profile?: 'head-red' | 'broad';
+  /** Band shape: a sharp head with absorption to the red or (C2 Swan) to the violet, or a symmetric broad trough. */
+  profile?: 'head-red' | 'head-violet' | 'broad';
   /** Lorentzian half width of the line's opacity, Å (pressure-broadened lines in opacity components). */
   dampingA?: number;
   /**

@@ -5,7 +5,15 @@ import type { TemplateClass } from './types';
 /** Continuum shape of a template component (see line-lists/templates.json "about"). */
 export type ContinuumRecipe =
   | { shape: 'power-law'; slope: number }
-  | { shape: 'blackbody'; temperatureK: number };
+  | { shape: 'blackbody'; temperatureK: number; mix?: Array<{ temperatureK: number; weight: number }> };
+
+/** A quasar's proximity zone: transmission ramping from `transmission` at Lyα to the mean IGM `velocityKms` blueward, for z ≥ fromZ. */
+export interface ProximityZone {
+  velocityKms: number;
+  transmission: number;
+  fromZ: number;
+  why: string;
+}
 
 export interface ComponentRecipe {
   name: string;
@@ -13,6 +21,8 @@ export interface ComponentRecipe {
   /** Lines drawn: of these kinds, and (when given) of these species or names, minus the names in `except`. */
   select: { kind: LineKind[]; species?: string[]; names?: string[]; except?: string[] };
   igm?: 'madau1995' | 'red-only';
+  /** Raised transmission just blueward of Lyα for IGM-attenuated quasar components. */
+  proximityZone?: ProximityZone;
   /**
    * Fitted only up to this redshift (the template's z range is split there). For a component that
    * would otherwise let the template mimic another class at higher z.

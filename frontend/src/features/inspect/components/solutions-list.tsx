@@ -67,6 +67,7 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
                   One feature carries {Math.round(100 * s.featureShare)} % of the evidence: demoted
                 </span>
               ) : null}
+              {s.interlopers && s.interlopers.length > 0 ? <InterloperLine interlopers={s.interlopers} /> : null}
               {lines.length > 0 ? (
                 <span className="mt-0.5 block text-xs text-ink-600">
                   {lines.slice(0, MAX_LINES_SHOWN).join(' · ')}
@@ -78,5 +79,23 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
         );
       })}
     </ol>
+  );
+}
+
+/**
+ * The interloper question beside a Lyman-break solution: how much worse each low-redshift or
+ * stellar alternative fits (Δχ² > 0 favours the Lyman break; ≤ 0 means the alternative fits as well
+ * or better and is flagged).
+ */
+function InterloperLine({ interlopers }: { interlopers: NonNullable<Solution['interlopers']> }) {
+  return (
+    <span className="mt-0.5 block text-xs text-ink-600" title="χ² of the alternative minus χ² of this solution, with the same continuum-shape and single-feature checks; positive favours the Lyman break">
+      {interlopers.map((a, k) => (
+        <span key={a.kind} className={a.deltaChi2 <= 0 ? 'text-warning-700' : undefined}>
+          {k > 0 ? ' · ' : ''}
+          {a.label}: Δχ² = <span className="num">{Math.round(a.deltaChi2).toLocaleString('en')}</span>
+        </span>
+      ))}
+    </span>
   );
 }
