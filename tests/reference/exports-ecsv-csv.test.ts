@@ -29,6 +29,7 @@ const expectedCells = (i: number) => {
     lines: r.lines.join(';'),
     readers: r.readers.join(';'),
     supersedes: r.supersedes === null ? '' : String(r.supersedes),
+    interloper_dchi2: r.interloperDeltaChi2 === null ? '' : String(r.interloperDeltaChi2),
   };
 };
 

@@ -105,6 +105,9 @@ export const confirmedRowSchema = z.object({
   confirmedBy: z.enum(['agreement', 'settlement', 'correction']),
   confirmedAt: z.string(),
   supersedes: z.number().int().nullable(),
+  interloperZ: z.number().nullable(),
+  interloperDeltaChi2: z.number().nullable(),
+  starDeltaChi2: z.number().nullable(),
 });
 export const confirmedPageSchema = z.object({
   rows: z.array(confirmedRowSchema),

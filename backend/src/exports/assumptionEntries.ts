@@ -6,6 +6,8 @@ export type Entry = [key: string, value: string];
 
 export const DERIVED_NOTE =
   'lookback_time and luminosity_distance: flat LCDM without radiation (Hogg 1999, astro-ph/9905116); for z <= 0 lookback_time is 0 and luminosity_distance is null';
+export const INTERLOPER_NOTE =
+  "interloper_z, interloper_dchi2, star_dchi2: the engine's interloper check of a Lyman-break solution within 0.01 in |dz|/(1+z) of z (4000 A/Balmer-break galaxy at (1+z)*1215.67/3934.78 ... (1+z)*1215.67/3646 - 1; stars at z = 0); chi2 includes the continuum-shape check; null for other classes or when no such solution was scanned";
 export const NULL_NOTE = 'an empty field is null (no value); empty text and empty lists are exported as null';
 
 /**
@@ -26,6 +28,7 @@ export function assumptionEntries(a: ExportAssumptions): Entry[] {
     ['exported_at', a.exportedAt],
     ['software', a.software],
     ['derived_columns', DERIVED_NOTE],
+    ['interloper_columns', INTERLOPER_NOTE],
     ['nulls', NULL_NOTE],
   ];
 }

@@ -47,6 +47,9 @@ export function buildExportTable(rows: readonly ConfirmedRow[], assumptions: Exp
       r.supersedes,
       derived.lookbackGyr,
       derived.luminosityMpc,
+      r.interloperZ,
+      r.interloperDeltaChi2,
+      r.starDeltaChi2,
     ];
   });
   return { columns: CONFIRMED_COLUMNS, cells };

@@ -38,7 +38,7 @@ function checkRow(r: ConfirmedRow): void {
   if (Math.abs(r.gradeCode) >= 2 ** 31) throw new RangeError(`${at}: gradeCode ${r.gradeCode} does not fit a 32-bit integer.`);
   if (r.supersedes !== null && !Number.isSafeInteger(r.supersedes)) throw new RangeError(`${at}: supersedes must be an integer or null, got ${r.supersedes}.`);
   if (!Number.isFinite(r.z)) throw new RangeError(`${at}: z must be a finite number, got ${r.z}.`);
-  const optional = { ra: r.ra, dec: r.dec, zErr: r.zErr, photoZ: r.photoZ, photoZLow: r.photoZLow, photoZHigh: r.photoZHigh };
+  const optional = { ra: r.ra, dec: r.dec, zErr: r.zErr, photoZ: r.photoZ, photoZLow: r.photoZLow, photoZHigh: r.photoZHigh, interloperZ: r.interloperZ, interloperDeltaChi2: r.interloperDeltaChi2, starDeltaChi2: r.starDeltaChi2 };
   for (const [name, v] of Object.entries(optional)) {
     if (v !== null && !Number.isFinite(v)) throw new RangeError(`${at}: ${name} must be a finite number or null, got ${v}.`);
   }

@@ -52,4 +52,22 @@ export const CONFIRMED_COLUMNS: readonly ExportColumn[] = [
     ucd: 'pos.distance;phys.cosmology',
     description: 'Luminosity distance under the stated cosmology; null for z <= 0',
   },
+  {
+    name: 'interloper_z',
+    kind: 'double',
+    ucd: 'src.redshift;stat.fit.param',
+    description: 'Lyman-break records: redshift of the best 4000 A/Balmer-break galaxy at the mirror redshift',
+  },
+  {
+    name: 'interloper_dchi2',
+    kind: 'double',
+    ucd: 'stat.fit.chi2',
+    description: 'Lyman-break records: chi2 of that break galaxy minus chi2 of the Lyman break (> 0 favours the Lyman break)',
+  },
+  {
+    name: 'star_dchi2',
+    kind: 'double',
+    ucd: 'stat.fit.chi2',
+    description: 'Lyman-break records: smallest chi2 of a cool-star, brown-dwarf or carbon-star template at z = 0 minus chi2 of the Lyman break',
+  },
 ];

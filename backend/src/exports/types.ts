@@ -29,6 +29,14 @@ export interface ConfirmedRow {
   confirmedAt: string;
   /** Id of the confirmed record this one corrects. */
   supersedes: number | null;
+  /**
+   * Lyman-break records: the interloper check of the engine's solution at this z — the mirror
+   * redshift of the best 4000 Å/Balmer-break galaxy, its Δχ² against the Lyman break, and the
+   * smallest Δχ² of the cool-star, brown-dwarf and carbon-star templates (null otherwise).
+   */
+  interloperZ: number | null;
+  interloperDeltaChi2: number | null;
+  starDeltaChi2: number | null;
   /** Id of this confirmed record. */
   id: number;
 }

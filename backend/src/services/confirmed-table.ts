@@ -2,7 +2,8 @@ import { and, asc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { ConfirmedPage, confirmedQuerySchema } from '../contracts/release';
 import { qualified } from '../db/qualified';
-import { campaigns, confirmedRedshifts, disagreements, readings, spectra, targets, users } from '../db/schema';
+import { campaigns, confirmedRedshifts, disagreements, readings, scanResults, spectra, targets, users } from '../db/schema';
+import type { Solution } from '../contracts/spectra';
 import type { ConfirmedRow, ExportAssumptions } from '../exports';
 import { PLANCK18 } from '../spectra/flatLcdm';
 import { ENGINE_VERSION } from '../spectra/version';
@@ -48,6 +49,17 @@ export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Fi
       : [],
   );
   const label = new Map(campaign.gradeScheme.map((g) => [g.code, g.label]));
+  const spectrumIds = found.map((r) => r.s.id);
+  const solutionsOf = new Map(
+    spectrumIds.length
+      ? ctx.db
+          .select({ spectrumId: scanResults.spectrumId, solutions: scanResults.solutions })
+          .from(scanResults)
+          .where(and(inArray(scanResults.spectrumId, spectrumIds), eq(scanResults.isCurrent, true)))
+          .all()
+          .map((r) => [r.spectrumId, r.solutions as Solution[]])
+      : [],
+  );
   return {
     total,
     rows: found.map(({ c, s, t }) => ({
@@ -72,8 +84,23 @@ export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Fi
       confirmedBy: c.method,
       confirmedAt: c.createdAt,
       supersedes: c.supersedesId,
+      ...interloperColumns(c.spectrumClass, c.z, solutionsOf.get(s.id) ?? []),
     })),
   };
+}
+
+/** Tolerance in |Δz|/(1 + z) within which a scanned Lyman-break solution is the confirmed value's. */
+const INTERLOPER_MATCH = 0.01;
+
+/** The interloper check of the scanned Lyman-break solution at a confirmed z (assumptions: INTERLOPER_NOTE). */
+function interloperColumns(spectrumClass: string, z: number, solutions: Solution[]): Pick<ConfirmedRow, 'interloperZ' | 'interloperDeltaChi2' | 'starDeltaChi2'> {
+  const none = { interloperZ: null, interloperDeltaChi2: null, starDeltaChi2: null };
+  if (spectrumClass !== 'lyman-break') return none;
+  const match = solutions.find((s) => s.class === 'lyman-break' && s.interlopers && Math.abs(s.z - z) / (1 + z) <= INTERLOPER_MATCH);
+  if (!match?.interlopers) return none;
+  const mirror = match.interlopers.find((a) => a.kind === '4000-break');
+  const stars = match.interlopers.filter((a) => a.kind !== '4000-break').map((a) => a.deltaChi2);
+  return { interloperZ: mirror?.z ?? null, interloperDeltaChi2: mirror?.deltaChi2 ?? null, starDeltaChi2: stars.length ? Math.min(...stars) : null };
 }
 
 /** How many spectra are unread, have one reading, agreed, disagree, or were settled. */

@@ -38,6 +38,9 @@ export function row(overrides: Partial<ConfirmedRow> = {}): ConfirmedRow {
     confirmedBy: 'agreement',
     confirmedAt: '2025-03-10T12:00:00.000Z',
     supersedes: null,
+    interloperZ: 0.913,
+    interloperDeltaChi2: 412.5,
+    starDeltaChi2: 1830.25,
     id: 101,
     ...overrides,
   };
@@ -65,6 +68,9 @@ export const ROWS: ConfirmedRow[] = [
     imageFamily: null,
     readers: ['Zoë Ångström'],
     confirmedBy: 'settlement',
+    interloperZ: null,
+    interloperDeltaChi2: null,
+    starDeltaChi2: null,
   }),
-  row({ id: 103, targetId: '#7 & <b>', spectrumId: 19, z: 1, zErr: 0.001, spectrumClass: 'galaxy', lines: ['[OII]3727', 'Hb', '[OIII]5007'], confirmedBy: 'correction', supersedes: 99, imageFamily: '5' }),
+  row({ id: 103, targetId: '#7 & <b>', spectrumId: 19, z: 1, zErr: 0.001, spectrumClass: 'galaxy', lines: ['[OII]3727', 'Hb', '[OIII]5007'], confirmedBy: 'correction', supersedes: 99, imageFamily: '5', interloperZ: null, interloperDeltaChi2: null, starDeltaChi2: null }),
 ];
