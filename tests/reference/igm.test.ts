@@ -12,7 +12,7 @@ const LY_BETA = 1025.72;
 const LYA = { laf: [1.69e-2, 2.354e-3, 1.026e-4], dla: [1.617e-4, 5.39e-5] } as const;
 
 /** The Lyα terms alone, straight from the paper's piecewise form, for r = λ_obs/λ_α. */
-function lyAlphaDepth(r: number, dla2 = LYA.dla[1]): number {
+function lyAlphaDepth(r: number, dla2: number = LYA.dla[1]): number {
   const laf = r < 2.2 ? LYA.laf[0] * r ** 1.2 : r < 5.7 ? LYA.laf[1] * r ** 3.7 : LYA.laf[2] * r ** 5.5;
   const dla = r < 3 ? LYA.dla[0] * r ** 2 : dla2 * r ** 3;
   return laf + dla;
