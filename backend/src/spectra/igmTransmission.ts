@@ -1,3 +1,5 @@
+import { inoue2014Transmission } from './igmInoue2014';
+
 /** Lyman-series wavelengths (Å) and coefficients A_j of Madau (1995, ApJ 441, 18), eq. 12 and Table. */
 const SERIES: ReadonlyArray<readonly [number, number]> = [
   [1216, 3.6e-3],
@@ -34,4 +36,29 @@ export function igmTransmission(observedAngstrom: number, zSource: number): numb
       0.023 * (xEm ** 1.68 - xc ** 1.68);
   }
   return Math.exp(-Math.max(0, tau));
+}
+
+/** Which mean IGM transmission model a template uses. */
+export type IgmModel = 'inoue2014' | 'madau1995';
+
+/**
+ * Inoue et al. (2014) by default: it is fitted to later absorber statistics than Madau (1995) and
+ * carries the Lyman series to j = 40 and DLAs (see igmInoue2014.ts).
+ */
+export const DEFAULT_IGM_MODEL: IgmModel = 'inoue2014';
+
+/**
+ * Mean intergalactic transmission under the chosen model.
+ *
+ * @param observedAngstrom observed wavelength, Å
+ * @param zSource source redshift
+ * @param model 'inoue2014' (Inoue et al. 2014, MNRAS 442, 1805) or 'madau1995' (igmTransmission)
+ * @returns transmission between 0 and 1
+ * @throws RangeError for a model name outside IgmModel (e.g. from stored settings)
+ * @example meanIgmTransmission(4500, 3, 'madau1995') // ≈ 0.7167
+ */
+export function meanIgmTransmission(observedAngstrom: number, zSource: number, model: IgmModel = DEFAULT_IGM_MODEL): number {
+  if (model === 'inoue2014') return inoue2014Transmission(observedAngstrom, zSource);
+  if (model === 'madau1995') return igmTransmission(observedAngstrom, zSource);
+  throw new RangeError(`Unknown IGM model '${String(model)}': expected 'inoue2014' or 'madau1995'.`);
 }
