@@ -1,6 +1,6 @@
 import { MAX_COMPONENTS } from './bestAmplitudes';
 import { highPass } from './highPass';
-import { igmTransmission } from './igmTransmission';
+import { DEFAULT_IGM_MODEL, meanIgmTransmission, type IgmModel } from './igmTransmission';
 import { TEMPLATE_LINES, type SpectralLine } from './lineList';
 import { C_KMS } from './logGrid';
 import { TEMPLATE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type ProximityZone, type TemplateRecipe } from './templateRecipes';
@@ -11,7 +11,7 @@ const REST_MIN_A = 300;
 const REST_MAX_A = 32000;
 const LY_ALPHA = 1215.67;
 /**
- * Redshift bins inside which the Madau transmission is evaluated at one z (the bin centre). Each
+ * Redshift bins inside which the mean IGM transmission is evaluated at one z (the bin centre). Each
  * bin is one more set of correlations, so bins above z = 2.2 are two units of z wide: at their
  * edges the template's forest is off by ≤ 0.15 in transmission (z = 2.2 vs the centre 3.1), and
  * the exact transmission enters through the break-consistency term (lymanBreakCheck.ts). Halving
@@ -64,8 +64,10 @@ export interface TemplateSet {
   length: number;
   continuumWidthPx: number;
   instrumentSigmaPx: number;
+  /** Mean IGM model of the attenuated components. */
+  igmModel: IgmModel;
   templates: BuiltTemplate[];
-  /** Identifies the set (step, σ, filter) in caches of prepared template buffers. */
+  /** Identifies the set (step, σ, filter, IGM model) in caches of prepared template buffers. */
   key: string;
   /** Pairwise products of basis vectors (for the Gram correlations), filled on first use. */
   products: Map<string, Float64Array>;
@@ -82,11 +84,11 @@ const memo = new Map<string, TemplateSet>();
  * The template set for (step, instrument σ, filter width), built on first use and kept for the life
  * of the process (≈ 100 ms to build; a scan or a synthetic spectrum then costs no rebuild).
  */
-export function templateSetFor(step: number, instrumentSigmaPx: number, continuumWidthPx: number): TemplateSet {
-  const key = `${step}|${instrumentSigmaPx}|${continuumWidthPx}`;
+export function templateSetFor(step: number, instrumentSigmaPx: number, continuumWidthPx: number, model: IgmModel = DEFAULT_IGM_MODEL): TemplateSet {
+  const key = `${step}|${instrumentSigmaPx}|${continuumWidthPx}|${model}`;
   let set = memo.get(key);
   if (!set) {
-    set = buildTemplates(step, instrumentSigmaPx, continuumWidthPx);
+    set = buildTemplates(step, instrumentSigmaPx, continuumWidthPx, model);
     memo.set(key, set);
   }
   return set;
@@ -97,16 +99,16 @@ export function templateSetFor(step: number, instrumentSigmaPx: number, continuu
  * to the instrument σ (grid pixels) and filtered with the same continuum-removing running mean as
  * the data. Call once per (step, resolution, filter width) and reuse.
  */
-export function buildTemplates(step: number, instrumentSigmaPx: number, continuumWidthPx: number): TemplateSet {
+export function buildTemplates(step: number, instrumentSigmaPx: number, continuumWidthPx: number, model: IgmModel = DEFAULT_IGM_MODEL): TemplateSet {
   const h0 = Math.floor(Math.log10(REST_MIN_A) / step);
   const length = Math.ceil(Math.log10(REST_MAX_A) / step) - h0 + 1;
   const lambda = new Float64Array(length);
   for (let j = 0; j < length; j++) lambda[j] = 10 ** ((h0 + j) * step);
-  const templates = TEMPLATE_RECIPES.map((r) => buildOne(r, lambda, step, instrumentSigmaPx, continuumWidthPx));
-  return { step, h0, length, continuumWidthPx, instrumentSigmaPx, templates, key: `${step}|${instrumentSigmaPx}|${continuumWidthPx}`, products: new Map() };
+  const templates = TEMPLATE_RECIPES.map((r) => buildOne(r, lambda, step, instrumentSigmaPx, continuumWidthPx, model));
+  return { step, h0, length, continuumWidthPx, instrumentSigmaPx, igmModel: model, templates, key: `${step}|${instrumentSigmaPx}|${continuumWidthPx}|${model}`, products: new Map() };
 }
 
-function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, sigmaPx: number, widthPx: number): BuiltTemplate {
+function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, sigmaPx: number, widthPx: number, model: IgmModel): BuiltTemplate {
   const staticBasis: TemplateBasis[] = [];
   const staticZMax: number[] = [];
   const binned: Array<{ label: string; rest: Float64Array; synthetic: boolean; continuum: boolean; proximity?: ProximityZone }> = [];
@@ -118,7 +120,7 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
     if (comp.igm === 'red-only') {
       staticBasis.push({ label: `${comp.name} (red of Lyα)`, synthetic: comp.synthetic ?? true, continuum: comp.continuum !== undefined, ...finish(rest.map((v, j) => (lambda[j]! >= LY_ALPHA ? v : 0)), sigmaPx, widthPx) });
       staticZMax.push(comp.zMax ?? Infinity);
-    } else if (comp.igm === 'madau1995') {
+    } else if (comp.igm === 'mean') {
       if (comp.zMax !== undefined) throw new Error(`Template ${recipe.id}: zMax is not supported on an IGM-attenuated component (${comp.name}).`);
       // The attenuated blue side stays tied to the red side (one amplitude): fitted separately it
       // would become a free narrow feature at Lyα at high z, where the forest is nearly black.
@@ -142,7 +144,7 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
     const idx = staticIdx.filter((i) => staticZMax[i]! >= zHi);
     const zc = Math.sqrt((1 + zLo) * (1 + zHi)) - 1;
     for (const f of binned) {
-      const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * transmissionWithProximity(lambda[j]!, zc, f.proximity)));
+      const attenuated = f.rest.map((v, j) => (v === 0 || lambda[j]! >= LY_ALPHA ? v : v * transmissionWithProximity(lambda[j]!, zc, f.proximity, model)));
       idx.push(basis.length);
       const finished = finish(attenuated, sigmaPx, widthPx);
       const unattenuated = Float64Array.from(gaussianSmooth(f.rest, sigmaPx), (v) => v / finished.scale);
@@ -167,8 +169,8 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
  * proximity zone (where its own radiation keeps the gas ionised) to a ramp from `transmission` at
  * Lyα down to 0 at `velocityKms` blueward, for sources above `fromZ`.
  */
-export function transmissionWithProximity(restA: number, z: number, zone?: ProximityZone): number {
-  const t = igmTransmission(restA * (1 + z), z);
+export function transmissionWithProximity(restA: number, z: number, zone: ProximityZone | undefined, model: IgmModel): number {
+  const t = meanIgmTransmission(restA * (1 + z), z, model);
   if (!zone || z < zone.fromZ || restA >= LY_ALPHA) return t;
   const dv = (1 - restA / LY_ALPHA) * C_KMS;
   return dv < zone.velocityKms ? Math.max(t, zone.transmission * (1 - dv / zone.velocityKms)) : t;

@@ -1,4 +1,4 @@
-import { igmTransmission } from './igmTransmission';
+import { DEFAULT_IGM_MODEL, meanIgmTransmission, type IgmModel } from './igmTransmission';
 import type { PreparedSpectrum } from './prepareSpectrum';
 
 /**
@@ -12,7 +12,7 @@ import type { PreparedSpectrum } from './prepareSpectrum';
  *
  * with F the inverse-variance weighted mean flux in the rest windows BLUE (between Lyβ and Lyα,
  * where only the Lyα forest absorbs) and RED (above Lyα and N V, below C IV), T(z) the mean
- * Madau (1995) transmission across the blue window, R the continuum ratio blue/red of the
+ * mean IGM transmission across the blue window (Inoue et al. 2014 by default), R the continuum ratio blue/red of the
  * template's power law, and σ_sys a floor for sightline-to-sightline scatter of the forest and for
  * sky-subtraction and flux-calibration errors. Only an excess of blue flux is penalised: a forest
  * darker than the mean (a damped absorber, a dark patch at z > 6) is allowed.
@@ -20,6 +20,8 @@ import type { PreparedSpectrum } from './prepareSpectrum';
 export interface BreakCheckOptions {
   /** f_λ ∝ λ^slope of the template's continuum (sets R). */
   slope: number;
+  /** Mean IGM model for T(z) (default Inoue et al. 2014). */
+  igmModel?: IgmModel;
 }
 
 /** Rest windows, Å: the classic Lyα-forest band between Lyβ and Lyα, and a line-poor band red of N V (common practice). */
@@ -69,36 +71,42 @@ function windowMean(sums: WindowSums, a: number, b: number, out: Float64Array): 
   return true;
 }
 
-/** Mean Madau (1995) transmission across the blue window for a source at z (exact, 12 samples). */
-export function blueTransmission(z: number): number {
+/** Mean transmission across the blue window for a source at z (exact, 12 samples). */
+export function blueTransmission(z: number, model: IgmModel = DEFAULT_IGM_MODEL): number {
   let t = 0;
   const samples = 12;
   for (let k = 0; k < samples; k++) {
     const rest = BLUE_REST[0] + ((k + 0.5) / samples) * (BLUE_REST[1] - BLUE_REST[0]);
-    t += igmTransmission(rest * (1 + z), z);
+    t += meanIgmTransmission(rest * (1 + z), z, model);
   }
   return t / samples;
 }
 
-/** blueTransmission tabulated every 0.01 in z up to 12 (smooth in z; linear interpolation is exact to < 1e-4). */
+/** blueTransmission tabulated every 0.01 in z up to 12 (smooth in z; linear interpolation is exact to < 1e-4), per model on first use. */
 const T_STEP = 0.01;
-const T_TABLE = Float64Array.from({ length: Math.round(12 / T_STEP) + 2 }, (_, k) => blueTransmission(k * T_STEP));
+const tTables = new Map<IgmModel, Float64Array>();
 
-function tabulatedTransmission(z: number): number {
+function tabulatedTransmission(z: number, model: IgmModel): number {
+  let table = tTables.get(model);
+  if (!table) {
+    table = Float64Array.from({ length: Math.round(12 / T_STEP) + 2 }, (_, k) => blueTransmission(k * T_STEP, model));
+    tTables.set(model, table);
+  }
   const x = Math.min(Math.max(z, 0), 12) / T_STEP;
   const k = Math.floor(x);
   const f = x - k;
-  return T_TABLE[k]! * (1 - f) + T_TABLE[k + 1]! * f;
+  return table[k]! * (1 - f) + table[k + 1]! * f;
 }
 
-/** The transmission per integer shift of a grid step, filled once per step (shifts up to z = 12). */
-const byShift = new Map<number, Float64Array>();
+/** The transmission per integer shift of a grid step, filled once per (step, model) (shifts up to z = 12). */
+const byShift = new Map<string, Float64Array>();
 
-function transmissionAtShift(step: number, s: number): number {
-  let table = byShift.get(step);
+function transmissionAtShift(step: number, s: number, model: IgmModel): number {
+  const key = `${step}|${model}`;
+  let table = byShift.get(key);
   if (!table) {
-    table = Float64Array.from({ length: Math.ceil(Math.log10(13) / step) + 1 }, (_, k) => tabulatedTransmission(10 ** (k * step) - 1));
-    byShift.set(step, table);
+    table = Float64Array.from({ length: Math.ceil(Math.log10(13) / step) + 1 }, (_, k) => tabulatedTransmission(10 ** (k * step) - 1, model));
+    byShift.set(key, table);
   }
   return table[Math.min(Math.max(s, 0), table.length - 1)]!;
 }
@@ -111,11 +119,11 @@ const redOut = new Float64Array(2);
  * blue window is not covered. Window edges are rest-window grid positions plus s, so no logarithm
  * is taken per shift.
  */
-function breakChi2AtShift(sums: WindowSums, s: number, ratio: number, edges: WindowEdges): number {
+function breakChi2AtShift(sums: WindowSums, s: number, ratio: number, edges: WindowEdges, model: IgmModel): number {
   const base = s - sums.g0;
   if (!windowMean(sums, Math.ceil(edges.blueLo + base), Math.floor(edges.blueHi + base) + 1, blueOut)) return 0;
   const hasRed = windowMean(sums, Math.ceil(edges.redLo + base), Math.floor(edges.redHi + base) + 1, redOut);
-  const t = transmissionAtShift(sums.step, s);
+  const t = transmissionAtShift(sums.step, s, model);
   const blueMean = blueOut[0]!;
   // Without the red window only the blue level is known: the break still says it must be near zero.
   const redMean = hasRed ? Math.max(0, redOut[0]!) : 0;
@@ -157,12 +165,13 @@ function continuumRatio(options: BreakCheckOptions): number {
  * @example breakChi2(sums, 6.6, { slope: -2 }) // large for a spectrum with flux at 8000–9000 Å
  */
 export function breakChi2(sums: WindowSums, z: number, options: BreakCheckOptions): number {
-  return breakChi2AtShift(sums, Math.round(Math.log10(1 + z) / sums.step), continuumRatio(options), windowEdges(sums.step));
+  return breakChi2AtShift(sums, Math.round(Math.log10(1 + z) / sums.step), continuumRatio(options), windowEdges(sums.step), options.igmModel ?? DEFAULT_IGM_MODEL);
 }
 
 /** Adds χ²_break to a template's χ²(s) curve (shifts sMin …) in place. */
 export function addBreakChi2(chi2: Float64Array, sMin: number, sums: WindowSums, options: BreakCheckOptions): void {
   const ratio = continuumRatio(options);
   const edges = windowEdges(sums.step);
-  for (let i = 0; i < chi2.length; i++) chi2[i]! += breakChi2AtShift(sums, sMin + i, ratio, edges);
+  const model = options.igmModel ?? DEFAULT_IGM_MODEL;
+  for (let i = 0; i < chi2.length; i++) chi2[i]! += breakChi2AtShift(sums, sMin + i, ratio, edges, model);
 }

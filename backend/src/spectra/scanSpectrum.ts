@@ -1,6 +1,6 @@
 import { templateSetFor, type TemplateSet } from './buildTemplates';
 import { shapeBins, shapeChi2 } from './continuumShapeCheck';
-import { igmTransmission } from './igmTransmission';
+import { DEFAULT_IGM_MODEL, meanIgmTransmission, type IgmModel } from './igmTransmission';
 import { interloperAlternatives, type Interloper } from './interloperCheck';
 import { findMinima, pickDistinct, type RawSolution } from './findSolutions';
 import { shiftToZ } from './logGrid';
@@ -32,6 +32,8 @@ export interface ScanOptions extends PrepareOptions {
   minDetectionChi2?: number;
   /** Cap the evidence of one feature for absorption-line galaxies and stars (singleFeatureCheck.ts; default true). */
   singleFeatureCheck?: boolean;
+  /** Mean IGM transmission model of the Lyman-break and quasar templates (default 'inoue2014'; 'madau1995' as an option). */
+  igmModel?: IgmModel;
   /** Add the χ² of the unfiltered continuum shape in coarse bins to each candidate (continuumShapeCheck.ts; default true). */
   shapeCheck?: boolean;
 }
@@ -113,8 +115,8 @@ export interface ScanResult {
 }
 
 /** Templates for a prepared spectrum's grid, built once per (step, resolution, filter) and reused. */
-export function templatesFor(prepared: PreparedSpectrum): TemplateSet {
-  return templateSetFor(prepared.step, quantise(prepared.instrumentSigmaPx), prepared.continuumWidthPx);
+export function templatesFor(prepared: PreparedSpectrum, igmModel: IgmModel = DEFAULT_IGM_MODEL): TemplateSet {
+  return templateSetFor(prepared.step, quantise(prepared.instrumentSigmaPx), prepared.continuumWidthPx, igmModel);
 }
 
 function quantise(sigmaPx: number): number {
@@ -134,7 +136,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const zMax = options.zMax ?? 9;
   if (!(zMax > zMin) || zMin < -0.01 || zMax > 12) throw new RangeError(`The redshift range must satisfy −0.01 ≤ zMin < zMax ≤ 12, got ${zMin} … ${zMax}.`);
   const prepared = prepareSpectrum(spectrum, options);
-  const set = templatesFor(prepared);
+  const igmModel = options.igmModel ?? DEFAULT_IGM_MODEL;
+  const set = templatesFor(prepared, igmModel);
   const data = scanData(prepared);
   const classes = options.classes;
   const requests: TemplateRequest[] = [];
@@ -146,7 +149,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   }
   const curves = scanTemplates(data, set, requests, options.method ?? 'fft');
   for (const c of curves) dropShiftsWithoutFeatures(c, prepared, data.chi2Null);
-  addLymanBreakChecks(curves, prepared);
+  addLymanBreakChecks(curves, prepared, igmModel);
   const maxSolutions = options.maxSolutions ?? 5;
   const candidates = findMinima(curves, set.step, 4 * maxSolutions + 4);
   const check = options.singleFeatureCheck ?? true;
@@ -163,7 +166,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
       share = f.gain > 0 ? f.window / f.gain : 0;
       single = f.penalty;
     }
-    const shape = bins ? shapeChi2(bins, prepared, set, t, shift, igmTransmission) : undefined;
+    const shape = bins ? shapeChi2(bins, prepared, set, t, shift, (lambda, z) => meanIgmTransmission(lambda, z, igmModel)) : undefined;
     return { single, share, shape };
   };
   const curveOf = new Map(curves.map((c) => [c.template.id, c]));
@@ -273,11 +276,11 @@ function unknownReason(detectionChi2: number | undefined, threshold: number): st
  * Sources whose Lyα sits in the spectrum must be dark blueward of it: the χ² of Lyman-break and
  * quasar templates gets the break-consistency term of lymanBreakCheck.ts.
  */
-function addLymanBreakChecks(curves: TemplateCurve[], prepared: PreparedSpectrum): void {
+function addLymanBreakChecks(curves: TemplateCurve[], prepared: PreparedSpectrum, igmModel: IgmModel): void {
   const sums = windowSums(prepared);
   for (const c of curves) {
     if (c.template.class !== 'lyman-break' && c.template.class !== 'quasar') continue;
-    addBreakChi2(c.chi2, c.sMin, sums, { slope: continuumSlope(c.template.id) });
+    addBreakChi2(c.chi2, c.sMin, sums, { slope: continuumSlope(c.template.id), igmModel });
   }
 }
 

@@ -53,7 +53,7 @@ export function solutionModel(spectrum: Spectrum, solution: SolutionRef, options
 /** `solutionModel` with the amplitudes, continuum and χ² it was built from. */
 export function solutionFit(spectrum: Spectrum, solution: SolutionRef, options: ScanOptions = {}): SolutionFit {
   const prepared = prepareSpectrum(spectrum, options);
-  const set = templatesFor(prepared);
+  const set = templatesFor(prepared, options.igmModel);
   const template = set.templates.find((t) => t.id === solution.template);
   if (!template) throw new RangeError(`No template "${solution.template}" in the engine's template set.`);
   const z = solution.z;

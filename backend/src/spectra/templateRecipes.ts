@@ -20,7 +20,7 @@ export interface ComponentRecipe {
   continuum?: ContinuumRecipe;
   /** Lines drawn: of these kinds, and (when given) of these species or names, minus the names in `except`. */
   select: { kind: LineKind[]; species?: string[]; names?: string[]; except?: string[] };
-  igm?: 'madau1995' | 'red-only';
+  igm?: 'mean' | 'red-only';
   /** Raised transmission just blueward of Lyα for IGM-attenuated quasar components. */
   proximityZone?: ProximityZone;
   /**
