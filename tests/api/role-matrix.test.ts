@@ -58,6 +58,7 @@ const CASES: Case[] = [
   { method: 'get', route: '/campaigns/:id/targets', url: '/api/campaigns/1/targets', expect: signedIn(200) },
   { method: 'patch', route: '/spectra/:spectrumId/target', url: '/api/spectra/999/target', body: () => ({ targetId: null }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/1', expect: leadOnly(200) },
+  { method: 'get', route: '/jobs/:jobId/files', url: '/api/jobs/1/files', expect: leadOnly(200) },
   { method: 'post', route: '/jobs/:jobId/cancel', url: '/api/jobs/1/cancel', expect: leadOnly(200) },
   { method: 'get', route: '/jobs/:jobId/events', url: '/api/jobs/1/events', expect: leadOnly(200) },
   { method: 'get', route: '/campaigns/:id/jobs', url: '/api/campaigns/1/jobs', expect: leadOnly(200) },

@@ -1,6 +1,7 @@
 import { sql } from 'drizzle-orm';
 import { blob, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import type { GradeScheme } from '../contracts/grades';
+import type { FluxUnit } from '../spectra/types';
 
 // Timestamps are ISO-8601 UTC strings: readable in the SQLite shell and sortable as text.
 const now = sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`;
@@ -196,6 +197,8 @@ export const spectra = sqliteTable(
     instrument: text('instrument'),
     exposureS: real('exposure_s'),
     dateObs: text('date_obs'),
+    /** The file's flux unit, normalised (null for spectra stored before units were read: re-read from the file). */
+    fluxUnit: text('flux_unit', { mode: 'json' }).$type<FluxUnit>(),
     medium: text('medium', { enum: ['air', 'vacuum'] }).notNull(),
     pixels: integer('pixels').notNull(),
     wavelengthMin: real('wavelength_min').notNull(),

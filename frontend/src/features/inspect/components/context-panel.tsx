@@ -26,6 +26,24 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 
 const dash = <span className="text-ink-400">—</span>;
 
+/** The normalised unit and, when it differs, the file's own spelling; an unknown unit is said to be one. */
+function FluxUnitText({ unit }: { unit: SpectrumDetail['spectrum']['fluxUnit'] }) {
+  if (unit === null) return dash;
+  if (unit.quantity === 'arbitrary') {
+    return <>arbitrary{unit.raw === null ? ' (the file states none)' : <span className="text-ink-600"> (file: “{unit.raw}”)</span>}</>;
+  }
+  const scale = unit.scale === 1 ? '' : `${Number(unit.scale.toPrecision(3))} × `;
+  return (
+    <>
+      <span className="num">
+        {scale}
+        {unit.unit}
+      </span>
+      {unit.raw !== null ? <span className="block text-xs text-ink-500">file: “{unit.raw}”</span> : null}
+    </>
+  );
+}
+
 function Position({ ra, dec }: { ra: number | null; dec: number | null }) {
   if (ra === null || dec === null) return dash;
   return (
@@ -109,6 +127,14 @@ export function ContextPanel({ detail, arrays }: { detail: SpectrumDetail; array
         <Fact term="Instrument">{s.instrument ?? dash}</Fact>
         <Fact term="Exposure">{s.exposureS === null ? dash : <span className="num">{s.exposureS.toLocaleString('en')} s</span>}</Fact>
         {s.dateObs ? <Fact term="Observed">{formatDate(s.dateObs)}</Fact> : null}
+        {s.ra !== null && s.dec !== null ? (
+          <Fact term="Pointing">
+            <Position ra={s.ra} dec={s.dec} />
+          </Fact>
+        ) : null}
+        <Fact term="Flux unit">
+          <FluxUnitText unit={arrays?.fluxUnit ?? s.fluxUnit} />
+        </Fact>
         <Fact term="Pixels · λ">
           <span className="num">
             {s.pixels.toLocaleString('en')} · {s.wavelengthMin.toFixed(0)}–{s.wavelengthMax.toFixed(0)} Å
