@@ -12,7 +12,7 @@ export interface ConfirmedRow {
   dec: number | null;
   z: number;
   zErr: number | null;
-  gradeCode: number;
+  gradeCode: string;
   gradeLabel: string;
   spectrumClass: SpectrumClass;
   /** Names of the features that support the redshift. */
@@ -40,7 +40,7 @@ export interface ExportAssumptions {
   cosmology: { name: string; h0: number; omegaM: number; omegaLambda: number; flat: true };
   /** Agreement tolerance on |Δz|/(1+z). */
   tolerance: number;
-  gradeScheme: { code: number; label: string; meaning: string }[];
+  gradeScheme: { code: string; label: string; meaning: string }[];
   /** ISO-8601 UTC. */
   exportedAt: string;
   /** e.g. "Redward 0.1.0 / redward-engine/0.2.0". */

@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDate, formatDegrees, formatRedshift } from '@/lib/format';
+import { gradeText } from '@/lib/grade-label';
 import type { SpectrumDetail } from '../api/schemas';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatDec, formatRa } from '../utils/sky-position';
@@ -110,7 +111,7 @@ export function ContextPanel({ detail, arrays }: { detail: SpectrumDetail; array
                   <span className="text-ink-600"> · top z {formatRedshift(m.zBest)}</span>
                   {m.readings.map((r) => (
                     <span key={r.id} className="block pl-3 text-xs text-ink-600">
-                      {r.reader.name} ({r.readingOrder}): <span className="num">z = {formatRedshift(r.z)}</span>, grade {r.grade}, {CLASS_NAMES[r.class]}
+                      {r.reader.name} ({r.readingOrder}): <span className="num">z = {formatRedshift(r.z)}</span>, grade {gradeText(detail.campaign.gradeScheme, r.grade)}, {CLASS_NAMES[r.class]}
                     </span>
                   ))}
                   {m.readings.length === 0 ? <span className="block pl-3 text-xs text-ink-500">no reading you may see</span> : null}
