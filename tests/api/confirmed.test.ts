@@ -1,7 +1,8 @@
 import Papa from 'papaparse';
 import { XMLParser } from 'fast-xml-parser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { targets } from '../../backend/src/db/schema';
+import { eq } from 'drizzle-orm';
+import { disagreements, targets } from '../../backend/src/db/schema';
 import { uploadAssignedSpectra } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -97,6 +98,9 @@ describe('the confirmed table', () => {
     expect(res.status).toBe(200);
     const a = res.body.families.find((f: { family: string }) => f.family === 'A');
     expect(a).toMatchObject({ incomplete: true, flagged: true });
+    // CNF-0002's readings (1.5 and 1.51) disagree: its entry points at the open disagreement.
+    const open = t.ctx.db.select().from(disagreements).where(eq(disagreements.spectrumId, ids[1]!)).get()!;
+    expect(a.unconfirmed).toEqual([{ imageFamily: 'A', targetId: 'CNF-0002', spectrumId: ids[1], openDisagreementId: open.id }]);
     expect(t.ctx.db.select().from(targets).all()).toHaveLength(3);
   });
 });

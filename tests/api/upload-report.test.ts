@@ -121,6 +121,27 @@ describe('the per-file upload report', () => {
     expect(stored.map((f: { readersAssigned: number }) => f.readersAssigned)).toEqual([2, 2, 2]);
   });
 
+  it('sorts the spectra list by file name ignoring case', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const list = await lead.get('/api/campaigns/1/spectra?sort=fileName&dir=asc');
+    expect(list.body.rows.map((r: { fileName: string }) => r.fileName)).toEqual(['night7.zip/echelle_0042.fits', 'night7.zip/LNT-C3.1.csv', 'night7.zip/mystery-object.csv']);
+  });
+
+  it('shows each campaign\'s progress on the campaign list: unread, agreed, confirmed (not "agreed" to a reader)', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const progressOf = async (agent: ReturnType<TestApp['agent']>) => (await agent.get('/api/campaigns')).body.campaigns.find((c: { id: number }) => c.id === 1).progress;
+    expect(await progressOf(lead)).toEqual({ spectra: 3, unread: 3, agreed: 0, confirmed: 0, openDisagreements: 0 });
+    const list = await lead.get('/api/campaigns/1/spectra?sort=fileName');
+    const id = list.body.rows[0].id;
+    for (const email of ['reader1@demo.test', 'reader2@demo.test']) {
+      const reader = await t.signIn(email);
+      const saved = await reader.post(`/api/spectra/${id}/readings`).send({ z: 1.288, grade: 'sure', class: 'galaxy' });
+      expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    }
+    expect(await progressOf(lead)).toEqual({ spectra: 3, unread: 2, agreed: 1, confirmed: 1, openDisagreements: 0 });
+    expect(await progressOf(await t.signIn('reader1@demo.test'))).toEqual({ spectra: 3, unread: 2, agreed: null, confirmed: 1, openDisagreements: null });
+  });
+
   it('is for leads only, and a job of another campaign is not found for a stranger', async () => {
     const reader = await t.signIn('reader1@demo.test');
     const res = await reader.get('/api/jobs/1/files');

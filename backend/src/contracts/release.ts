@@ -130,7 +130,7 @@ export const familyCheckSchema = z.object({
   family: z.string(),
   members: z.array(z.object({ targetId: z.string().nullable(), spectrumId: z.number().int(), recordId: z.number().int(), z: z.number(), gradeCode: z.string(), gradeLabel: z.string() })),
   /** Images of the family without a confirmed redshift yet. */
-  unconfirmed: z.array(z.object({ imageFamily: z.string(), targetId: z.string().nullable(), spectrumId: z.number().int().nullable() })),
+  unconfirmed: z.array(z.object({ imageFamily: z.string(), targetId: z.string().nullable(), spectrumId: z.number().int().nullable(), openDisagreementId: z.number().int().nullable().optional() })),
   meanZ: z.number().nullable(),
   /** (max z − min z)/(1 + mean z) over the confirmed members. */
   spread: z.number().nullable(),

@@ -52,4 +52,6 @@ export interface UnconfirmedMember {
   imageFamily: string;
   targetId: string | null;
   spectrumId: number | null;
+  /** The open disagreement holding it back, if any: where a lead goes to settle it. */
+  openDisagreementId?: number | null;
 }
