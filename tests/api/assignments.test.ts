@@ -52,7 +52,7 @@ describe('assignment by the lead', () => {
     const same = await lead.put(`/api/spectra/${item.id}/assignments`).send({ readingOrder: other, readerId: userIdOf(t, 'reader1@demo.test') });
     expect(same.status).toBe(409);
     expect(same.body.error.code).toBe('same_reader');
-    await reader1.post(`/api/spectra/${item.id}/readings`).send({ z: 0.3, grade: 3, class: 'galaxy' });
+    await reader1.post(`/api/spectra/${item.id}/readings`).send({ z: 0.3, grade: 'likely', class: 'galaxy' });
     const done = await lead.put(`/api/spectra/${item.id}/assignments`).send({ readingOrder: item.readingOrder, readerId: userIdOf(t, 'reader2@demo.test') });
     expect(done.status).toBe(409);
     expect(done.body.error.code).toBe('already_read');

@@ -128,8 +128,8 @@ describe('bad input never leaks internals', () => {
     const lead = await t.signIn('lead@demo.test');
     const res = await lead.patch('/api/campaigns/1').send({
       gradeScheme: [
-        { code: 1, label: 'yes', meaning: '' },
-        { code: 1, label: 'no', meaning: '' },
+        { code: 'a', label: 'yes', meaning: '' },
+        { code: 'A', label: 'no', meaning: '' },
       ],
     });
     expect(res.status).toBe(400);

@@ -17,7 +17,7 @@ beforeAll(async () => {
   const members = await signInDemoMembers(t);
   reader2 = members.reader2;
   lead = members.lead;
-  const saved = await members.reader1.post(`/api/spectra/${spectrumId}/readings`).send({ z: FIRST_Z, grade: 3, class: 'galaxy', lines: [], note: FIRST_NOTE });
+  const saved = await members.reader1.post(`/api/spectra/${spectrumId}/readings`).send({ z: FIRST_Z, grade: 'likely', class: 'galaxy', lines: [], note: FIRST_NOTE });
   expect(saved.status).toBe(200);
 }, 60_000);
 afterAll(() => t.cleanup());

@@ -39,13 +39,15 @@ describe('campaigns', () => {
       memberCount: 1,
       gradeScheme: DEFAULT_GRADE_SCHEME,
     });
-    expect(res.body.campaign.gradeScheme.map((g: { code: number; label: string }) => `${g.code}:${g.label}`)).toEqual([
-      '4:firm',
-      '3:probable',
-      '2:tentative',
-      '1:undetermined',
-      '0:unusable',
+    // Our own default: codes are words, grades are named by the chance the redshift is right.
+    expect(res.body.campaign.gradeScheme.map((g: { code: string; label: string }) => `${g.code}:${g.label}`)).toEqual([
+      'sure:sure',
+      'likely:likely',
+      'possible:possible',
+      'no-z:no redshift',
+      'unusable:unusable',
     ]);
+    expect(res.body.campaign.gradeScheme.map((g: { meaning: string }) => g.meaning.match(/^(At least 99|About 90|About 70) %/)?.[1] ?? null)).toEqual(['At least 99', 'About 90', 'About 70', null, null]);
   });
 
   it('records each settings change with the values before and after', async () => {
@@ -71,10 +73,22 @@ describe('campaigns', () => {
 
   it('lets a lead rename and extend the grade scheme', async () => {
     const lead = await t.signIn('lead@demo.test');
-    const scheme = [...DEFAULT_GRADE_SCHEME, { code: 9, label: 'star contaminant', meaning: 'A Milky Way cool dwarf.' }];
+    const scheme = [...DEFAULT_GRADE_SCHEME, { code: 'star', label: 'star contaminant', meaning: 'A Milky Way cool dwarf.' }];
     const res = await lead.patch('/api/campaigns/1').send({ gradeScheme: scheme });
     expect(res.status).toBe(200);
     expect(res.body.campaign.gradeScheme).toHaveLength(6);
+    expect(res.body.campaign.gradeScheme[5]).toEqual({ code: 'star', label: 'star contaminant', meaning: 'A Milky Way cool dwarf.' });
+  });
+
+  it('reads a numeric code from an older script as its digits, and refuses a code with spaces', async () => {
+    const lead = await t.signIn('lead@demo.test');
+    const digits = await lead.patch('/api/campaigns/1').send({ gradeScheme: [{ code: 2, label: 'good', meaning: '' }, { code: 1, label: 'poor', meaning: '' }] });
+    expect(digits.status).toBe(200);
+    expect(digits.body.campaign.gradeScheme.map((g: { code: string }) => g.code)).toEqual(['2', '1']);
+    const spaced = await lead.patch('/api/campaigns/1').send({ gradeScheme: [{ code: 'very sure', label: 'a', meaning: '' }, { code: 'b', label: 'b', meaning: '' }] });
+    expect(spaced.status).toBe(400);
+    expect(spaced.body.error.message).toMatch(/without spaces/);
+    expect((await lead.patch('/api/campaigns/1').send({ gradeScheme: DEFAULT_GRADE_SCHEME })).status).toBe(200);
   });
 
   it("creates a campaign that scans on each file's own sampling", async () => {

@@ -1,7 +1,8 @@
 import Papa from 'papaparse';
 import { XMLParser } from 'fast-xml-parser';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { targets } from '../../backend/src/db/schema';
+import { eq } from 'drizzle-orm';
+import { disagreements, targets } from '../../backend/src/db/schema';
 import { uploadAssignedSpectra } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -17,11 +18,11 @@ beforeAll(async () => {
   await lead.post('/api/campaigns/1/targets').attach('files', Buffer.from('id,ra,dec,zphot,zphot_l68,zphot_u68,family\nCNF-0001,160.51,-11.63,1.1,0.9,1.3,A\nCNF-0002,160.52,-11.64,1.0,0.8,1.2,A\nCNF-0003,160.53,-11.65,0.4,0.3,0.5,\n'), 'c.csv');
   const r1 = await t.signIn('reader1@demo.test');
   const r2 = await t.signIn('reader2@demo.test');
-  await r1.post(`/api/spectra/${ids[0]}/readings`).send({ z: 1.0, zErr: 0.001, grade: 4, class: 'galaxy', lines: ['H-beta'] });
-  await r2.post(`/api/spectra/${ids[0]}/readings`).send({ z: 1.001, zErr: 0.001, grade: 4, class: 'galaxy', lines: ['H-beta'] });
-  await r1.post(`/api/spectra/${ids[1]}/readings`).send({ z: 1.5, grade: 3, class: 'galaxy' });
-  await r2.post(`/api/spectra/${ids[1]}/readings`).send({ z: 1.51, grade: 3, class: 'galaxy' });
-  await r1.post(`/api/spectra/${ids[2]}/readings`).send({ z: 0.4, grade: 2, class: 'galaxy' });
+  await r1.post(`/api/spectra/${ids[0]}/readings`).send({ z: 1.0, zErr: 0.001, grade: 'sure', class: 'galaxy', lines: ['H-beta'] });
+  await r2.post(`/api/spectra/${ids[0]}/readings`).send({ z: 1.001, zErr: 0.001, grade: 'sure', class: 'galaxy', lines: ['H-beta'] });
+  await r1.post(`/api/spectra/${ids[1]}/readings`).send({ z: 1.5, grade: 'likely', class: 'galaxy' });
+  await r2.post(`/api/spectra/${ids[1]}/readings`).send({ z: 1.51, grade: 'likely', class: 'galaxy' });
+  await r1.post(`/api/spectra/${ids[2]}/readings`).send({ z: 0.4, grade: 'possible', class: 'galaxy' });
 }, 60_000);
 afterAll(() => t.cleanup());
 
@@ -31,7 +32,7 @@ describe('the confirmed table', () => {
     const res = await observer.get('/api/campaigns/1/confirmed');
     expect(res.status).toBe(200);
     expect(res.body.total).toBe(1);
-    expect(res.body.rows[0]).toMatchObject({ targetId: 'CNF-0001', gradeCode: 4, gradeLabel: 'firm', confirmedBy: 'agreement', imageFamily: 'A', photoZ: 1.1 });
+    expect(res.body.rows[0]).toMatchObject({ targetId: 'CNF-0001', gradeCode: 'sure', gradeLabel: 'sure', confirmedBy: 'agreement', imageFamily: 'A', photoZ: 1.1 });
     expect(res.body.rows[0].z).toBeCloseTo(1.0005, 10);
     expect(res.body.rows[0].readers).toEqual(['Rafael Demo (reader 1)', 'Rosa Demo (reader 2)']);
     expect(res.body.states).toEqual({ unread: 0, 'one reading': 1, agreed: 1, disagreement: 1, settled: 0 });
@@ -86,7 +87,7 @@ describe('the confirmed table', () => {
     // One confirmed value (z ≈ 1.0005) whose target has z_phot = 1.1: |Δz|/(1+z) = 0.0497, not an outlier.
     expect(res.body.photoZ).toMatchObject({ threshold: 0.15, n: 1, outlierFraction: 0 });
     expect(res.body.photoZ.points[0]).toMatchObject({ targetId: 'CNF-0001', zPhot: 1.1, outlier: false });
-    expect(res.body.gradeDistribution.find((g: { code: number }) => g.code === 4).count).toBe(1);
+    expect(res.body.gradeDistribution.find((g: { code: string }) => g.code === 'sure').count).toBe(1);
     // Two complete pairs: one agreed (Δz/(1+z) = 0.0005), one did not (0.004 > 0.003).
     expect(res.body.readerPairs).toEqual([{ readers: ['Rafael Demo (reader 1)', 'Rosa Demo (reader 2)'], n: 2, agreeFraction: 0.5, kappaOnGrades: 1 }]);
   });
@@ -97,6 +98,9 @@ describe('the confirmed table', () => {
     expect(res.status).toBe(200);
     const a = res.body.families.find((f: { family: string }) => f.family === 'A');
     expect(a).toMatchObject({ incomplete: true, flagged: true });
+    // CNF-0002's readings (1.5 and 1.51) disagree: its entry points at the open disagreement.
+    const open = t.ctx.db.select().from(disagreements).where(eq(disagreements.spectrumId, ids[1]!)).get()!;
+    expect(a.unconfirmed).toEqual([{ imageFamily: 'A', targetId: 'CNF-0002', spectrumId: ids[1], openDisagreementId: open.id }]);
     expect(t.ctx.db.select().from(targets).all()).toHaveLength(3);
   });
 });

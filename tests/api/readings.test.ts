@@ -38,13 +38,13 @@ describe('the reading queue', () => {
 });
 
 describe('readings', () => {
-  const good = { z: 0.2, grade: 4, class: 'galaxy', lines: ['H-alpha', '[N II] 6585'], note: 'Hα + [N II] clear' };
+  const good = { z: 0.2, grade: 'sure', class: 'galaxy', lines: ['H-alpha', '[N II] 6585'], note: 'Hα + [N II] clear' };
 
   it('saves a reading once: a double submit changes nothing', async () => {
     const id = spectrumIds[0]!;
     const first = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, timeSpentMs: 12_000 });
     expect(first.status, JSON.stringify(first.body)).toBe(200);
-    expect(first.body).toMatchObject({ changed: true, reading: { z: 0.2, grade: 4, class: 'galaxy', readingOrder: 'first', revision: 1, timeSpentMs: 12_000 } });
+    expect(first.body).toMatchObject({ changed: true, reading: { z: 0.2, grade: 'sure', class: 'galaxy', readingOrder: 'first', revision: 1, timeSpentMs: 12_000 } });
     const again = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, timeSpentMs: 12_000 });
     expect(again.body).toMatchObject({ changed: false, reading: { id: first.body.reading.id, revision: 1 } });
     expect(t.ctx.db.select().from(readings).where(eq(readings.spectrumId, id)).all()).toHaveLength(1);
@@ -53,11 +53,11 @@ describe('readings', () => {
 
   it('keeps every revision in the audit trail', async () => {
     const id = spectrumIds[0]!;
-    const revised = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, grade: 3, timeSpentMs: 3_000 });
-    expect(revised.body).toMatchObject({ changed: true, reading: { grade: 3, revision: 2, timeSpentMs: 15_000 } });
+    const revised = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, grade: 'likely', timeSpentMs: 3_000 });
+    expect(revised.body).toMatchObject({ changed: true, reading: { grade: 'likely', revision: 2, timeSpentMs: 15_000 } });
     const event = t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.action, 'reading.revised'), eq(auditEvents.subjectId, revised.body.reading.id))).orderBy(desc(auditEvents.id)).get()!;
-    expect(event.before).toMatchObject({ grade: 4, revision: 1 });
-    expect(event.after).toMatchObject({ grade: 3, revision: 2 });
+    expect(event.before).toMatchObject({ grade: 'sure', revision: 1 });
+    expect(event.after).toMatchObject({ grade: 'likely', revision: 2 });
   });
 
   it('is blind: the second reader never sees the first reading; the lead sees both', async () => {
@@ -83,9 +83,9 @@ describe('readings', () => {
     const outside = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, z: 9.5 });
     expect(outside.status).toBe(400);
     expect(outside.body.error).toEqual({ code: 'z_out_of_range', message: "z = 9.5 lies outside this campaign's range 0 ≤ z ≤ 9." });
-    const grade = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, grade: 7 });
+    const grade = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, grade: 'firm' });
     expect(grade.body.error.code).toBe('unknown_grade');
-    expect(grade.body.error.message).toBe("Grade 7 is not in this campaign's scheme: 4 (firm), 3 (probable), 2 (tentative), 1 (undetermined), 0 (unusable).");
+    expect(grade.body.error.message).toBe("Grade firm is not in this campaign's scheme: sure (sure), likely (likely), possible (possible), no-z (no redshift), unusable (unusable).");
     const line = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, lines: ['H-alpha', 'Unobtainium 5000'] });
     expect(line.body.error).toEqual({ code: 'unknown_line', message: 'Not in the line list: Unobtainium 5000.' });
     const cls = await reader1.post(`/api/spectra/${id}/readings`).send({ ...good, class: 'comet' });

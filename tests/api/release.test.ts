@@ -21,17 +21,17 @@ afterAll(() => t.cleanup());
 describe('agreement', () => {
   it('confirms two agreeing readings automatically with the inverse-variance mean and the lower grade', async () => {
     const id = ids[0]!;
-    const first = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.0, zErr: 0.001, grade: 4, class: 'galaxy', lines: ['H-beta'] });
+    const first = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.0, zErr: 0.001, grade: 'sure', class: 'galaxy', lines: ['H-beta'] });
     expect(first.body).not.toHaveProperty('outcome');
     expect((await lead.get(`/api/spectra/${id}/confirmed`)).body.history).toEqual([]);
-    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 1.002, zErr: 0.002, grade: 3, class: 'galaxy', lines: ['[O III] 5008'] });
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 1.002, zErr: 0.002, grade: 'likely', class: 'galaxy', lines: ['[O III] 5008'] });
     const history = (await observer.get(`/api/spectra/${id}/confirmed`)).body.history;
     expect(history).toHaveLength(1);
     // w = 1e6 and 2.5e5: z = (1e6·1.000 + 2.5e5·1.002)/1.25e6 = 1.0004; σ = 1/√1.25e6 = 8.944e-4
-    expect(history[0]).toMatchObject({ method: 'agreement', grade: 3, class: 'galaxy', isCurrent: true, lines: ['H-beta', '[O III] 5008'] });
+    expect(history[0]).toMatchObject({ method: 'agreement', grade: 'likely', class: 'galaxy', isCurrent: true, lines: ['H-beta', '[O III] 5008'] });
     expect(history[0].z).toBeCloseTo(1.0004, 10);
     expect(history[0].zErr).toBeCloseTo(8.94427e-4, 8);
-    const locked = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.1, grade: 4, class: 'galaxy' });
+    const locked = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.1, grade: 'sure', class: 'galaxy' });
     expect(locked.status).toBe(409);
     expect(locked.body.error.code).toBe('reading_locked');
   });
@@ -40,8 +40,8 @@ describe('agreement', () => {
 describe('disagreement and settlement', () => {
   it('opens a disagreement, e-mails the lead, and lets only the lead see both readings', async () => {
     const id = ids[1]!;
-    await reader1.post(`/api/spectra/${id}/readings`).send({ z: 0.5, grade: 4, class: 'galaxy', lines: ['H-alpha'] });
-    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 2.1, grade: 4, class: 'galaxy', lines: ['C III] 1909'] });
+    await reader1.post(`/api/spectra/${id}/readings`).send({ z: 0.5, grade: 'sure', class: 'galaxy', lines: ['H-alpha'] });
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 2.1, grade: 'sure', class: 'galaxy', lines: ['C III] 1909'] });
     const list = await lead.get('/api/campaigns/1/disagreements');
     expect(list.status).toBe(200);
     expect(list.body).toHaveLength(1);
@@ -68,20 +68,20 @@ describe('disagreement and settlement', () => {
     expect(byObserver.status).toBe(403);
     const noReason = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'first' });
     expect(noReason.status).toBe(400);
-    const settled = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'new', z: 0.5003, grade: 3, class: 'galaxy', lines: ['H-alpha', '[N II] 6585'], reason: 'Hα + [N II] resolved; the 2.1 reading took Hα for C III].' });
+    const settled = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'new', z: 0.5003, grade: 'likely', class: 'galaxy', lines: ['H-alpha', '[N II] 6585'], reason: 'Hα + [N II] resolved; the 2.1 reading took Hα for C III].' });
     expect(settled.status).toBe(200);
     expect((await lead.get('/api/campaigns/1/disagreements')).body).toEqual([]);
     const again = await lead.post(`/api/disagreements/${d.id}/settle`).send({ choice: 'second', reason: 'changed my mind' });
     expect(again.status).toBe(409);
     const history = (await observer.get(`/api/spectra/${d.spectrumId}/confirmed`)).body.history;
     expect(history).toEqual([
-      expect.objectContaining({ method: 'settlement', z: 0.5003, grade: 3, decidedBy: 'Lena Demo (lead)', reason: 'Hα + [N II] resolved; the 2.1 reading took Hα for C III].', isCurrent: true }),
+      expect.objectContaining({ method: 'settlement', z: 0.5003, grade: 'likely', decidedBy: 'Lena Demo (lead)', reason: 'Hα + [N II] resolved; the 2.1 reading took Hα for C III].', isCurrent: true }),
     ]);
   });
 
   it('corrects a released value with a new record that supersedes it, deleting nothing', async () => {
     const id = ids[1]!;
-    const res = await lead.post(`/api/spectra/${id}/corrections`).send({ z: 0.50034, zErr: 0.00005, grade: 4, class: 'galaxy', lines: ['H-alpha'], reason: 'Refit with the sky-line mask.' });
+    const res = await lead.post(`/api/spectra/${id}/corrections`).send({ z: 0.50034, zErr: 0.00005, grade: 'sure', class: 'galaxy', lines: ['H-alpha'], reason: 'Refit with the sky-line mask.' });
     expect(res.status).toBe(200);
     const history = (await lead.get(`/api/spectra/${id}/confirmed`)).body.history;
     expect(history.map((h: { method: string; isCurrent: boolean; z: number }) => [h.method, h.isCurrent, h.z])).toEqual([
@@ -90,8 +90,8 @@ describe('disagreement and settlement', () => {
     ]);
     expect(history[1].supersedesId).toBe(history[0].id);
     expect(t.ctx.db.select().from(confirmedRedshifts).where(eq(confirmedRedshifts.spectrumId, id)).all()).toHaveLength(2);
-    expect((await reader1.post(`/api/spectra/${id}/corrections`).send({ z: 1, grade: 4, class: 'galaxy', reason: 'mine' })).status).toBe(403);
-    const unconfirmed = await lead.post(`/api/spectra/${ids[2]}/corrections`).send({ z: 1, grade: 4, class: 'galaxy', reason: 'nothing to correct' });
+    expect((await reader1.post(`/api/spectra/${id}/corrections`).send({ z: 1, grade: 'sure', class: 'galaxy', reason: 'mine' })).status).toBe(403);
+    const unconfirmed = await lead.post(`/api/spectra/${ids[2]}/corrections`).send({ z: 1, grade: 'sure', class: 'galaxy', reason: 'nothing to correct' });
     expect(unconfirmed.status).toBe(409);
     expect(unconfirmed.body.error.code).toBe('not_confirmed');
   });
@@ -100,8 +100,8 @@ describe('disagreement and settlement', () => {
 describe('a third reader', () => {
   it('settles a disagreement the lead hands over, and only that one', async () => {
     const id = ids[2]!;
-    await reader1.post(`/api/spectra/${id}/readings`).send({ z: 0.7, grade: 4, class: 'galaxy' });
-    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 0.7, grade: 4, class: 'quasar' });
+    await reader1.post(`/api/spectra/${id}/readings`).send({ z: 0.7, grade: 'sure', class: 'galaxy' });
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 0.7, grade: 'sure', class: 'quasar' });
     const d = (await lead.get('/api/campaigns/1/disagreements')).body.find((x: { spectrumId: number }) => x.spectrumId === id);
     expect(d.reasons).toEqual(['class']);
 

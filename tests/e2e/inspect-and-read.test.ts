@@ -80,21 +80,21 @@ it('a reader drags the comb, snaps to the top solution and saves a graded readin
   await top.click();
   await expect.poll(() => trialZ.inputValue()).toBe(topZ.toFixed(5));
 
-  // Keyboard only: leave the button, give grade 4 with Shift — it saves and moves on.
+  // Keyboard only: leave the button, give the first grade (sure) with Shift + 1 — it saves and moves on.
   await page.keyboard.press('Escape');
   await page.locator('body').focus();
-  await page.keyboard.press('Shift+Digit4');
+  await page.keyboard.press('Shift+Digit1');
   await expect.poll(currentId, { timeout: 15_000 }).not.toBe(spectrumId);
   expect(currentId()).toBe(queue[1].id);
   // The screen stays mounted, but the comb starts afresh on the next spectrum's top solution; view settings carry over.
   const nextDetail = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), queue[1].id);
   await expect.poll(() => trialZ.inputValue()).toBe((nextDetail.scan.solutions[0].z as number).toFixed(5));
   await expect.poll(() => page.getByLabel('Smoothing', { exact: true }).inputValue()).toBe('gaussian');
-  await expect.poll(() => page.getByRole('status').allTextContents()).toContainEqual(expect.stringMatching(/^Saved .*grade 4/));
+  await expect.poll(() => page.getByRole('status').allTextContents()).toContainEqual(expect.stringMatching(/^Saved .*grade sure,/));
 
   const saved = await page.evaluate(async (id) => (await fetch(`/api/spectra/${id}`)).json(), spectrumId);
   expect(saved.readings).toHaveLength(1);
-  expect(saved.readings[0]).toMatchObject({ grade: 4, readingOrder: 'first' });
+  expect(saved.readings[0]).toMatchObject({ grade: 'sure', readingOrder: 'first' });
   expect(saved.readings[0].z).toBeCloseTo(topZ, 5);
   expect(pageErrors).toEqual([]);
 });

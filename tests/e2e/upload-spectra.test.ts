@@ -39,9 +39,16 @@ it('a lead imports a catalogue, uploads a zip, watches it scan, and sees the top
   await expect.poll(() => scan.getAttribute('aria-valuenow'), { timeout: 60_000 }).toBe('15');
   const summary = page.locator('dl[aria-label="Upload summary"]');
   await expect.poll(() => summary.textContent(), { timeout: 30_000 }).toMatch(/Stored\s*12.*Linked\s*12.*Failed\s*3/s);
-  const failed = page.getByRole('table', { name: 'Files that could not be read' });
-  await expect.poll(() => failed.textContent()).toContain('night-e2e.zip/broken/empty.txt');
-  await expect.poll(() => failed.textContent()).toContain('The file is empty.');
+  // Each file: what happened, its target, its top solution (a link to the spectrum), its readers.
+  const files = page.getByRole('table', { name: 'What happened to each file' });
+  const emptyRow = files.getByRole('row').filter({ hasText: 'night-e2e.zip/broken/empty.txt' });
+  await expect.poll(() => emptyRow.textContent(), { timeout: 30_000 }).toMatch(/failed.*The file is empty\./);
+  const firstFile = files.getByRole('row').filter({ hasText: 'E2E-0001.csv' });
+  expect(await firstFile.textContent()).toMatch(/stored.*E2E-0001.*by id in the file name.*z = \d\.\d{5}.*0 of 2/);
+  expect(await firstFile.getByRole('link', { name: /^z = / }).getAttribute('href')).toMatch(/^\/spectra\/\d+$/);
+  // The new spectra go to readers from here (the Assign page's own assignment).
+  await page.getByRole('button', { name: 'Assign unassigned spectra' }).click();
+  await expect.poll(() => firstFile.textContent(), { timeout: 30_000 }).toMatch(/2 of 2/);
 
   // The spectra list shows each spectrum's target and top solution.
   await page.goto(`${server.url}/campaigns/1/spectra`);

@@ -94,7 +94,8 @@ describe('CSV export', () => {
     expect(comments.agreement_tolerance).toMatch(/^0\.002 /);
     expect(comments.exported_at).toBe(ASSUMPTIONS.exportedAt);
     expect(comments.software).toBe(ASSUMPTIONS.software);
-    expect(comments['grade.4']).toMatch(/^firm: /);
+    expect(comments['grade.sure']).toMatch(/^sure: At least 99 %/);
+    expect(comments['grade.no-z']).toMatch(/^no redshift: /);
     expect(comments['column.ra']).toMatch(/\[deg\]$/);
     expect(comments['column.lookback_time']).toMatch(/\[Gyr\]$/);
   });

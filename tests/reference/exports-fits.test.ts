@@ -111,7 +111,7 @@ describe('FITS binary-table export against the FITS 4.0 rules', () => {
     expect(v('SOFTWARE')).toBe(ASSUMPTIONS.software);
     expect(v('DATE')).toBe('2025-03-14T09:26:53.000');
     const comments = ext.cards.filter((c) => c.key === 'COMMENT').map((c) => c.raw.slice(8).trim()).join(' ');
-    expect(comments).toContain('Grade 4 = firm');
+    expect(comments).toContain('Grade sure = sure: At least 99 %');
   });
 
   it('reads back big-endian: D as float64 (NaN for null), K with TNULL for null, A trimmed (NUL-first for null)', () => {

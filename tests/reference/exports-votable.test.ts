@@ -60,7 +60,7 @@ describe('VOTable export against IVOA VOTable REC 1.4/1.5 and the UCD list', () 
     expect(byName.ra).toMatchObject({ unit: 'deg', ucd: 'pos.eq.ra;meta.main' });
     expect(byName.dec).toMatchObject({ unit: 'deg', ucd: 'pos.eq.dec;meta.main' });
     expect(byName.photo_z).toMatchObject({ ucd: 'src.redshift.phot' });
-    expect(byName.grade_code).toMatchObject({ datatype: 'int', ucd: 'meta.code.qual' });
+    expect(byName.grade_code).toMatchObject({ datatype: 'char', ucd: 'meta.code.qual' });
     expect(byName.lookback_time).toMatchObject({ unit: 'Gyr' });
     expect(byName.luminosity_distance).toMatchObject({ unit: 'Mpc' });
     // 'Zoë Ångström' is not ASCII, which VOTable 1.4 char cannot hold.
@@ -87,7 +87,7 @@ describe('VOTable export against IVOA VOTable REC 1.4/1.5 and the UCD list', () 
     expect(infos.cosmology_omega_m).toBe('0.315');
     expect(infos.exported_at).toBe(ASSUMPTIONS.exportedAt);
     expect(infos.software).toBe(ASSUMPTIONS.software);
-    expect(infos['grade.4']).toMatch(/^firm: two or more/);
+    expect(infos['grade.sure']).toMatch(/^sure: At least 99 % sure/);
     const grade = fields.find((f) => f.name === 'grade_code')!;
     const options = (grade.VALUES as Node).OPTION as Node[];
     expect(options.map((o) => [o.value, o.name])).toEqual(ASSUMPTIONS.gradeScheme.map((g) => [String(g.code), g.label]));

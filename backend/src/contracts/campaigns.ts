@@ -72,7 +72,21 @@ export const campaignSchema = z.object({
 });
 export type Campaign = z.infer<typeof campaignSchema>;
 
-export const campaignListResponseSchema = z.object({ campaigns: z.array(campaignSchema) });
+/** How far a campaign's reading has come, per spectrum: no reading yet, in reading, agreed by two readers, confirmed (by any route), with an open disagreement. */
+export const campaignProgressSchema = z.object({
+  spectra: z.number().int(),
+  unread: z.number().int(),
+  /** Null for a reader of the campaign: readings are blind, and how many agreed would tell. */
+  agreed: z.number().int().nullable(),
+  confirmed: z.number().int(),
+  openDisagreements: z.number().int().nullable(),
+});
+export type CampaignProgress = z.infer<typeof campaignProgressSchema>;
+
+export const campaignListItemSchema = campaignSchema.extend({ progress: campaignProgressSchema });
+export type CampaignListItem = z.infer<typeof campaignListItemSchema>;
+
+export const campaignListResponseSchema = z.object({ campaigns: z.array(campaignListItemSchema) });
 export const campaignResponseSchema = z.object({ campaign: campaignSchema });
 
 export const memberSchema = z.object({

@@ -33,6 +33,31 @@ export const jobProgressSchema = z.object({
 });
 export type JobProgress = z.infer<typeof jobProgressSchema>;
 
+/** What became of one file of a job: stored, a duplicate or failed (why); its target or none; its top solution once scanned. */
+export const jobFileSchema = z.object({
+  file: z.string(),
+  state: z.enum(['pending', 'done', 'failed']),
+  outcome: z.enum(['stored', 'duplicate', 'rescanned']).nullable(),
+  error: z.object({ code: z.string(), message: z.string() }).nullable(),
+  spectrumId: z.number().int().nullable(),
+  target: z.object({ id: z.number().int(), catalogueId: z.string(), linkMethod: z.string().nullable() }).nullable(),
+  objectName: z.string().nullable(),
+  instrument: z.string().nullable(),
+  scan: z.object({ zBest: z.number().nullable(), spectrumClass: z.string() }).nullable(),
+  /** First and second readers assigned to the spectrum (0–2). */
+  readersAssigned: z.number().int(),
+});
+export type JobFile = z.infer<typeof jobFileSchema>;
+
+export const jobFilesSchema = z.object({
+  jobId: z.number().int(),
+  files: z.array(jobFileSchema),
+  /** All files of the job; `files` holds the first MAX of them in upload order when truncated. */
+  total: z.number().int(),
+  truncated: z.boolean(),
+});
+export type JobFiles = z.infer<typeof jobFilesSchema>;
+
 export const uploadReceiptSchema = z.object({
   jobId: z.number().int(),
   files: z.number().int(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { gradeCodeSchema } from './grades';
 
 export const SPECTRUM_CLASSES = ['galaxy', 'quasar', 'star', 'lyman-break', 'unknown'] as const;
 export const spectrumClassSchema = z.enum(SPECTRUM_CLASSES);
@@ -9,7 +10,8 @@ export const submitReadingRequestSchema = z
   .object({
     z: z.number().finite().min(-0.01, 'A redshift below −0.01 is not physical here.').max(12),
     zErr: z.number().finite().positive().max(1).optional(),
-    grade: z.number().int().min(0).max(99),
+    /** A code of the campaign's grade scheme. */
+    grade: gradeCodeSchema,
     class: spectrumClassSchema,
     /** Names from the line list (as on the comb) that support the redshift. */
     lines: z.array(z.string().min(1).max(60)).max(40).default([]),
@@ -19,6 +21,8 @@ export const submitReadingRequestSchema = z
   })
   .strict();
 export type SubmitReadingRequest = z.input<typeof submitReadingRequestSchema>;
+/** A submitted reading as the server reads it (grade codes as text). */
+export type SubmittedReading = z.infer<typeof submitReadingRequestSchema>;
 
 export const readingSchema = z.object({
   id: z.number().int(),
@@ -27,7 +31,7 @@ export const readingSchema = z.object({
   readingOrder: z.enum(['first', 'second']),
   z: z.number(),
   zErr: z.number().nullable(),
-  grade: z.number().int(),
+  grade: z.string(),
   class: spectrumClassSchema,
   lines: z.array(z.string()),
   note: z.string(),

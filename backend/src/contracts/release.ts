@@ -1,10 +1,11 @@
 import { z } from 'zod';
+import { gradeCodeSchema } from './grades';
 import { readingSchema, spectrumClassSchema } from './readings';
 
 const decidedValueSchema = z.object({
   z: z.number().finite().min(-0.01).max(12),
   zErr: z.number().finite().positive().max(1).optional(),
-  grade: z.number().int().min(0).max(99),
+  grade: gradeCodeSchema,
   class: spectrumClassSchema,
   lines: z.array(z.string().min(1).max(60)).max(40).default([]),
 });
@@ -15,17 +16,19 @@ export const settleRequestSchema = z.discriminatedUnion('choice', [
   decidedValueSchema.extend({ choice: z.literal('new'), reason: z.string().trim().min(3, 'Say why, in a few words.').max(2000) }).strict(),
 ]);
 export type SettleRequest = z.input<typeof settleRequestSchema>;
+export type SettleDecision = z.infer<typeof settleRequestSchema>;
 
 /** A correction of a released value: a new record that supersedes the current one. */
 export const correctionRequestSchema = decidedValueSchema.extend({ reason: z.string().trim().min(3, 'Say why, in a few words.').max(2000) }).strict();
 export type CorrectionRequest = z.input<typeof correctionRequestSchema>;
+export type CorrectionDecision = z.infer<typeof correctionRequestSchema>;
 
 export const confirmedRedshiftSchema = z.object({
   id: z.number().int(),
   spectrumId: z.number().int(),
   z: z.number(),
   zErr: z.number().nullable(),
-  grade: z.number().int(),
+  grade: z.string(),
   class: spectrumClassSchema,
   lines: z.array(z.string()),
   method: z.enum(['agreement', 'settlement', 'correction']),
@@ -74,7 +77,8 @@ export const confirmedQuerySchema = z.object({
   format: z.enum(EXPORT_FORMATS).default('json'),
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(1000).default(100),
-  grade: z.coerce.number().int().optional(),
+  /** A grade code of the campaign's scheme. */
+  grade: z.string().trim().min(1).max(16).optional(),
   class: spectrumClassSchema.optional(),
   family: z.string().trim().max(80).optional(),
   /** How the value was confirmed: agreed by two readers, settled, or corrected after release. */
@@ -93,7 +97,7 @@ export const confirmedRowSchema = z.object({
   dec: z.number().nullable(),
   z: z.number(),
   zErr: z.number().nullable(),
-  gradeCode: z.number().int(),
+  gradeCode: z.string(),
   gradeLabel: z.string(),
   spectrumClass: spectrumClassSchema,
   lines: z.array(z.string()),
@@ -127,9 +131,9 @@ export type ConfirmedPage = z.infer<typeof confirmedPageSchema>;
 /** The consistency check of one image family (GET /api/campaigns/:id/families). */
 export const familyCheckSchema = z.object({
   family: z.string(),
-  members: z.array(z.object({ targetId: z.string().nullable(), spectrumId: z.number().int(), recordId: z.number().int(), z: z.number(), gradeCode: z.number().int(), gradeLabel: z.string() })),
+  members: z.array(z.object({ targetId: z.string().nullable(), spectrumId: z.number().int(), recordId: z.number().int(), z: z.number(), gradeCode: z.string(), gradeLabel: z.string() })),
   /** Images of the family without a confirmed redshift yet. */
-  unconfirmed: z.array(z.object({ imageFamily: z.string(), targetId: z.string().nullable(), spectrumId: z.number().int().nullable() })),
+  unconfirmed: z.array(z.object({ imageFamily: z.string(), targetId: z.string().nullable(), spectrumId: z.number().int().nullable(), openDisagreementId: z.number().int().nullable().optional() })),
   meanZ: z.number().nullable(),
   /** (max z − min z)/(1 + mean z) over the confirmed members. */
   spread: z.number().nullable(),
@@ -149,7 +153,7 @@ export const campaignStatisticsSchema = z.object({
     sigmaNmad: z.number().nullable(),
     points: z.array(z.object({ spectrumId: z.number().int(), targetId: z.string().nullable(), zSpec: z.number(), zPhot: z.number(), outlier: z.boolean() })),
   }),
-  gradeDistribution: z.array(z.object({ code: z.number().int(), label: z.string(), count: z.number().int() })),
+  gradeDistribution: z.array(z.object({ code: z.string(), label: z.string(), count: z.number().int() })),
   readerPairs: z.array(z.object({ readers: z.tuple([z.string(), z.string()]), n: z.number().int(), agreeFraction: z.number(), kappaOnGrades: z.number().nullable() })),
   readingTime: z.array(z.object({ reader: z.string(), readings: z.number().int(), medianMs: z.number().nullable() })),
 });

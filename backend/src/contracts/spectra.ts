@@ -9,6 +9,15 @@ import { z } from 'zod';
  * services/spectrum-detail.ts from the scan result) and GET /api/spectra/:id/scan-curves.
  */
 
+/** A file's flux unit, normalised (spectra/types.ts FluxUnit): file value × scale is in `unit`. */
+export const fluxUnitSchema = z.object({
+  quantity: z.enum(['f-lambda', 'f-nu', 'counts', 'count-rate', 'arbitrary']),
+  scale: z.number().positive(),
+  unit: z.string(),
+  raw: z.string().nullable(),
+});
+export type FluxUnitView = z.infer<typeof fluxUnitSchema>;
+
 const solutionLineSchema = z.object({ name: z.string(), rest: z.number(), observed: z.number() });
 
 export const solutionSchema = z.object({
@@ -87,6 +96,8 @@ export const spectrumDetailSchema = z.object({
     instrument: z.string().nullable(),
     exposureS: z.number().nullable(),
     dateObs: z.string().nullable(),
+    /** Null for spectra stored before units were read (the data endpoint re-reads it from the file). */
+    fluxUnit: fluxUnitSchema.nullable(),
     medium: z.string(),
     pixels: z.number().int(),
     wavelengthMin: z.number(),

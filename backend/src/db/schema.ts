@@ -1,10 +1,21 @@
 import { sql } from 'drizzle-orm';
-import { blob, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
-import type { GradeScheme } from '../contracts/grades';
+import { blob, customType, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import { readStoredGradeScheme, type GradeScheme } from '../contracts/grades';
+import type { FluxUnit } from '../spectra/types';
 
 // Timestamps are ISO-8601 UTC strings: readable in the SQLite shell and sortable as text.
 const now = sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`;
 const createdAt = () => text('created_at').notNull().default(now);
+
+/**
+ * A grade scheme, stored as JSON text as written. Read through readStoredGradeScheme, so schemes
+ * saved with the numeric codes of before (4 … 0) come back as text codes without being rewritten.
+ */
+const gradeSchemeJson = customType<{ data: GradeScheme; driverData: string }>({
+  dataType: () => 'text',
+  toDriver: (scheme) => JSON.stringify(scheme),
+  fromDriver: (stored) => readStoredGradeScheme(JSON.parse(stored)),
+});
 
 export const users = sqliteTable('users', {
   id: integer('id').primaryKey({ autoIncrement: true }),
@@ -29,7 +40,7 @@ export const campaigns = sqliteTable('campaigns', {
   gridStep: text('grid_step', { enum: ['default', 'native'] }).notNull().default('default'),
   /** Agreement tolerance between two readings, in |Δz|/(1+z). */
   tolerance: real('tolerance').notNull().default(0.003),
-  gradeScheme: text('grade_scheme', { mode: 'json' }).$type<GradeScheme>().notNull(),
+  gradeScheme: gradeSchemeJson('grade_scheme').notNull(),
   createdBy: integer('created_by').references(() => users.id),
   createdAt: createdAt(),
   updatedAt: text('updated_at').notNull().default(now),
@@ -196,6 +207,8 @@ export const spectra = sqliteTable(
     instrument: text('instrument'),
     exposureS: real('exposure_s'),
     dateObs: text('date_obs'),
+    /** The file's flux unit, normalised (null for spectra stored before units were read: re-read from the file). */
+    fluxUnit: text('flux_unit', { mode: 'json' }).$type<FluxUnit>(),
     medium: text('medium', { enum: ['air', 'vacuum'] }).notNull(),
     pixels: integer('pixels').notNull(),
     wavelengthMin: real('wavelength_min').notNull(),
@@ -276,7 +289,8 @@ export const readings = sqliteTable(
     readingOrder: text('reading_order', { enum: READING_ORDERS }).notNull(),
     z: real('z').notNull(),
     zErr: real('z_err'),
-    grade: integer('grade').notNull(),
+    /** The grade's code in the campaign's scheme ("sure"; "4" in schemes made before codes were words). */
+    grade: text('grade').notNull(),
     spectrumClass: text('spectrum_class', { enum: SPECTRUM_CLASSES }).notNull(),
     lines: text('lines', { mode: 'json' }).$type<string[]>().notNull(),
     note: text('note').notNull().default(''),
@@ -305,7 +319,8 @@ export const confirmedRedshifts = sqliteTable(
     spectrumId: integer('spectrum_id').notNull().references(() => spectra.id),
     z: real('z').notNull(),
     zErr: real('z_err'),
-    grade: integer('grade').notNull(),
+    /** The grade's code in the campaign's scheme ("sure"; "4" in schemes made before codes were words). */
+    grade: text('grade').notNull(),
     spectrumClass: text('spectrum_class', { enum: SPECTRUM_CLASSES }).notNull(),
     lines: text('lines', { mode: 'json' }).$type<string[]>().notNull(),
     method: text('method', { enum: ['agreement', 'settlement', 'correction'] }).notNull(),

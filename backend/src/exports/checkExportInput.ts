@@ -2,6 +2,8 @@ import type { ConfirmedRow, ExportAssumptions } from './types';
 
 const CLASSES = new Set(['galaxy', 'quasar', 'star', 'lyman-break', 'unknown']);
 const HOW = new Set(['agreement', 'settlement', 'correction']);
+/** As contracts/grades.ts allows: a word, so it stays one token in every format. */
+const GRADE_CODE = /^[A-Za-z0-9][A-Za-z0-9_.+-]{0,15}$/;
 
 /**
  * Checks the rows and assumptions once at the entry of every writer, so the writers can trust
@@ -20,9 +22,9 @@ export function checkExportInput(rows: readonly ConfirmedRow[], assumptions: Exp
     throw new RangeError(`The cosmology must be flat (Ω_m + Ω_Λ = 1), got Ω_m=${cosmology.omegaM}, Ω_Λ=${cosmology.omegaLambda}.`);
   }
   if (!(tolerance >= 0) || !Number.isFinite(tolerance)) throw new RangeError(`The agreement tolerance must be a finite number ≥ 0, got ${tolerance}.`);
-  const codes = new Set<number>();
+  const codes = new Set<string>();
   for (const g of gradeScheme) {
-    if (!Number.isInteger(g.code) || codes.has(g.code)) throw new RangeError(`Grade codes must be distinct integers; '${g.label}' has code ${g.code}.`);
+    if (!GRADE_CODE.test(g.code) || codes.has(g.code)) throw new RangeError(`Grade codes must be distinct words without spaces; '${g.label}' has code '${g.code}'.`);
     codes.add(g.code);
   }
   if (Number.isNaN(Date.parse(assumptions.exportedAt))) throw new RangeError(`exportedAt '${assumptions.exportedAt}' is not an ISO-8601 time.`);
@@ -31,11 +33,10 @@ export function checkExportInput(rows: readonly ConfirmedRow[], assumptions: Exp
 
 function checkRow(r: ConfirmedRow): void {
   const at = `Confirmed record ${r.id}`;
-  for (const [name, v] of [['id', r.id], ['spectrumId', r.spectrumId], ['gradeCode', r.gradeCode]] as const) {
+  for (const [name, v] of [['id', r.id], ['spectrumId', r.spectrumId]] as const) {
     if (!Number.isSafeInteger(v)) throw new RangeError(`${at}: ${name} must be an integer, got ${v}.`);
   }
-  // The grade is stored as a 32-bit integer in FITS (TFORM 'J').
-  if (Math.abs(r.gradeCode) >= 2 ** 31) throw new RangeError(`${at}: gradeCode ${r.gradeCode} does not fit a 32-bit integer.`);
+  if (!GRADE_CODE.test(r.gradeCode)) throw new RangeError(`${at}: grade code '${r.gradeCode}' is not a word without spaces.`);
   if (r.supersedes !== null && !Number.isSafeInteger(r.supersedes)) throw new RangeError(`${at}: supersedes must be an integer or null, got ${r.supersedes}.`);
   if (!Number.isFinite(r.z)) throw new RangeError(`${at}: z must be a finite number, got ${r.z}.`);
   const optional = { ra: r.ra, dec: r.dec, zErr: r.zErr, photoZ: r.photoZ, photoZLow: r.photoZLow, photoZHigh: r.photoZHigh, interloperZ: r.interloperZ, interloperDeltaChi2: r.interloperDeltaChi2, starDeltaChi2: r.starDeltaChi2 };

@@ -26,7 +26,7 @@ export const CONFIRMED_COLUMNS: readonly ExportColumn[] = [
   { name: 'dec', kind: 'double', unit: 'deg', ucd: 'pos.eq.dec;meta.main', description: 'Declination, J2000' },
   { name: 'z', kind: 'double', ucd: 'src.redshift', description: 'Confirmed spectroscopic redshift (vacuum wavelengths)' },
   { name: 'z_err', kind: 'double', ucd: 'stat.error;src.redshift', description: 'One-sigma uncertainty of z' },
-  { name: 'grade_code', kind: 'int', ucd: 'meta.code.qual', description: 'Grade code in the campaign grade scheme' },
+  { name: 'grade_code', kind: 'string', ucd: 'meta.code.qual', description: 'Grade code in the campaign grade scheme' },
   { name: 'grade_label', kind: 'string', ucd: 'meta.code.qual', description: 'Grade label in the campaign grade scheme' },
   { name: 'class', kind: 'string', ucd: 'src.class', description: 'Class: galaxy, quasar, star, lyman-break or unknown' },
   { name: 'lines', kind: 'string', ucd: 'meta.id;spect.line', description: "Features supporting z, separated by ';'" },

@@ -6,7 +6,7 @@ export interface FamilyMember {
   spectrumId: number;
   recordId: number;
   z: number;
-  gradeCode: number;
+  gradeCode: string;
   gradeLabel: string;
 }
 

@@ -35,7 +35,7 @@ export function toEcsv(rows: readonly ConfirmedRow[], assumptions: ExportAssumpt
     `  agreement_tolerance: ${yamlNumber(a.tolerance)}`,
     `  agreement_tolerance_meaning: ${yamlString('|dz|/(1+z)')}`,
     '  grade_scheme:',
-    ...a.gradeScheme.map((g) => `  - {code: ${g.code}, label: ${yamlString(g.label)}, meaning: ${yamlString(g.meaning)}}`),
+    ...a.gradeScheme.map((g) => `  - {code: ${yamlString(g.code)}, label: ${yamlString(g.label)}, meaning: ${yamlString(g.meaning)}}`),
     `  exported_at: ${yamlString(a.exportedAt)}`,
     `  software: ${yamlString(a.software)}`,
     `  derived_columns: ${yamlString(DERIVED_NOTE)}`,

@@ -24,7 +24,7 @@ function field(col: ExportColumn, values: Cell[], assumptions: ExportAssumptions
   // The grade scheme belongs to the grade column: VALUES/OPTION is VOTable's own list of codes.
   const options =
     col.name === 'grade_code'
-      ? `<VALUES>${assumptions.gradeScheme.map((g) => `<OPTION name="${xmlText(g.label)}" value="${g.code}"/>`).join('')}</VALUES>`
+      ? `<VALUES>${assumptions.gradeScheme.map((g) => `<OPTION name="${xmlText(g.label)}" value="${xmlText(g.code)}"/>`).join('')}</VALUES>`
       : '';
   return `      <FIELD name="${col.name}" ${fieldType(col, values)}${unit} ucd="${col.ucd}"${ref}><DESCRIPTION>${xmlText(col.description)}</DESCRIPTION>${options}</FIELD>\n`;
 }

@@ -12,7 +12,7 @@ export interface ConfirmedRow {
   dec: number | null;
   z: number;
   zErr: number | null;
-  gradeCode: number;
+  gradeCode: string;
   gradeLabel: string;
   spectrumClass: SpectrumClass;
   /** Names of the features that support the redshift. */
@@ -48,7 +48,7 @@ export interface ExportAssumptions {
   cosmology: { name: string; h0: number; omegaM: number; omegaLambda: number; flat: true };
   /** Agreement tolerance on |Δz|/(1+z). */
   tolerance: number;
-  gradeScheme: { code: number; label: string; meaning: string }[];
+  gradeScheme: { code: string; label: string; meaning: string }[];
   /** ISO-8601 UTC. */
   exportedAt: string;
   /** e.g. "Redward 0.1.0 / redward-engine/0.2.0". */
@@ -60,4 +60,6 @@ export interface UnconfirmedMember {
   imageFamily: string;
   targetId: string | null;
   spectrumId: number | null;
+  /** The open disagreement holding it back, if any: where a lead goes to settle it. */
+  openDisagreementId?: number | null;
 }

@@ -69,6 +69,7 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
           instrument: meta.instrument ?? null,
           exposureS: meta.exposureS ?? null,
           dateObs: meta.dateObs ?? null,
+          fluxUnit: result.spectrum.fluxUnit,
           medium: meta.medium,
           pixels: result.spectrum.pixels,
           wavelengthMin: result.spectrum.wavelengthMin,

@@ -4,7 +4,7 @@ import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
 import { scanSpectrum, type ScanResult, type Solution } from '../spectra/scanSpectrum';
 import { solutionModel } from '../spectra/solutionModel';
-import type { SpectrumMeta } from '../spectra/types';
+import type { FluxUnit, SpectrumMeta } from '../spectra/types';
 import { packCurves } from './scan-curves';
 
 export interface ScanTask {
@@ -22,6 +22,7 @@ export function engineStep(gridStep: GridStep | undefined): { step?: 'native' } 
 
 export interface SpectrumSummary {
   meta: SpectrumMeta;
+  fluxUnit: FluxUnit;
   pixels: number;
   wavelengthMin: number;
   wavelengthMax: number;
@@ -49,7 +50,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
     return { ok: false, code: 'unreadable', message: `The file could not be read: ${(err as Error).message}` };
   }
   const n = spectrum.wavelength.length;
-  const summary = { meta: spectrum.meta, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! };
+  const summary = { meta: spectrum.meta, fluxUnit: spectrum.fluxUnit, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! };
   try {
     const { curves, ...scan } = scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) });
     return { ok: true, spectrum: summary, scanned: { ok: true, scan, curves: packCurves(curves) } };

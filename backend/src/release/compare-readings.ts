@@ -3,7 +3,7 @@ import type { GradeScheme } from '../contracts/grades';
 export interface ReadingValues {
   z: number;
   zErr: number | null;
-  grade: number;
+  grade: string;
   spectrumClass: string;
   lines: string[];
 }
@@ -11,7 +11,7 @@ export interface ReadingValues {
 export type DisagreementReason = 'z' | 'grade' | 'class';
 
 /** Position of a grade in the scheme, 0 = most confident (schemes are listed highest first). */
-function rank(scheme: GradeScheme, code: number): number {
+function rank(scheme: GradeScheme, code: string): number {
   const i = scheme.findIndex((g) => g.code === code);
   if (i < 0) throw new RangeError(`Grade ${code} is not in the campaign's scheme.`);
   return i;

@@ -2,8 +2,8 @@ import { Router, type Request } from 'express';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
-import { jobListSchema, jobProgressSchema, rescanRequestSchema, rescanResponseSchema, scanStatusSchema } from '../contracts/ingest';
-import { cancelJob, getJobProgress, jobCampaignId, listCampaignJobs } from '../services/job-progress';
+import { jobFilesSchema, jobListSchema, jobProgressSchema, rescanRequestSchema, rescanResponseSchema, scanStatusSchema } from '../contracts/ingest';
+import { cancelJob, getJobProgress, jobCampaignId, listCampaignJobs, listJobFiles } from '../services/job-progress';
 import { getScanStatus, queueRescan } from '../services/queue-rescan';
 
 const jobId = (req: Request) => Number(req.params.jobId);
@@ -20,6 +20,14 @@ export function jobRoutes(ctx: ServiceContext): Router {
     access: access.campaignOf(ofJob, 'lead'),
     response: jobProgressSchema,
     handle: ({ req }) => getJobProgress(ctx, jobId(req)),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/jobs/:jobId/files',
+    access: access.campaignOf(ofJob, 'lead'),
+    response: jobFilesSchema,
+    handle: ({ req }) => listJobFiles(ctx, jobId(req)),
   });
 
   defineRoute(ctx, router, {

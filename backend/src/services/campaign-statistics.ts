@@ -46,12 +46,12 @@ export function campaignStatistics(ctx: ServiceContext, campaignId: number) {
     entry[row.r.readingOrder] = row;
     bySpectrum.set(row.r.spectrumId, entry);
   }
-  const pairs = new Map<string, { readers: [string, string]; grades: [number[], number[]]; agreed: number }>();
+  const pairs = new Map<string, { readers: [string, string]; grades: [string[], string[]]; agreed: number }>();
   for (const { first, second } of bySpectrum.values()) {
     if (!first || !second) continue;
     const [a, b] = first.r.readerId < second.r.readerId ? [first, second] : [second, first];
     const key = `${a.r.readerId}-${b.r.readerId}`;
-    const pair = pairs.get(key) ?? { readers: [a.name, b.name] as [string, string], grades: [[], []] as [number[], number[]], agreed: 0 };
+    const pair = pairs.get(key) ?? { readers: [a.name, b.name] as [string, string], grades: [[], []] as [string[], string[]], agreed: 0 };
     pair.grades[0].push(a.r.grade);
     pair.grades[1].push(b.r.grade);
     if (compareReadings(a.r, b.r, campaign.gradeScheme, campaign.tolerance).agree) pair.agreed += 1;

@@ -141,7 +141,12 @@ export function exportAssumptions(ctx: ServiceContext, campaignId: number): Expo
 /** Image-family members that have a spectrum but no current confirmed redshift yet. */
 export function unconfirmedFamilyMembers(ctx: ServiceContext, campaignId: number) {
   return ctx.db
-    .select({ imageFamily: targets.imageFamily, targetId: targets.catalogueId, spectrumId: spectra.id })
+    .select({
+      imageFamily: targets.imageFamily,
+      targetId: targets.catalogueId,
+      spectrumId: spectra.id,
+      openDisagreementId: sql<number | null>`(select ${qualified(disagreements.id)} from ${disagreements} where ${qualified(disagreements.spectrumId)} = ${qualified(spectra.id)} and ${qualified(disagreements.state)} = 'open')`,
+    })
     .from(targets)
     .leftJoin(spectra, eq(spectra.targetId, targets.id))
     .where(
@@ -152,5 +157,5 @@ export function unconfirmedFamilyMembers(ctx: ServiceContext, campaignId: number
       ),
     )
     .all()
-    .map((r) => ({ imageFamily: r.imageFamily!, targetId: r.targetId, spectrumId: r.spectrumId }));
+    .map((r) => ({ imageFamily: r.imageFamily!, targetId: r.targetId, spectrumId: r.spectrumId, openDisagreementId: r.openDisagreementId ?? null }));
 }

@@ -1,5 +1,5 @@
 import { and, asc, eq } from 'drizzle-orm';
-import type { ConfirmedRedshift, CorrectionRequest } from '../contracts/release';
+import type { ConfirmedRedshift, CorrectionDecision } from '../contracts/release';
 import { campaigns, confirmedRedshifts, spectra, users } from '../db/schema';
 import { badRequest, conflict } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
@@ -9,7 +9,7 @@ import { recordAudit } from './record-audit';
  * Corrects a released redshift without touching it: the current record is marked superseded
  * and a new record, pointing back to it, becomes current. Both stay in the database.
  */
-export function correctConfirmed(ctx: ServiceContext, actor: Actor, spectrumId: number, input: CorrectionRequest): { confirmedId: number } {
+export function correctConfirmed(ctx: ServiceContext, actor: Actor, spectrumId: number, input: CorrectionDecision): { confirmedId: number } {
   return ctx.db.transaction((tx) => {
     const current = tx.select().from(confirmedRedshifts).where(and(eq(confirmedRedshifts.spectrumId, spectrumId), eq(confirmedRedshifts.isCurrent, true))).get();
     if (!current) throw conflict('This spectrum has no confirmed redshift to correct yet; settle or confirm it first.', 'not_confirmed');

@@ -1,12 +1,13 @@
 import { and, count, desc, eq, isNotNull, sql } from 'drizzle-orm';
-import type { JobProgress } from '../contracts/ingest';
+import type { JobFiles, JobProgress } from '../contracts/ingest';
 import { qualified } from '../db/qualified';
-import { jobItems, jobs, spectra } from '../db/schema';
+import { assignments, jobItems, jobs, scanResults, spectra, targets } from '../db/schema';
 import { badRequest, notFound } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
 
 const MAX_ERRORS_LISTED = 1000;
+const MAX_FILES_LISTED = 20_000;
 
 export function jobCampaignId(ctx: ServiceContext, jobId: number): number {
   const row = Number.isSafeInteger(jobId) ? ctx.db.select({ campaignId: jobs.campaignId }).from(jobs).where(eq(jobs.id, jobId)).get() : undefined;
@@ -56,6 +57,58 @@ export function getJobProgress(ctx: ServiceContext, jobId: number): JobProgress 
     failure: job.failure,
     createdAt: job.createdAt,
     finishedAt: job.finishedAt,
+  };
+}
+
+/**
+ * Every file of a job in upload order with what became of it: stored, duplicate or failed (and
+ * why); the target it was linked to (or none); its top solution once scanned; how many readers it
+ * has. A duplicate points at the spectrum already in the campaign.
+ */
+export function listJobFiles(ctx: ServiceContext, jobId: number): JobFiles {
+  const total = ctx.db.select({ n: count() }).from(jobItems).where(eq(jobItems.jobId, jobId)).get()!.n;
+  const rows = ctx.db
+    .select({
+      file: jobItems.fileName,
+      state: jobItems.state,
+      outcome: jobItems.outcome,
+      errorCode: jobItems.errorCode,
+      errorMessage: jobItems.errorMessage,
+      spectrumId: jobItems.spectrumId,
+      targetId: targets.id,
+      catalogueId: targets.catalogueId,
+      linkMethod: spectra.linkMethod,
+      objectName: spectra.objectName,
+      instrument: spectra.instrument,
+      scanId: scanResults.id,
+      zBest: scanResults.zBest,
+      spectrumClass: scanResults.spectrumClass,
+      readersAssigned: sql<number>`(select count(*) from ${assignments} where ${qualified(assignments.spectrumId)} = ${qualified(jobItems.spectrumId)})`,
+    })
+    .from(jobItems)
+    .leftJoin(spectra, eq(spectra.id, jobItems.spectrumId))
+    .leftJoin(targets, eq(targets.id, spectra.targetId))
+    .leftJoin(scanResults, and(eq(scanResults.spectrumId, jobItems.spectrumId), eq(scanResults.isCurrent, true)))
+    .where(eq(jobItems.jobId, jobId))
+    .orderBy(jobItems.id)
+    .limit(MAX_FILES_LISTED)
+    .all();
+  return {
+    jobId,
+    total,
+    truncated: total > rows.length,
+    files: rows.map((r) => ({
+      file: r.file,
+      state: r.state,
+      outcome: r.outcome,
+      error: r.errorCode === null ? null : { code: r.errorCode, message: r.errorMessage ?? '' },
+      spectrumId: r.spectrumId,
+      target: r.targetId === null || r.catalogueId === null ? null : { id: r.targetId, catalogueId: r.catalogueId, linkMethod: r.linkMethod },
+      objectName: r.objectName,
+      instrument: r.instrument,
+      scan: r.scanId === null || r.spectrumClass === null ? null : { zBest: r.zBest, spectrumClass: r.spectrumClass },
+      readersAssigned: r.readersAssigned ?? 0,
+    })),
   };
 }
 

@@ -8,7 +8,8 @@ import type { ServiceContext } from './context';
 type Query = z.output<typeof spectraQuerySchema>;
 
 const sortColumns = {
-  fileName: spectra.fileName,
+  // "b.fits" sorts between "A.fits" and "C.fits", as a person reads a file list (NOCASE folds ASCII letters).
+  fileName: sql`${spectra.fileName} collate nocase`,
   target: targets.catalogueId,
   instrument: spectra.instrument,
   snr: spectra.snrMedian,

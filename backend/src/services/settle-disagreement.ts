@@ -1,5 +1,5 @@
 import { and, asc, eq, inArray } from 'drizzle-orm';
-import type { Disagreement, SettleRequest } from '../contracts/release';
+import type { Disagreement, SettleDecision } from '../contracts/release';
 import { campaigns, confirmedRedshifts, disagreements, memberships, readings, spectra, targets, users } from '../db/schema';
 import type { CampaignRole } from '../contracts/campaigns';
 import { badRequest, conflict, forbidden, notFound } from '../http/errors';
@@ -49,13 +49,13 @@ export function listOpenDisagreements(ctx: ServiceContext, campaignId: number, d
  * The lead's settlement: the confirmed redshift is one reading's value or a value the lead
  * enters, always with the reason; both readings are locked and the disagreement closed.
  */
-export function settleDisagreement(ctx: ServiceContext, actor: Actor, role: CampaignRole | null, disagreementId: number, input: SettleRequest): { confirmedId: number } {
+export function settleDisagreement(ctx: ServiceContext, actor: Actor, role: CampaignRole | null, disagreementId: number, input: SettleDecision): { confirmedId: number } {
   return ctx.db.transaction((tx) => {
     const d = tx.select().from(disagreements).where(eq(disagreements.id, disagreementId)).get()!;
     if (role !== 'lead' && d.delegatedTo !== actor.id) throw forbidden('Only a lead, or the third reader the lead chose, can settle this disagreement.');
     if (d.state !== 'open') throw conflict('This disagreement has already been settled.', 'disagreement_closed');
     const campaign = tx.select().from(campaigns).where(eq(campaigns.id, d.campaignId)).get()!;
-    let value: { z: number; zErr: number | null; grade: number; spectrumClass: (typeof confirmedRedshifts.$inferInsert)['spectrumClass']; lines: string[] };
+    let value: { z: number; zErr: number | null; grade: string; spectrumClass: (typeof confirmedRedshifts.$inferInsert)['spectrumClass']; lines: string[] };
     if (input.choice === 'new') {
       if (!campaign.gradeScheme.some((g) => g.code === input.grade)) throw badRequest(`Grade ${input.grade} is not in this campaign's scheme.`, 'unknown_grade');
       value = { z: input.z, zErr: input.zErr ?? null, grade: input.grade, spectrumClass: input.class, lines: input.lines ?? [] };

@@ -26,7 +26,7 @@ export function packSpectrumData(ctx: ServiceContext, spectrumId: number): Buffe
   const n = spectrum.wavelength.length;
   const wavelength = spectrum.meta.medium === 'air' ? toVacuumArray(spectrum.wavelength) : spectrum.wavelength;
   const header = Buffer.from(
-    JSON.stringify({ pixels: n, sky: spectrum.sky !== undefined, medium: 'vacuum', convertedFromAir: spectrum.meta.medium === 'air', fluxUnit: spectrum.meta.fluxUnit ?? null }),
+    JSON.stringify({ pixels: n, sky: spectrum.sky !== undefined, medium: 'vacuum', convertedFromAir: spectrum.meta.medium === 'air', fluxUnit: spectrum.fluxUnit }),
     'utf8',
   );
   const headerEnd = 4 + header.length;

@@ -55,6 +55,7 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
       instrument: s.instrument,
       exposureS: s.exposureS,
       dateObs: s.dateObs,
+      fluxUnit: s.fluxUnit,
       medium: s.medium,
       pixels: s.pixels,
       wavelengthMin: s.wavelengthMin,

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import type { Reading, SubmitReadingRequest } from '../contracts/readings';
+import type { Reading, SubmittedReading } from '../contracts/readings';
 import { assignments, campaigns, readings, spectra, users } from '../db/schema';
 import { badRequest, conflict, forbidden } from '../http/errors';
 import { LINES } from '../spectra/lineList';
@@ -40,7 +40,7 @@ export function submitReading(
   ctx: ServiceContext,
   actor: Actor,
   spectrumId: number,
-  input: Omit<SubmitReadingRequest, 'lines'> & { lines: string[] },
+  input: Omit<SubmittedReading, 'lines'> & { lines: string[] },
 ): { reading: Reading; changed: boolean; outcome: AgreementOutcome } {
   return ctx.db.transaction((tx) => {
     const spectrum = tx.select({ campaignId: spectra.campaignId }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
@@ -113,7 +113,7 @@ function pickReading(r: ReadingRow) {
   return { z: r.z, zErr: r.zErr, grade: r.grade, spectrumClass: r.spectrumClass, lines: r.lines, note: r.note, revision: r.revision };
 }
 
-function sameReading(r: ReadingRow, v: { z: number; zErr: number | null; grade: number; spectrumClass: string; lines: string[]; note: string }): boolean {
+function sameReading(r: ReadingRow, v: { z: number; zErr: number | null; grade: string; spectrumClass: string; lines: string[]; note: string }): boolean {
   return (
     r.z === v.z &&
     r.zErr === v.zErr &&

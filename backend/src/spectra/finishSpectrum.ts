@@ -1,5 +1,6 @@
 import { SpectrumReadError } from './errors';
 import { estimateIvar } from './estimateIvar';
+import { arbitraryFluxUnit, parseFluxUnit } from './parseFluxUnit';
 import type { Spectrum, SpectrumMeta } from './types';
 
 /** Raw columns as a reader found them, wavelength already in Å. */
@@ -19,6 +20,8 @@ const MIN_PIXELS = 5;
  * Turns raw columns into the engine's columnar spectrum: drops non-finite or non-positive
  * wavelengths, sorts by wavelength (some files run red to blue), converts error/variance to ivar,
  * marks unusable pixels in the mask (ivar = 0 there) and estimates uncertainties when none exist.
+ * The unit text the reader found (meta.fluxUnit) becomes the normalised `fluxUnit`; text it
+ * cannot read leaves the flux 'arbitrary' with a warning that quotes it.
  */
 export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errorsEstimated'>, where: string): Spectrum {
   const n = Math.min(raw.wavelength.length, raw.flux.length);
@@ -92,7 +95,13 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
     }
     errorsEstimated = true;
   }
-  const spectrum: Spectrum = { wavelength, flux, ivar, mask, meta: { ...meta, warnings, errorsEstimated } };
+  const unitText = meta.fluxUnit;
+  let fluxUnit = unitText === undefined ? arbitraryFluxUnit() : parseFluxUnit(unitText);
+  if (!fluxUnit) {
+    warnings.push(`The flux unit "${unitText}" is not one Redward reads; the flux is shown in arbitrary units.`);
+    fluxUnit = arbitraryFluxUnit(unitText ?? null);
+  }
+  const spectrum: Spectrum = { wavelength, flux, ivar, mask, fluxUnit, meta: { ...meta, warnings, errorsEstimated } };
   if (sky) spectrum.sky = sky;
   return spectrum;
 }

@@ -1,5 +1,6 @@
 import { templateSetFor } from './buildTemplates';
 import { DEFAULT_LOG_STEP } from './logGrid';
+import { arbitraryFluxUnit } from './parseFluxUnit';
 import type { Spectrum, TemplateClass } from './types';
 
 export interface SyntheticOptions {
@@ -108,6 +109,7 @@ export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
   }
   return {
     wavelength, flux, ivar, mask, sky,
+    fluxUnit: arbitraryFluxUnit(),
     meta: { source: `synthetic ${id} z=${options.z} S/N=${options.snr} seed=${options.seed}`, medium: 'vacuum', mediumFrom: 'header', errorsEstimated: false, columns: {}, warnings: [] },
   };
 }

@@ -69,15 +69,18 @@ function baseMeta(header: FitsHeader, primary: FitsHeader, source: string, optio
   const meta: Omit<SpectrumMeta, 'errorsEstimated'> = { source, medium, mediumFrom, columns: {}, warnings: [] };
   const objectName = s('OBJECT') ?? s('OBJNAME');
   if (objectName) meta.objectName = objectName;
-  const ra = n('RA') ?? n('PLUG_RA');
-  const dec = n('DEC') ?? n('PLUG_DEC');
+  // PLUG_RA/PLUG_DEC are the fibre's (the object's) position; RA/DEC there is the plate centre.
+  const ra = n('PLUG_RA') ?? n('RA');
+  const dec = n('PLUG_DEC') ?? n('DEC');
   if (ra !== undefined) meta.ra = ra;
   if (dec !== undefined) meta.dec = dec;
   const instrument = s('INSTRUME') ?? s('TELESCOP');
   if (instrument) meta.instrument = instrument;
   const exposure = n('EXPTIME') ?? n('EXPOSURE');
   if (exposure !== undefined) meta.exposureS = exposure;
-  const date = s('DATE-OBS');
+  const mjd = n('MJD-OBS') ?? n('MJD');
+  // MJD 40587 is 1970-01-01 (the Unix epoch).
+  const date = s('DATE-OBS') ?? (mjd !== undefined && mjd > 0 && mjd < 1e6 ? new Date((mjd - 40587) * 86_400_000).toISOString().slice(0, 10) : undefined);
   if (date) meta.dateObs = date;
   const unit = s('BUNIT') ?? s('FLUXUNIT');
   if (unit) meta.fluxUnit = unit;
@@ -210,6 +213,7 @@ function fromTable(bytes: Uint8Array, hdu: FitsHdu, primary: FitsHeader, options
   const ctype = /^a(ir|wav)/i.test(wave.name) ? 'AWAV' : '';
   const meta = baseMeta(hdu.header, primary, where, options, ctype);
   meta.columns = columns;
-  if (!meta.fluxUnit && flux.unit) meta.fluxUnit = flux.unit;
+  // The flux column's own TUNITn is more specific than a BUNIT of the HDU or the primary header.
+  if (flux.unit) meta.fluxUnit = flux.unit;
   return finishSpectrum(raw, meta, where);
 }

@@ -2,6 +2,7 @@ import Papa from 'papaparse';
 import { SpectrumReadError } from './errors';
 import { angstromsPer, columnPreference, columnRole, guessAngstromsPer, unitInName, type ColumnRole } from './columnRoles';
 import { finishSpectrum, type RawColumns } from './finishSpectrum';
+import { fluxUnitFromText } from './parseFluxUnit';
 import type { ReadOptions } from './readFitsSpectrum';
 import type { Medium, Spectrum, SpectrumMeta } from './types';
 
@@ -123,6 +124,8 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
     mediumFrom = 'header';
   }
   const meta: Omit<SpectrumMeta, 'errorsEstimated'> = { source: 'text table', medium, mediumFrom, columns: used, warnings: [] };
+  const unit = fluxUnitFromText(headerNames?.[roles.get('flux')!], comments);
+  if (unit.raw !== null) meta.fluxUnit = unit.raw;
   return finishSpectrum(raw, meta, 'Text table');
 }
 

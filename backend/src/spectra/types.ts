@@ -21,6 +21,7 @@ export interface SpectrumMeta {
   medium: Medium;
   /** How the medium was decided: header keyword, a default, or a caller override. */
   mediumFrom: 'header' | 'default' | 'override';
+  /** The flux unit text as the file wrote it (BUNIT, TUNITn, a header comment); see Spectrum.fluxUnit for its meaning. */
   fluxUnit?: string;
   /** True when the file had no uncertainties and ivar was estimated from local scatter. */
   errorsEstimated: boolean;
@@ -28,6 +29,22 @@ export interface SpectrumMeta {
   columns: Record<string, string>;
   /** Non-fatal remarks about the file (ignored columns, odd units...). */
   warnings: string[];
+}
+
+/** What a flux value measures: f_λ, f_ν, detector counts, a count rate, or no stated unit. */
+export type FluxQuantity = 'f-lambda' | 'f-nu' | 'counts' | 'count-rate' | 'arbitrary';
+
+/**
+ * A file's flux unit, normalised: a file value × `scale` is the value in `unit` (f_λ in
+ * erg s⁻¹ cm⁻² Å⁻¹, f_ν in Jy, counts as counts, ADU or electrons, rates per second). A file
+ * that states no unit, or one Redward cannot read, is 'arbitrary' (scale 1): never assumed.
+ */
+export interface FluxUnit {
+  quantity: FluxQuantity;
+  scale: number;
+  unit: string;
+  /** The text the unit was read from; null when the file states none. */
+  raw: string | null;
 }
 
 /**
@@ -41,5 +58,6 @@ export interface Spectrum {
   ivar: Float64Array;
   mask: Uint8Array;
   sky?: Float64Array;
+  fluxUnit: FluxUnit;
   meta: SpectrumMeta;
 }

@@ -1,3 +1,5 @@
+import type { FluxUnitView } from '@contracts/spectra';
+
 /** A spectrum's arrays as served by GET /api/spectra/:id/data (vacuum wavelengths). */
 export interface SpectrumArrays {
   pixels: number;
@@ -10,7 +12,8 @@ export interface SpectrumArrays {
   mask: Uint8Array;
   sky: Float32Array | null;
   convertedFromAir: boolean;
-  fluxUnit: string | null;
+  /** The file's flux unit, normalised; null or 'arbitrary' when the file states none Redward reads. */
+  fluxUnit: FluxUnitView | null;
 }
 
 interface Header {
@@ -18,7 +21,7 @@ interface Header {
   sky: boolean;
   medium: string;
   convertedFromAir: boolean;
-  fluxUnit: string | null;
+  fluxUnit: FluxUnitView | null;
 }
 
 type Ctor<T> = { new (buffer: ArrayBuffer, byteOffset: number, length: number): T; new (length: number): T; BYTES_PER_ELEMENT: number };

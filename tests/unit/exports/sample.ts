@@ -1,3 +1,4 @@
+import { DEFAULT_GRADE_SCHEME } from '../../../backend/src/contracts/grades';
 import type { ConfirmedRow, ExportAssumptions } from '../../../backend/src/exports/types';
 
 /** Planck 2018 VI abstract values (A&A 641, A6): H0 = 67.4, Ω_m = 0.315; reference-values.md §4. */
@@ -6,13 +7,8 @@ export const ASSUMPTIONS: ExportAssumptions = {
   wavelengths: 'vacuum',
   cosmology: { name: 'Planck18 (abstract)', h0: 67.4, omegaM: 0.315, omegaLambda: 0.685, flat: true },
   tolerance: 0.002,
-  gradeScheme: [
-    { code: 4, label: 'firm', meaning: 'two or more clear features, or one resolved doublet / unmistakable profile' },
-    { code: 3, label: 'probable', meaning: 'one clear feature plus supporting evidence (break, weak lines, photo-z)' },
-    { code: 2, label: 'tentative', meaning: 'a single weak feature or break; another redshift remains possible' },
-    { code: 1, label: 'undetermined', meaning: 'signal present, no redshift' },
-    { code: 0, label: 'unusable', meaning: 'no usable signal, artefact or reduction failure' },
-  ],
+  // Redward's default scheme: word codes named by the chance the redshift is right.
+  gradeScheme: DEFAULT_GRADE_SCHEME,
   exportedAt: '2025-03-14T09:26:53.000Z',
   software: 'Redward 0.1.0 / redward-engine/0.2.0',
 };
@@ -26,8 +22,8 @@ export function row(overrides: Partial<ConfirmedRow> = {}): ConfirmedRow {
     dec: -30.3972778,
     z: 6.2,
     zErr: 0.0004,
-    gradeCode: 4,
-    gradeLabel: 'firm',
+    gradeCode: 'sure',
+    gradeLabel: 'sure',
     spectrumClass: 'lyman-break',
     lines: ['Lya', 'NV'],
     photoZ: 6.05,
@@ -58,8 +54,8 @@ export const ROWS: ConfirmedRow[] = [
     dec: null,
     z: -0.0002,
     zErr: null,
-    gradeCode: 3,
-    gradeLabel: 'probable',
+    gradeCode: 'no-z',
+    gradeLabel: 'no redshift',
     spectrumClass: 'star',
     lines: [],
     photoZ: null,

@@ -31,6 +31,7 @@ function loneAbsorber(at: number): Spectrum {
   const flux = Float64Array.from(wavelength, (l) => 1 - 0.7 * Math.exp(-0.5 * ((l - at) / 10) ** 2) + sigma * gauss());
   return {
     wavelength, flux, ivar: new Float64Array(n).fill(1 / sigma ** 2), mask: new Uint8Array(n),
+    fluxUnit: { quantity: 'arbitrary', scale: 1, unit: 'arbitrary', raw: null },
     meta: { source: 'test: lone absorber', medium: 'vacuum', mediumFrom: 'header', errorsEstimated: false, columns: {}, warnings: [] },
   };
 }

@@ -1,13 +1,21 @@
 import type { Campaign } from '@contracts/campaigns';
+import type { JobProgress } from '@contracts/ingest';
 import { useQueryClient } from '@tanstack/react-query';
-import { useCallback } from 'react';
+import { useCallback, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Page } from '@/components/layout/page';
 import { buttonClass } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/loading';
+import { ErrorNotice } from '@/components/ui/notice';
 import { Panel } from '@/components/ui/panel';
+import { AssignReadersForm } from '@/features/assignments/components/assign-readers-form';
+import type { ReaderCandidate } from '@/features/assignments/components/assign-readers-form';
+import { inspectKeys } from '@/features/inspect/api/keys';
+import { useMembers } from '@/features/members/api/get-members';
 import { spectraKeys } from '@/features/spectra/api/keys';
 import { targetKeys } from '@/features/targets/api/keys';
+import { jobKeys } from '@/features/uploads/api/keys';
 import { JobProgressPanel } from '@/features/uploads/components/job-progress-panel';
 import { SpectraUploadForm } from '@/features/uploads/components/spectra-upload-form';
 import { lastJobOf, rememberLastJob } from '@/features/uploads/hooks/use-last-job';
@@ -29,11 +37,16 @@ function UploadPage({ campaign }: { campaign: Campaign }) {
   const jobId = jobIdOf(params.get('job'));
   const lastJob = jobId === null ? lastJobOf(campaign.id) : null;
 
+  const [finished, setFinished] = useState<JobProgress | null>(null);
   // A finished job added spectra and links: the lists elsewhere must not show the old state.
-  const onFinished = useCallback(() => {
-    void queryClient.invalidateQueries({ queryKey: spectraKeys.lists(campaign.id) });
-    void queryClient.invalidateQueries({ queryKey: targetKeys.lists(campaign.id) });
-  }, [queryClient, campaign.id]);
+  const onFinished = useCallback(
+    (job: JobProgress) => {
+      setFinished(job);
+      void queryClient.invalidateQueries({ queryKey: spectraKeys.lists(campaign.id) });
+      void queryClient.invalidateQueries({ queryKey: targetKeys.lists(campaign.id) });
+    },
+    [queryClient, campaign.id],
+  );
 
   const links = (
     <div className="flex flex-wrap gap-2">
@@ -85,6 +98,32 @@ function UploadPage({ campaign }: { campaign: Campaign }) {
           <JobProgressPanel key={jobId} jobId={jobId} onFinished={onFinished} />
         </Panel>
       ) : null}
+      {jobId && finished?.id === jobId && finished.summary.stored > 0 ? (
+        <Panel title="Assign the new spectra to readers">
+          <AssignNewSpectra
+            campaignId={campaign.id}
+            onAssigned={() => {
+              void queryClient.invalidateQueries({ queryKey: jobKeys.files(jobId) });
+              void queryClient.invalidateQueries({ queryKey: spectraKeys.lists(campaign.id) });
+              void queryClient.invalidateQueries({ queryKey: inspectKeys.queues() });
+            }}
+          />
+        </Panel>
+      ) : null}
     </Page>
+  );
+}
+
+/** New spectra reach readers' queues only once assigned: the same assignment as the Assign page (every spectrum without readers). */
+function AssignNewSpectra({ campaignId, onAssigned }: { campaignId: number; onAssigned: () => void }) {
+  const members = useMembers(campaignId);
+  if (members.isPending) return <Loading label="Loading members…" />;
+  if (members.isError) return <ErrorNotice error={members.error} />;
+  const candidates: ReaderCandidate[] = members.data.members.flatMap((m) => (m.role === 'observer' ? [] : [{ userId: m.userId, name: m.name, email: m.email, role: m.role }]));
+  return (
+    <div className="flex flex-col gap-2">
+      <p className="text-ink-700">They are not in anyone's reading queue yet. Choose readers: each spectrum without readers gets two different ones.</p>
+      <AssignReadersForm campaignId={campaignId} candidates={candidates} onAssigned={onAssigned} />
+    </div>
   );
 }

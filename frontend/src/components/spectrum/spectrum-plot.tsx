@@ -10,6 +10,9 @@ import type { CombLook } from './draw-comb';
 import { dragZ } from './comb';
 import type { WindowArrays } from './display-window';
 import { preparedWindow } from './prepared-window';
+import { fluxAxis, fluxTicks } from './flux-axis';
+import type { FluxAxis } from './flux-axis';
+import { robustRange } from './robust-range';
 import { PLOT } from './plot-palette';
 import { decimalsFor, niceStep, restFrameSplits } from './rest-frame-axis';
 import type { TrialZStore } from './trial-z-store';
@@ -51,6 +54,8 @@ interface Props {
 }
 
 const NO_PEAKS: Array<{ wavelength: number }> = [];
+// Until the plot is built: the axis of no spectrum (replaced before the first draw).
+const NO_FLUX_AXIS: { source: DisplayArrays['source'] | null; axis: FluxAxis } = { source: null, axis: { factor: 1, label: 'Flux' } };
 const ignorePeak = () => {};
 
 const HEIGHT = 340;
@@ -72,7 +77,7 @@ type Window = [number, number];
 export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, restFrame, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
-  const live = useRef({ display, lines, combs, peaks, tool, restFrame, onPeak, view: fullRange(display), win: null as WindowArrays | null, yRange: null as [number, number] | null, columns: 0 });
+  const live = useRef({ display, lines, combs, peaks, tool, restFrame, onPeak, view: fullRange(display), win: null as WindowArrays | null, yRange: null as [number, number] | null, columns: 0, flux: NO_FLUX_AXIS as ReturnType<typeof fluxAxisOf> });
   const paintComb = useRef<() => void>(() => {});
   const showWindow = useRef<(view: Window) => void>(() => {});
   live.current.lines = lines;
@@ -125,6 +130,11 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
       const columns = columnsOf(u);
       const { win, yRange } = preparedWindow(display, view[0], view[1], columns);
       Object.assign(live.current, { view, win, yRange, columns });
+      // The flux axis (unit and power of ten) is one per spectrum, so zooming never relabels it.
+      if (live.current.flux.source !== display.source) {
+        live.current.flux = fluxAxisOf(display);
+        u.axes[1]!.label = live.current.flux.axis.label;
+      }
       u.batch(() => {
         if (u.series[SKY]!.show !== (display.source.sky !== null)) u.setSeries(SKY, { show: display.source.sky !== null });
         if (u.series[MODEL]!.show !== (display.model !== null)) u.setSeries(MODEL, { show: display.model !== null });
@@ -191,6 +201,16 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
       return splits.map((v) => (v / k).toFixed(d));
     };
 
+    // Ticks on round numbers of the axis as shown (uPlot's own steps stop short of 10⁻¹⁷-sized data).
+    const ySplits = (u: uPlot, _axis: number, min: number, max: number) => fluxTicks(min, max, live.current.flux.axis.factor, Math.max(3, Math.floor(u.bbox.height / devicePixelRatio / 45))).splits;
+    const yValues = (_u: uPlot, splits: number[]) => {
+      if (splits.length === 0) return [];
+      const { factor } = live.current.flux.axis;
+      const step = splits.length > 1 ? Math.abs(splits[1]! - splits[0]!) * factor : 1;
+      const d = decimalsFor(niceStep(step));
+      return splits.map((v) => (Math.abs(v * factor) < step * 1e-6 ? '0' : (v * factor).toFixed(d)));
+    };
+
     // Zoom by drag-select: uPlot reports the selection, the window is set here (with its arrays).
     const selected = (u: uPlot) => {
       const { left, width } = u.select;
@@ -200,6 +220,7 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
     };
 
     const { display } = live.current;
+    live.current.flux = fluxAxisOf(display);
     const initial = fullRange(display);
     // Before uPlot has laid out its axes the plotting area's width is unknown; the element's width
     // is an upper bound (finer columns than needed, never coarser). A resize that widens the area
@@ -229,7 +250,7 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
         ],
         axes: [
           { label: axisLabel(false), stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, splits: xSplits, values: xValues },
-          { label: 'Flux', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64 },
+          { label: live.current.flux.axis.label, stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64, splits: ySplits, values: yValues },
         ],
         hooks: {
           drawClear: [drawMasks],
@@ -346,6 +367,14 @@ const fullRange = (d: DisplayArrays): Window => {
   const hi = w[w.length - 1] ?? 1;
   return hi > lo ? [lo, hi] : [lo - 0.5, lo + 0.5];
 };
+
+/** The flux axis of a spectrum: its unit, scaled by the size of its flux (the larger end of its robust range). */
+function fluxAxisOf(d: DisplayArrays): { source: DisplayArrays['source'] | null; axis: FluxAxis } {
+  const { flux, mask, pixels, fluxUnit } = d.source;
+  const range = robustRange(flux, mask, 0, pixels);
+  const peak = range ? Math.max(Math.abs(range[0]), Math.abs(range[1])) : 0;
+  return { source: d.source, axis: fluxAxis(fluxUnit, peak) };
+}
 
 /** Screen columns of the plotting area (device px): what a window is reduced to. */
 const columnsOf = (u: uPlot) => Math.max(1, Math.round(u.bbox.width));

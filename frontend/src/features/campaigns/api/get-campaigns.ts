@@ -1,10 +1,10 @@
 import { campaignListResponseSchema } from '@contracts/campaigns';
-import type { Campaign } from '@contracts/campaigns';
+import type { CampaignListItem } from '@contracts/campaigns';
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { campaignKeys } from './keys';
 
-export async function getCampaigns(signal?: AbortSignal): Promise<Campaign[]> {
+export async function getCampaigns(signal?: AbortSignal): Promise<CampaignListItem[]> {
   const { campaigns } = await api.get('/api/campaigns', campaignListResponseSchema, signal);
   return campaigns;
 }

@@ -16,14 +16,17 @@ export function GradeSchemeFields({ control, register, errors }: Props) {
   const schemeError = errors.gradeScheme?.message ?? errors.gradeScheme?.root?.message;
 
   const addGrade = () => {
-    const codes = fields.map((f) => f.code).filter((c) => Number.isFinite(c));
-    append({ code: codes.length ? Math.max(...codes) + 1 : 0, label: '', meaning: '' }, { shouldFocus: true });
+    // Codes are words; a new row starts with one that is free ("grade-6"), for the lead to rename.
+    const taken = new Set(fields.map((f) => String(f.code)));
+    let n = fields.length + 1;
+    while (taken.has(`grade-${n}`)) n++;
+    append({ code: `grade-${n}`, label: '', meaning: '' }, { shouldFocus: true });
   };
 
   return (
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-1 text-sm font-medium text-ink-800">Grade scheme</legend>
-      <p className="text-sm text-ink-500">Highest confidence first. Codes and labels must be unique.</p>
+      <p className="text-sm text-ink-500">Highest confidence first. Codes are short words or letters (no spaces); codes and labels must be unique.</p>
       <div className="grid grid-cols-[5rem_10rem_1fr_auto] gap-x-2 gap-y-1.5" role="group" aria-label="Grades">
         <span aria-hidden="true" className="text-xs font-semibold uppercase tracking-wide text-ink-500">Code</span>
         <span aria-hidden="true" className="text-xs font-semibold uppercase tracking-wide text-ink-500">Label</span>
@@ -34,12 +37,10 @@ export function GradeSchemeFields({ control, register, errors }: Props) {
           return (
             <div key={field.id} className="contents">
               <input
-                type="number"
-                step={1}
                 aria-label={`Code of grade ${i + 1}`}
                 aria-invalid={rowErrors?.code ? true : undefined}
                 className={`${controlClass} num`}
-                {...register(`gradeScheme.${i}.code`, { valueAsNumber: true })}
+                {...register(`gradeScheme.${i}.code`)}
               />
               <input
                 aria-label={`Label of grade ${i + 1}`}

@@ -18,7 +18,7 @@ export const settingsFormSchema = z
     tolerance: number(),
     gridStep: gridStepSchema,
     // Friendlier wording than the contract's generic length message for the common slip.
-    gradeScheme: z.array(z.object({ code: number(), label: z.string().trim().min(1, 'Give the grade a label.'), meaning: z.string() })),
+    gradeScheme: z.array(z.object({ code: z.string().trim().min(1, 'Give the grade a code.'), label: z.string().trim().min(1, 'Give the grade a label.'), meaning: z.string() })),
   })
   .transform((values, ctx) => {
     const checked = updateCampaignRequestSchema.safeParse(values);

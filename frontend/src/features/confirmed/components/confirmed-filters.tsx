@@ -14,7 +14,7 @@ interface Props {
 export function ConfirmedFiltersBar({ query, onChange, scheme, families }: Props) {
   return (
     <div role="search" aria-label="Filter confirmed redshifts" className="grid grid-cols-1 gap-3 sm:grid-cols-3">
-      <SelectField label="Grade" value={query.grade ?? ''} onChange={(e) => onChange({ grade: e.target.value === '' ? undefined : Number(e.target.value) })}>
+      <SelectField label="Grade" value={query.grade ?? ''} onChange={(e) => onChange({ grade: e.target.value === '' ? undefined : e.target.value })}>
         <option value="">any grade</option>
         {scheme.map((g) => (
           <option key={g.code} value={g.code}>

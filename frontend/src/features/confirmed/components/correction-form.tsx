@@ -9,7 +9,7 @@ import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { CLASS_NAMES, CLASS_ORDER } from '@/lib/spectrum-class';
 import { useCorrectConfirmed } from '../api/correct-confirmed';
 
-const blank = (c: ConfirmedRedshift) => ({ z: c.z.toFixed(5), zErr: c.zErr === null ? '' : String(c.zErr), grade: String(c.grade), cls: c.class, lines: c.lines.join(', '), reason: '' });
+const blank = (c: ConfirmedRedshift) => ({ z: c.z.toFixed(5), zErr: c.zErr === null ? '' : String(c.zErr), grade: c.grade, cls: c.class, lines: c.lines.join(', '), reason: '' });
 
 /** Opens on demand: a correction is rare and must be deliberate, so it is not left open on the screen. */
 export function CorrectionForm({ spectrumId, current, scheme }: { spectrumId: number; current: ConfirmedRedshift; scheme: Grade[] }) {
@@ -39,7 +39,7 @@ export function CorrectionForm({ spectrumId, current, scheme }: { spectrumId: nu
     const body = {
       z: v.z.trim() === '' ? Number.NaN : Number(v.z),
       ...(v.zErr.trim() ? { zErr: Number(v.zErr) } : {}),
-      grade: Number(v.grade),
+      grade: v.grade,
       class: v.cls,
       lines: v.lines.split(',').map((l) => l.trim()).filter(Boolean),
       reason: v.reason,

@@ -33,7 +33,7 @@ export function FamiliesView({ campaignId }: { campaignId: number }) {
         <ul className="grid grid-cols-1 gap-3 md:grid-cols-2">
           {list.map((f) => (
             <li key={f.family}>
-              <FamilyCard family={f} />
+              <FamilyCard family={f} campaignId={campaignId} />
             </li>
           ))}
         </ul>
@@ -42,7 +42,7 @@ export function FamiliesView({ campaignId }: { campaignId: number }) {
   );
 }
 
-function FamilyCard({ family: f }: { family: FamilyCheck }) {
+function FamilyCard({ family: f, campaignId }: { family: FamilyCheck; campaignId: number }) {
   return (
     <section aria-label={`Image family ${f.family}`} className={`flex flex-col gap-2 rounded-panel border bg-paper-50 p-3 ${f.flagged ? 'border-warning-700/40' : 'border-paper-300'}`}>
       <header className="flex flex-wrap items-baseline justify-between gap-2">
@@ -63,9 +63,7 @@ function FamilyCard({ family: f }: { family: FamilyCheck }) {
               {m.targetId ?? `spectrum ${m.spectrumId}`}
             </Link>
             <span className="num">z = {formatRedshift(m.z)}</span>
-            <span className="text-ink-500">
-              grade <span className="num">{m.gradeCode}</span> {m.gradeLabel}
-            </span>
+            <span className="text-ink-500">grade {m.gradeCode === m.gradeLabel ? m.gradeLabel : `${m.gradeLabel} (${m.gradeCode})`}</span>
           </li>
         ))}
         {f.unconfirmed.map((u, i) => (
@@ -77,7 +75,13 @@ function FamilyCard({ family: f }: { family: FamilyCheck }) {
             ) : (
               <span className="num">{u.targetId ?? 'unnamed image'}</span>
             )}
-            <span className="italic">{u.spectrumId === null ? 'no spectrum yet' : 'not confirmed yet'}</span>
+            {u.openDisagreementId ? (
+              <Link to={`/campaigns/${campaignId}/disagreements?disagreement=${u.openDisagreementId}`} className="font-medium text-blueend-600 hover:underline">
+                its readings disagree: settle it
+              </Link>
+            ) : (
+              <span className="italic">{u.spectrumId === null ? 'no spectrum yet' : 'not confirmed yet'}</span>
+            )}
           </li>
         ))}
       </ul>

@@ -6,7 +6,7 @@ import { z } from 'zod';
 const filtersSchema = z.object({
   page: z.coerce.number().int().min(1).catch(1),
   pageSize: z.coerce.number().int().min(1).max(1000).catch(50),
-  grade: z.coerce.number().int().optional().catch(undefined),
+  grade: z.string().trim().min(1).max(16).optional().catch(undefined),
   class: z.enum(SPECTRUM_CLASSES).optional().catch(undefined),
   family: z.string().trim().max(80).optional().catch(undefined),
   confirmedBy: z.enum(['agreement', 'settlement', 'correction']).optional().catch(undefined),

@@ -8,6 +8,7 @@ import { Loading } from '@/components/ui/loading';
 import { ErrorNotice } from '@/components/ui/notice';
 import { Panel } from '@/components/ui/panel';
 import { PLOT } from '@/components/spectrum/plot-palette';
+import { gradeRank } from '@/lib/grade-label';
 import { useLineList } from '@/lib/line-list';
 import { useSpectrumData } from '@/lib/spectrum-data';
 import { EngineSolutions } from './engine-solutions';
@@ -43,7 +44,8 @@ export function DisagreementDetail({ campaignId, thirdReaders, disagreement: d, 
   const second = d.readings.find((r) => r.readingOrder === 'second');
   if (!first || !second) return <ErrorNotice error={new Error('This disagreement does not carry both readings.')} />;
   const differs = new Set<string>(d.reasons);
-  const lower = Math.min(first.grade, second.grade);
+  // The less confident of the two: later in the scheme.
+  const lower = gradeRank(scheme, first.grade) >= gradeRank(scheme, second.grade) ? first.grade : second.grade;
 
   return (
     <div className="flex min-w-0 flex-col gap-4">

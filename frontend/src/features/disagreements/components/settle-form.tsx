@@ -19,7 +19,7 @@ export interface Suggestion {
 interface Props {
   scheme: Grade[];
   /** Starting class and grade for a new value: the lower-risk choice is the readers' common ground. */
-  defaults: { grade: number; cls: SpectrumClass };
+  defaults: { grade: string; cls: SpectrumClass };
   suggestion: Suggestion | null;
   pending: boolean;
   error: unknown;
@@ -30,7 +30,7 @@ interface Props {
 export function SettleForm({ scheme, defaults, suggestion, pending, error, onSettle }: Props) {
   const [reason, setReason] = useState('');
   const [entering, setEntering] = useState(false);
-  const [value, setValue] = useState({ z: '', zErr: '', grade: String(defaults.grade), cls: defaults.cls, lines: '' });
+  const [value, setValue] = useState({ z: '', zErr: '', grade: defaults.grade, cls: defaults.cls, lines: '' });
   const [problems, setProblems] = useState<Record<string, string>>({});
 
   // An engine solution picked beside the form opens the value fields with its z, class and lines.
@@ -58,7 +58,7 @@ export function SettleForm({ scheme, defaults, suggestion, pending, error, onSet
     reason,
     z: value.z.trim() === '' ? Number.NaN : Number(value.z),
     ...(value.zErr.trim() ? { zErr: Number(value.zErr) } : {}),
-    grade: Number(value.grade),
+    grade: value.grade,
     class: value.cls,
     lines: value.lines
       .split(',')

@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { formatDate, formatDegrees, formatRedshift } from '@/lib/format';
+import { gradeText } from '@/lib/grade-label';
 import type { SpectrumDetail } from '../api/schemas';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatDec, formatRa } from '../utils/sky-position';
@@ -25,6 +26,24 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 }
 
 const dash = <span className="text-ink-400">—</span>;
+
+/** The normalised unit and, when it differs, the file's own spelling; an unknown unit is said to be one. */
+function FluxUnitText({ unit }: { unit: SpectrumDetail['spectrum']['fluxUnit'] }) {
+  if (unit === null) return dash;
+  if (unit.quantity === 'arbitrary') {
+    return <>arbitrary{unit.raw === null ? ' (the file states none)' : <span className="text-ink-600"> (file: “{unit.raw}”)</span>}</>;
+  }
+  const scale = unit.scale === 1 ? '' : `${Number(unit.scale.toPrecision(3))} × `;
+  return (
+    <>
+      <span className="num">
+        {scale}
+        {unit.unit}
+      </span>
+      {unit.raw !== null ? <span className="block text-xs text-ink-500">file: “{unit.raw}”</span> : null}
+    </>
+  );
+}
 
 function Position({ ra, dec }: { ra: number | null; dec: number | null }) {
   if (ra === null || dec === null) return dash;
@@ -92,7 +111,7 @@ export function ContextPanel({ detail, arrays }: { detail: SpectrumDetail; array
                   <span className="text-ink-600"> · top z {formatRedshift(m.zBest)}</span>
                   {m.readings.map((r) => (
                     <span key={r.id} className="block pl-3 text-xs text-ink-600">
-                      {r.reader.name} ({r.readingOrder}): <span className="num">z = {formatRedshift(r.z)}</span>, grade {r.grade}, {CLASS_NAMES[r.class]}
+                      {r.reader.name} ({r.readingOrder}): <span className="num">z = {formatRedshift(r.z)}</span>, grade {gradeText(detail.campaign.gradeScheme, r.grade)}, {CLASS_NAMES[r.class]}
                     </span>
                   ))}
                   {m.readings.length === 0 ? <span className="block pl-3 text-xs text-ink-500">no reading you may see</span> : null}
@@ -109,6 +128,14 @@ export function ContextPanel({ detail, arrays }: { detail: SpectrumDetail; array
         <Fact term="Instrument">{s.instrument ?? dash}</Fact>
         <Fact term="Exposure">{s.exposureS === null ? dash : <span className="num">{s.exposureS.toLocaleString('en')} s</span>}</Fact>
         {s.dateObs ? <Fact term="Observed">{formatDate(s.dateObs)}</Fact> : null}
+        {s.ra !== null && s.dec !== null ? (
+          <Fact term="Pointing">
+            <Position ra={s.ra} dec={s.dec} />
+          </Fact>
+        ) : null}
+        <Fact term="Flux unit">
+          <FluxUnitText unit={arrays?.fluxUnit ?? s.fluxUnit} />
+        </Fact>
         <Fact term="Pixels · λ">
           <span className="num">
             {s.pixels.toLocaleString('en')} · {s.wavelengthMin.toFixed(0)}–{s.wavelengthMax.toFixed(0)} Å

@@ -35,7 +35,7 @@ export function InspectHeader({ detail, campaign, flash }: { detail: SpectrumDet
       </div>
       {flash ? (
         <Notice tone="success" role="status">
-          Saved {flash.fileName}: <span className="num">z = {formatRedshift(flash.reading.z)}</span>, grade {flash.reading.grade} ({flash.gradeLabel}), {CLASS_NAMES[flash.reading.class]} — revision {flash.reading.revision}.
+          Saved {flash.fileName}: <span className="num">z = {formatRedshift(flash.reading.z)}</span>, grade {flash.gradeLabel}, {CLASS_NAMES[flash.reading.class]} — revision {flash.reading.revision}.
         </Notice>
       ) : null}
     </header>

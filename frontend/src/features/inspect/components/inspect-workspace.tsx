@@ -30,6 +30,7 @@ import { ReadingForm } from './reading-form';
 import { SolutionsList } from './solutions-list';
 import { SpectrumPlot } from '@/components/spectrum/spectrum-plot';
 import type { PlotControls, PlotTool } from '@/components/spectrum/spectrum-plot';
+import { gradeForKey } from '@/lib/grade-label';
 import { TrialZInput } from './trial-z-input';
 
 /**
@@ -125,9 +126,13 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
         const from = current >= 0 ? current : delta > 0 ? -1 : 0;
         snap((from + delta + solutions.length) % solutions.length);
       },
-      setGrade: (code) => canRead && campaign.gradeScheme.some((g) => g.code === code) && setDraft((d) => ({ ...d, grade: code })),
-      gradeAndSave: (code) => {
-        if (!canRead || !campaign.gradeScheme.some((g) => g.code === code)) return;
+      setGrade: (digit) => {
+        const code = gradeForKey(campaign.gradeScheme, digit);
+        if (canRead && code !== null) setDraft((d) => ({ ...d, grade: code }));
+      },
+      gradeAndSave: (digit) => {
+        const code = gradeForKey(campaign.gradeScheme, digit);
+        if (!canRead || code === null) return;
         setDraft((d) => ({ ...d, grade: code }));
         save({ ...draft, grade: code }, code);
       },

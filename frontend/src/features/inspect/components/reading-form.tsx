@@ -51,11 +51,15 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
       <fieldset className="min-w-0">
         <legend className="mb-1 text-sm font-medium text-ink-800">Grade</legend>
         <div className="flex flex-col gap-0.5">
-          {scheme.map((g) => (
+          {scheme.map((g, i) => (
             <label key={g.code} className="flex min-w-0 cursor-pointer flex-wrap items-baseline gap-x-2 rounded-control px-1 py-0.5 hover:bg-paper-200 has-[:checked]:bg-ember-50">
               <input type="radio" name="grade" value={g.code} checked={draft.grade === g.code} onChange={() => onDraft((d) => ({ ...d, grade: g.code }))} className="accent-ember-600" />
-              <span className="num font-semibold">{g.code}</span>
+              {/* The digit key of the grade: its code in older digit schemes, else its place. */}
+              <kbd className="num font-semibold" title="Its key">
+                {/^\d+$/.test(g.code) ? g.code : i + 1}
+              </kbd>
               <span>{g.label}</span>
+              {g.code.toLowerCase() !== g.label.toLowerCase() && !/^\d+$/.test(g.code) ? <span className="num text-xs text-ink-500">{g.code}</span> : null}
               {/* The meaning wraps on its own line: readers grade by it, so it is never cut off. */}
               <span className="basis-full pl-6 text-xs text-ink-500">{g.meaning}</span>
             </label>

@@ -6,8 +6,9 @@ export interface InspectKeyActions {
   focusZ: () => void;
   takeTop: () => void;
   stepSolution: (delta: 1 | -1) => void;
-  setGrade: (code: number) => void;
-  gradeAndSave: (code: number) => void;
+  setGrade: (digit: number) => void;
+  /** A digit key: the grade it names (grade-label.ts gradeForKey). */
+  gradeAndSave: (digit: number) => void;
   save: () => void;
   setClass: (c: SpectrumClass) => void;
   focusNote: () => void;

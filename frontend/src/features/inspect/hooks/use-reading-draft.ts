@@ -3,7 +3,7 @@ import { usePerSpectrum } from './use-per-spectrum';
 
 /** What the reader is composing; z is not here, it is the comb's (see TrialZStore). */
 export interface ReadingDraft {
-  grade: number | null;
+  grade: string | null;
   cls: SpectrumClass;
   /** Comb lines on data the reader unticked; everything else on data counts as used. */
   excluded: ReadonlySet<string>;

@@ -28,7 +28,7 @@ export function useSaveReading({ spectrumId, campaignId, store, solutions, lines
   const [problem, setProblem] = usePerSpectrum<string | null>(spectrumId, () => null);
   const [sentFor, setSentFor] = useState<number | null>(null);
 
-  const save = (draft: ReadingDraft, gradeOverride?: number) => {
+  const save = (draft: ReadingDraft, gradeOverride?: string) => {
     if (mutation.isPending) return;
     const grade = gradeOverride ?? draft.grade;
     if (grade === null) {

@@ -1,5 +1,6 @@
 import type { Reading } from '@contracts/readings';
 import { useLocation } from 'react-router-dom';
+import { gradeText } from '@/lib/grade-label';
 import type { SpectrumDetail } from '../api/schemas';
 
 /** The reading just saved travels to the next spectrum in the history state, so the reader sees it landed. */
@@ -16,6 +17,6 @@ export const savedFlash = (reading: Reading, detail: SpectrumDetail): SavedFlash
   saved: {
     reading,
     fileName: detail.target?.catalogueId ?? detail.spectrum.fileName,
-    gradeLabel: detail.campaign.gradeScheme.find((g) => g.code === reading.grade)?.label ?? String(reading.grade),
+    gradeLabel: gradeText(detail.campaign.gradeScheme, reading.grade),
   },
 });

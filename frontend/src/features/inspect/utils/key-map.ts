@@ -1,7 +1,7 @@
 /**
  * Redward's inspection key map, as data: the handler and the help overlay read the same table,
  * so what the overlay says is what the keys do. Letters follow the trade's words (t = take,
- * n/p = next/previous solution, f = frame, m = smoothing); grades are their own digits.
+ * n/p = next/previous solution, f = frame, m = smoothing); a digit is the grade at that place in the scheme (or the grade with that digit code in older schemes).
  */
 export interface KeyBinding {
   keys: string[];
@@ -34,7 +34,7 @@ export const KEY_MAP: KeyGroup[] = [
   {
     title: 'Reading',
     bindings: [
-      { keys: ['0–9'], does: 'Set the grade by its code' },
+      { keys: ['1–9'], does: 'Set the grade at that place in the scheme (1 = most confident; a digit code in older schemes)' },
       { keys: ['g'], does: 'Class: galaxy' },
       { keys: ['q'], does: 'Class: quasar / AGN' },
       { keys: ['s'], does: 'Class: star' },

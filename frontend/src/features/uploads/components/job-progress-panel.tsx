@@ -8,7 +8,7 @@ import { formatCount, formatDateTime } from '@/lib/format';
 import { useCancelJob } from '../api/cancel-job';
 import { isJobFinished, useJob } from '../api/get-job';
 import { useJobEvents } from '../hooks/use-job-events';
-import { FailedFiles } from './failed-files';
+import { JobFiles } from './job-files';
 import { JobStateBadge } from './job-state-badge';
 import { JobSummary } from './job-summary';
 
@@ -85,7 +85,7 @@ export function JobProgressPanel({ jobId, onFinished }: Props) {
       {finished ? (
         <>
           <JobSummary job={j} />
-          <FailedFiles errors={j.errors} failedCount={j.summary.failed} />
+          <JobFiles jobId={j.id} campaignId={j.campaignId} />
         </>
       ) : null}
     </div>

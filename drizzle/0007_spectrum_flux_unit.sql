@@ -1,0 +1,1 @@
+ALTER TABLE `spectra` ADD `flux_unit` text;
