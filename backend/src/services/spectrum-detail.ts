@@ -97,7 +97,7 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
           // JSON columns come back untyped; they hold what the scan stored (typed by its result).
           solutions: scan.solutions as Scan['solutions'],
           lineMatches: scan.lineMatches as Scan['lineMatches'],
-          meta: scan.meta as Scan['meta'],
+          meta: withoutUnknownReason(scan.meta) as Scan['meta'],
           createdAt: scan.createdAt,
         }
       : null,
@@ -124,4 +124,11 @@ export function getScanCurves(ctx: ServiceContext, spectrumId: number) {
 function unknownReasonOf(meta: unknown): { unknownReason?: string } {
   const reason = (meta as { unknownReason?: unknown } | null)?.unknownReason;
   return typeof reason === 'string' ? { unknownReason: reason } : {};
+}
+
+/** The scan's meta as the contract declares it: the reason for 'unknown' is served beside the class. */
+function withoutUnknownReason(meta: unknown): unknown {
+  if (meta === null || typeof meta !== 'object' || !('unknownReason' in meta)) return meta;
+  const { unknownReason: _reason, ...rest } = meta as Record<string, unknown>;
+  return rest;
 }
