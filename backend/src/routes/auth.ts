@@ -4,6 +4,7 @@ import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { loginRateLimits } from '../http/rate-limits';
 import type { ServiceContext } from '../services/context';
+import { endSession } from '../services/sessions';
 import { signIn } from '../services/sign-in';
 
 export function authRoutes(ctx: ServiceContext): Router {
@@ -17,9 +18,8 @@ export function authRoutes(ctx: ServiceContext): Router {
     body: loginRequestSchema,
     response: meResponseSchema,
     handle: async ({ req, body }) => {
-      const { user, epoch } = await signIn(ctx, body.email, body.password);
-      req.session.userId = user.id;
-      req.session.epoch = epoch;
+      const { user, sessionId } = await signIn(ctx, body.email, body.password);
+      req.session.sessionId = sessionId;
       await req.session.save();
       return { user };
     },
@@ -30,6 +30,8 @@ export function authRoutes(ctx: ServiceContext): Router {
     path: '/auth/logout',
     access: access.public,
     handle: ({ req }) => {
+      // Ended in the database, so a copy of the cookie kept elsewhere no longer works either.
+      if (typeof req.session.sessionId === 'string') endSession(ctx, req.session.sessionId);
       req.session.destroy();
       return undefined;
     },
