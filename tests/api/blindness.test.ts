@@ -41,4 +41,24 @@ describe('blind second reading', () => {
     // The check can fail: the lead, who may see both readings, does see it.
     expect(JSON.stringify((await lead.get(`/api/spectra/${spectrumId}`)).body)).toContain(FIRST_NOTE);
   });
+
+  it('the spectra list tells a reader only whether they themselves have read a spectrum', async () => {
+    const members = await signInDemoMembers(t);
+    const doneFor = async (agent: Agent) => {
+      const res = await agent.get('/api/campaigns/1/spectra?q=BLIND');
+      expect(res.status).toBe(200);
+      return (res.body.rows as { id: number; readingsDone: number; readingsAssigned: number }[]).find((r) => r.id === spectrumId)!;
+    };
+    // reader1 has read, reader2 not yet: reader2 must not learn that the first reading is in.
+    expect(await doneFor(reader2)).toMatchObject({ readingsDone: 0, readingsAssigned: 2 });
+    expect(await doneFor(members.reader1)).toMatchObject({ readingsDone: 1 });
+    expect(await doneFor(lead)).toMatchObject({ readingsDone: 1 });
+
+    const second = await reader2.post(`/api/spectra/${spectrumId}/readings`).send({ z: 0.5, grade: 3, class: 'galaxy', lines: [], note: '' });
+    expect(second.status).toBe(200);
+    expect(await doneFor(reader2)).toMatchObject({ readingsDone: 1 });
+    expect(await doneFor(members.reader1)).toMatchObject({ readingsDone: 1 });
+    expect(await doneFor(lead)).toMatchObject({ readingsDone: 2 });
+    expect(await doneFor(members.observer)).toMatchObject({ readingsDone: 2 });
+  });
 });

@@ -49,6 +49,8 @@ const CASES: Case[] = [
   { method: 'post', route: '/invitations/:token/accept', url: '/api/invitations/not-a-real-token/accept', body: () => ({}), expect: all(404) },
   { method: 'get', route: '/admin/users', url: '/api/admin/users', expect: adminOnly(200) },
   { method: 'patch', route: '/admin/users/:userId', url: '/api/admin/users/5', body: () => ({ disabled: false }), expect: adminOnly(200) },
+  // A user who does not exist, so the matrix's own sessions survive.
+  { method: 'post', route: '/admin/users/:userId/sign-out-everywhere', url: '/api/admin/users/999/sign-out-everywhere', expect: adminOnly(404) },
   { method: 'get', route: '/admin/mail', url: '/api/admin/mail', expect: adminOnly(200) },
   { method: 'get', route: '/admin/mail/:mailId', url: '/api/admin/mail/999', expect: adminOnly(404) },
   // Lead without a file: the route is reached (400), the others are refused first.

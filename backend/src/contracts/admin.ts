@@ -9,10 +9,13 @@ export const adminUserSchema = z.object({
   createdAt: z.string(),
   lastLoginAt: z.string().nullable(),
   campaignCount: z.number().int(),
+  /** Browsers signed in to the account right now (not ended, not expired). */
+  activeSessions: z.number().int(),
 });
 export type AdminUser = z.infer<typeof adminUserSchema>;
 export const adminUsersResponseSchema = z.object({ users: z.array(adminUserSchema) });
 export const adminUserResponseSchema = z.object({ user: adminUserSchema });
+export const signOutEverywhereResponseSchema = z.object({ user: adminUserSchema, sessionsEnded: z.number().int() });
 
 export const updateUserRequestSchema = z
   .object({ isAdmin: z.boolean(), disabled: z.boolean() })

@@ -92,7 +92,7 @@ export const spectrumRowSchema = z.object({
   wavelengthMax: z.number(),
   snrMedian: z.number().nullable(),
   scanState: z.enum(['scanned', 'not scanned']),
-  /** Readers assigned and readings saved (first and second reading). */
+  /** Readers assigned, and readings saved (for a reader viewing the list: only their own, 0 or 1). */
   readingsAssigned: z.number().int(),
   readingsDone: z.number().int(),
   zBest: z.number().nullable(),

@@ -24,8 +24,6 @@ export const users = sqliteTable('users', {
   passwordHash: text('password_hash').notNull(),
   isAdmin: integer('is_admin', { mode: 'boolean' }).notNull().default(false),
   disabled: integer('disabled', { mode: 'boolean' }).notNull().default(false),
-  /** Bumped on password change: sessions issued under an older epoch are refused. */
-  sessionEpoch: integer('session_epoch').notNull().default(0),
   lastLoginAt: text('last_login_at'),
   createdAt: createdAt(),
 });
@@ -91,6 +89,26 @@ export const auditEvents = sqliteTable(
     createdAt: createdAt(),
   },
   (t) => [index('audit_events_subject').on(t.subjectType, t.subjectId), index('audit_events_campaign').on(t.campaignId)],
+);
+
+/**
+ * One signed-in browser. The session cookie carries only `id` (sealed by iron-session), so
+ * signing out, a password change or an admin's "sign out everywhere" ends a session by setting
+ * `revoked_at`, and every request finds it by primary key.
+ */
+export const sessions = sqliteTable(
+  'sessions',
+  {
+    /** 32 random bytes, base64url. */
+    id: text('id').primaryKey(),
+    userId: integer('user_id').notNull().references(() => users.id),
+    createdAt: createdAt(),
+    /** Refreshed at most every few minutes, so reads stay reads. */
+    lastSeenAt: text('last_seen_at').notNull(),
+    expiresAt: text('expires_at').notNull(),
+    revokedAt: text('revoked_at'),
+  },
+  (t) => [index('sessions_user').on(t.userId)],
 );
 
 export const mailMessages = sqliteTable('mail_messages', {

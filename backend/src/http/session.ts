@@ -2,17 +2,15 @@ import type { NextFunction, Request, Response } from 'express';
 import { getIronSession, type IronSession } from 'iron-session';
 import type { Actor, ServiceContext } from '../services/context';
 import { findTokenUser } from '../services/api-tokens';
-import { findSessionUser } from '../services/find-session-user';
+import { findSessionUser, SESSION_TTL_MS } from '../services/sessions';
 import { AppError } from './errors';
 
+/** What the sealed cookie holds: only the id of a row in `sessions`, which decides if it still counts. */
 export interface SessionData {
-  userId?: number;
-  /** The user's session epoch at sign-in; a password change bumps it and ends older sessions. */
-  epoch?: number;
+  sessionId?: string;
 }
 
 export const SESSION_COOKIE = 'redward_session';
-const SESSION_TTL_SECONDS = 14 * 24 * 3600;
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -28,7 +26,7 @@ export function sessionMiddleware(ctx: ServiceContext, password: string) {
       req.session = await getIronSession<SessionData>(req, res, {
         password,
         cookieName: SESSION_COOKIE,
-        ttl: SESSION_TTL_SECONDS,
+        ttl: SESSION_TTL_MS / 1000,
         cookieOptions: { httpOnly: true, sameSite: 'lax', secure: req.secure, path: '/' },
       });
       const bearer = /^Bearer\s+(\S+)$/i.exec(req.get('authorization') ?? '')?.[1];
@@ -39,9 +37,10 @@ export function sessionMiddleware(ctx: ServiceContext, password: string) {
         if (!req.user) return next(new AppError(401, 'invalid_token', 'The access token is not valid (unknown, revoked, or its account is disabled).'));
         return next();
       }
-      const { userId, epoch } = req.session;
-      req.user = userId === undefined ? null : findSessionUser(ctx, userId, epoch ?? 0);
-      if (userId !== undefined && req.user === null) req.session.destroy();
+      const { sessionId } = req.session;
+      req.user = typeof sessionId === 'string' ? findSessionUser(ctx, sessionId) : null;
+      // An ended session (or a cookie from before sessions were recorded) clears the cookie.
+      if (req.user === null && Object.keys(req.session).length > 0) req.session.destroy();
       next();
     } catch (err) {
       next(err);

@@ -25,10 +25,8 @@ export function accountRoutes(ctx: ServiceContext): Router {
     access: access.signedIn,
     body: changePasswordRequestSchema,
     handle: async ({ req, user, body }) => {
-      const epoch = await changePassword(ctx, user!, body.currentPassword, body.newPassword);
-      // This browser stays signed in; every other session of the account ends.
-      req.session.epoch = epoch;
-      await req.session.save();
+      // This browser stays signed in (a script with a token keeps no session); every other session ends.
+      await changePassword(ctx, user!, body.currentPassword, body.newPassword, req.session.sessionId);
       return undefined;
     },
   });

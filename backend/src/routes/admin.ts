@@ -1,12 +1,13 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { adminUserResponseSchema, adminUsersResponseSchema, mailListResponseSchema, mailMessageResponseSchema, updateUserRequestSchema } from '../contracts/admin';
+import { adminUserResponseSchema, adminUsersResponseSchema, mailListResponseSchema, mailMessageResponseSchema, signOutEverywhereResponseSchema, updateUserRequestSchema } from '../contracts/admin';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { notFound } from '../http/errors';
 import { listUsers, updateUser } from '../services/admin-users';
 import { getCaughtMail, listCaughtMail } from '../services/caught-mail';
 import type { ServiceContext } from '../services/context';
+import { signOutEverywhere } from '../services/sessions';
 
 const numericId = (raw: unknown, what: string) => {
   const parsed = z.coerce.number().int().positive().safeParse(raw);
@@ -32,6 +33,18 @@ export function adminRoutes(ctx: ServiceContext): Router {
     body: updateUserRequestSchema,
     response: adminUserResponseSchema,
     handle: ({ req, user, body }) => ({ user: updateUser(ctx, user!, numericId(req.params.userId, 'user'), body) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'post',
+    path: '/admin/users/:userId/sign-out-everywhere',
+    access: access.admin,
+    response: signOutEverywhereResponseSchema,
+    handle: ({ req, user }) => {
+      const userId = numericId(req.params.userId, 'user');
+      const sessionsEnded = signOutEverywhere(ctx, user!, userId);
+      return { user: listUsers(ctx).find((u) => u.id === userId)!, sessionsEnded };
+    },
   });
 
   defineRoute(ctx, router, {

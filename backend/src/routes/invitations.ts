@@ -24,9 +24,10 @@ export function invitationRoutes(ctx: ServiceContext): Router {
     response: acceptInvitationResponseSchema,
     handle: async ({ req, user, body }) => {
       const result = await acceptInvitation(ctx, String(req.params.token), user, body);
-      req.session.userId = result.user.id;
-      req.session.epoch = result.epoch;
-      await req.session.save();
+      if (result.sessionId !== null) {
+        req.session.sessionId = result.sessionId;
+        await req.session.save();
+      }
       return { campaignId: result.campaignId, user: result.user };
     },
   });

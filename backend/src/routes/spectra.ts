@@ -17,7 +17,7 @@ export function spectrumRoutes(ctx: ServiceContext): Router {
     access: access.campaignViewer,
     query: spectraQuerySchema,
     response: spectraPageSchema,
-    handle: ({ campaign, query }) => listSpectra(ctx, campaign!.id, query),
+    handle: ({ campaign, user, query }) => listSpectra(ctx, campaign!.id, query, { userId: user!.id, role: campaign!.role }),
   });
 
   defineRoute(ctx, router, {

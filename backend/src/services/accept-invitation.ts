@@ -6,6 +6,7 @@ import type { Actor, ServiceContext } from './context';
 import { hashInvitationToken } from './invitation-tokens';
 import { hashPassword } from './passwords';
 import { recordAudit } from './record-audit';
+import { startSession } from './sessions';
 
 type InvitationRow = typeof invitations.$inferSelect;
 
@@ -50,7 +51,7 @@ export async function acceptInvitation(
   token: string,
   signedIn: Actor | null,
   input: AcceptInput,
-): Promise<{ campaignId: number; user: Actor; epoch: number }> {
+): Promise<{ campaignId: number; user: Actor; sessionId: string | null }> {
   const invitation = findUsableInvitation(ctx, token);
   const account = ctx.db.select().from(users).where(eq(users.email, invitation.email)).get();
 
@@ -103,6 +104,7 @@ export async function acceptInvitation(
   return {
     campaignId: result.campaignId,
     user: { id: u.id, email: u.email, name: u.name, isAdmin: u.isAdmin },
-    epoch: u.sessionEpoch,
+    // A new account is signed in here; an existing one already is (it had to be, above).
+    sessionId: account ? null : startSession(ctx, u.id),
   };
 }

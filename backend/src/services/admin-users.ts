@@ -4,6 +4,7 @@ import { memberships, users } from '../db/schema';
 import { badRequest, notFound } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
+import { countLiveSessions } from './sessions';
 
 export function listUsers(ctx: ServiceContext): AdminUser[] {
   const counts = new Map(
@@ -14,6 +15,7 @@ export function listUsers(ctx: ServiceContext): AdminUser[] {
       .all()
       .map((r) => [r.userId, r.n]),
   );
+  const live = countLiveSessions(ctx);
   return ctx.db
     .select()
     .from(users)
@@ -28,6 +30,7 @@ export function listUsers(ctx: ServiceContext): AdminUser[] {
       createdAt: u.createdAt,
       lastLoginAt: u.lastLoginAt,
       campaignCount: counts.get(u.id) ?? 0,
+      activeSessions: live.get(u.id) ?? 0,
     }));
 }
 

@@ -1,16 +1,21 @@
-import { eq, sql } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { badRequest } from '../http/errors';
 import { users } from '../db/schema';
 import type { Actor, ServiceContext } from './context';
 import { hashPassword, verifyPassword } from './passwords';
 import { recordAudit } from './record-audit';
+import { endUserSessions } from './sessions';
 
-/** Checks the current password, stores the new hash and ends every other session. Returns the new epoch. */
+/**
+ * Checks the current password, stores the new hash and ends every session of the account but
+ * `keepSessionId` (the browser making the change). Returns how many sessions ended.
+ */
 export async function changePassword(
   ctx: ServiceContext,
   actor: Actor,
   currentPassword: string,
   newPassword: string,
+  keepSessionId: string | undefined,
 ): Promise<number> {
   const user = ctx.db.select().from(users).where(eq(users.id, actor.id)).get();
   if (!user || !(await verifyPassword(user.passwordHash, currentPassword))) {
@@ -19,13 +24,9 @@ export async function changePassword(
   if (currentPassword === newPassword) throw badRequest('Choose a password different from the current one.', 'same_password');
   const passwordHash = await hashPassword(newPassword);
   return ctx.db.transaction((tx) => {
-    const updated = tx
-      .update(users)
-      .set({ passwordHash, sessionEpoch: sql`${users.sessionEpoch} + 1` })
-      .where(eq(users.id, actor.id))
-      .returning({ epoch: users.sessionEpoch })
-      .get();
-    recordAudit(tx, { actorId: actor.id, action: 'account.password_changed', subjectType: 'user', subjectId: actor.id });
-    return updated!.epoch;
+    tx.update(users).set({ passwordHash }).where(eq(users.id, actor.id)).run();
+    const ended = endUserSessions(ctx, actor.id, keepSessionId, tx);
+    recordAudit(tx, { actorId: actor.id, action: 'account.password_changed', subjectType: 'user', subjectId: actor.id, after: { sessionsEnded: ended } });
+    return ended;
   });
 }

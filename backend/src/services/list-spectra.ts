@@ -1,4 +1,5 @@
 import { and, asc, count, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
+import type { CampaignRole } from '../contracts/campaigns';
 import type { SpectraPage, spectraQuerySchema } from '../contracts/ingest';
 import type { z } from 'zod';
 import { qualified } from '../db/qualified';
@@ -18,8 +19,19 @@ const sortColumns = {
   createdAt: spectra.createdAt,
 } as const;
 
-/** One page of a campaign's spectra, sorted and filtered in SQL so thousands stay quick. */
-export function listSpectra(ctx: ServiceContext, campaignId: number, query: Query): SpectraPage {
+/** Who asks: a reader's list must not say whether the other reading of a spectrum is in. */
+export interface SpectraViewer {
+  userId: number;
+  role: CampaignRole | null;
+}
+
+/**
+ * One page of a campaign's spectra, sorted and filtered in SQL so thousands stay quick.
+ * `readingsDone` counts every saved reading for leads, observers and admins; for a reader it
+ * counts only their own (0 or 1), since "2 of 2" would tell them the other reader has finished.
+ */
+export function listSpectra(ctx: ServiceContext, campaignId: number, query: Query, viewer: SpectraViewer): SpectraPage {
+  const ownReadingsOnly = viewer.role === 'reader' ? sql` and ${qualified(readings.readerId)} = ${viewer.userId}` : sql``;
   const filters: SQL[] = [eq(spectra.campaignId, campaignId)];
   if (query.q) {
     const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -50,7 +62,7 @@ export function listSpectra(ctx: ServiceContext, campaignId: number, query: Quer
         spectrumClass: scanResults.spectrumClass,
         createdAt: spectra.createdAt,
         readingsAssigned: sql<number>`(select count(*) from ${assignments} where ${qualified(assignments.spectrumId)} = ${qualified(spectra.id)})`,
-        readingsDone: sql<number>`(select count(*) from ${readings} where ${qualified(readings.spectrumId)} = ${qualified(spectra.id)})`,
+        readingsDone: sql<number>`(select count(*) from ${readings} where ${qualified(readings.spectrumId)} = ${qualified(spectra.id)}${ownReadingsOnly})`,
       })
       .from(spectra)
       .leftJoin(targets, eq(targets.id, spectra.targetId))

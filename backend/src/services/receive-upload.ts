@@ -3,6 +3,7 @@ import { eq } from 'drizzle-orm';
 import { campaigns, jobItems, jobs, storedFiles } from '../db/schema';
 import { AppError, badRequest } from '../http/errors';
 import { ArchiveRefusedError, expandArchive } from '../ingest/expand-archive';
+import { safeFileName } from '../ingest/safe-file-name';
 import { isZipFileName } from '../jobs/accepted-files';
 import type { BlobStore } from '../storage/blob-store';
 import type { Actor, ServiceContext } from './context';
@@ -14,6 +15,11 @@ export interface ReceivedFile {
   /** Where the upload landed, inside the store's temporary folder. */
   tempFile: string;
 }
+
+// Refused here, not in the job: an empty file sent on its own is a failed transfer or a wrong
+// pick, and its sender should know while they are still at the upload form.
+const emptyFile = (name: string) =>
+  badRequest(`${name} is empty (0 bytes); it may not have finished copying. Send it again. Nothing from this upload was stored.`, 'file_empty');
 
 export interface UploadReceipt {
   jobId: number;
@@ -47,16 +53,21 @@ export async function receiveUpload(
   const staged: { tempFile: string; entry: Entry }[] = [];
   try {
     for (const file of files) {
-      if (isZipFileName(file.originalName)) {
-        const expanded = await expandArchive(file.tempFile, file.originalName, store, ctx.config.uploads.archive);
+      const name = safeFileName(file.originalName);
+      if (isZipFileName(name)) {
+        const expanded = await expandArchive(file.tempFile, name, store, ctx.config.uploads.archive);
         rmSync(file.tempFile, { force: true });
-        if (expanded.length === 0) throw badRequest(`${file.originalName} contains no files.`, 'archive_empty');
+        if (expanded.length === 0) throw badRequest(`${name} contains no files.`, 'archive_empty');
         for (const e of expanded) {
-          staged.push({ tempFile: e.tempFile, entry: { fileName: `${file.originalName}/${e.name}`, sha256: e.sha256, sizeBytes: e.sizeBytes } });
+          const fileName = `${name}/${safeFileName(e.name)}`;
+          // An empty entry fails in the job like any other unreadable entry: refusing a night's
+          // archive for one placeholder file would cost far more than it saves.
+          staged.push({ tempFile: e.tempFile, entry: { fileName, sha256: e.sha256, sizeBytes: e.sizeBytes } });
         }
       } else {
         const { sha256, sizeBytes } = await store.hashFile(file.tempFile);
-        staged.push({ tempFile: file.tempFile, entry: { fileName: file.originalName, sha256, sizeBytes } });
+        staged.push({ tempFile: file.tempFile, entry: { fileName: name, sha256, sizeBytes } });
+        if (sizeBytes === 0) throw emptyFile(name);
       }
     }
   } catch (err) {
