@@ -27,7 +27,7 @@ beforeAll(async () => {
   work = mkdtempSync(path.join(tmpdir(), 'redward-backup-test-'));
   const ids = await uploadAssignedSpectra(t, 4, 'BAK');
   const { reader1 } = await signInDemoMembers(t);
-  expect((await reader1.post(`/api/spectra/${ids[0]}/readings`).send({ z: 0.42, grade: 3, class: 'galaxy', lines: [], note: 'backed up' })).status).toBe(200);
+  expect((await reader1.post(`/api/spectra/${ids[0]}/readings`).send({ z: 0.42, grade: 'likely', class: 'galaxy', lines: [], note: 'backed up' })).status).toBe(200);
 }, 120_000);
 afterAll(async () => {
   await t.cleanup();

@@ -54,7 +54,7 @@ describe('blind second reading', () => {
     expect(await doneFor(members.reader1)).toMatchObject({ readingsDone: 1 });
     expect(await doneFor(lead)).toMatchObject({ readingsDone: 1 });
 
-    const second = await reader2.post(`/api/spectra/${spectrumId}/readings`).send({ z: 0.5, grade: 3, class: 'galaxy', lines: [], note: '' });
+    const second = await reader2.post(`/api/spectra/${spectrumId}/readings`).send({ z: 0.5, grade: 'likely', class: 'galaxy', lines: [], note: '' });
     expect(second.status).toBe(200);
     expect(await doneFor(reader2)).toMatchObject({ readingsDone: 1 });
     expect(await doneFor(members.reader1)).toMatchObject({ readingsDone: 1 });
