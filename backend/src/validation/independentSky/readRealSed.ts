@@ -89,7 +89,9 @@ function read(file: string): Uint8Array {
 /**
  * A Kinney–Calzetti (1996) rest-frame composite (HDU 1: WAVELENGTH Å, FLUX f_λ). The file does not
  * say air or vacuum; taken as vacuum because the engine, reading it as air, puts the elliptical and
- * S0 at z = +0.0003 to +0.0004, the air–vacuum factor (measured on the real-spectra table).
+ * S0 at z = +0.0003 to +0.0004, the air–vacuum factor (measured on the real-spectra table). Not
+ * settled: on the independent sky the engine finds these galaxies 110–160 km/s low (median), which
+ * would fit air wavelengths (−84 km/s) plus template mismatch. Either way ≤ 0.0005 in Δz/(1 + z).
  */
 export function readKc96(name: 'elliptical' | 's0' | 'bulge' | 'sa'): RealSed {
   const bytes = read(`composites/KC96_${name}_template.fits`);
