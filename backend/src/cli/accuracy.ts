@@ -38,7 +38,7 @@ const json = flag('--json');
 const only = new Set((option('--only') ?? 'real,generator,sky').split(','));
 for (const s of only) if (!['real', 'generator', 'sky'].includes(s)) usage(`--only takes real, generator and/or sky, not ${s}`);
 const perCase = count('--per-case', quick ? 8 : 40);
-const skyCount = count('--sky', quick ? 60 : 500);
+const skyCount = count('--sky', quick ? 60 : 1000);
 const seed = count('--seed', 2024);
 const keep = option('--keep');
 

@@ -79,7 +79,9 @@ interface Plan { kind: SkyKind; cls: TemplateClass; z: number; range: [number, n
 
 function plan(random: Random): Plan {
   const [kind, cls] = drawKind(random);
-  const snr = kind === 'lyman-break' && random.chance(0.75) ? random.logUniform(2, 5) : kind === 'lyman-break' ? random.logUniform(5, 15) : random.logUniform(2, 20);
+  // Lyman-break galaxies are faint (70 % at S/N 2–5); the rest reach 5–15 so that the S/N ≥ 10
+  // Lyman-break ↔ 4000 Å-break count has Lyman-break sources in it too.
+  const snr = kind === 'lyman-break' && random.chance(0.7) ? random.logUniform(2, 5) : kind === 'lyman-break' ? random.logUniform(5, 15) : random.logUniform(2, 20);
   const resolution = random.logUniform(1000, 5000);
   const base = { kind, cls, snr, resolution, realResolution: false };
   switch (kind) {
