@@ -1,24 +1,29 @@
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { readSpectrum } from '../../backend/src/spectra/readSpectrum';
 import { SpectrumReadError } from '../../backend/src/spectra/errors';
-import { scanSpectrum } from '../../backend/src/spectra/scanSpectrum';
+import { formatConfusion } from '../../backend/src/validation/confusionMatrix';
+import { formatHalf, readManifest, REAL_SPECTRA_DIR, scoreRealSpectra, withinTolerance, type RealSpectraScore } from '../../backend/src/validation/realSpectraSplit';
 
 // Real spectra with published redshifts: ../shared/real-spectra (README.md and MANIFEST.tsv there
-// name each file's source and the paper or pipeline its redshift comes from).
-const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..', '..', 'shared', 'real-spectra');
-const present = existsSync(join(root, 'MANIFEST.tsv'));
+// name each file's source and the paper or pipeline its redshift comes from). Parsing, the
+// tuning/validation split and the scoring live in backend/src/validation/realSpectraSplit.ts,
+// which `npm run accuracy` uses too.
+const root = REAL_SPECTRA_DIR;
+const manifest = readManifest(root);
+const present = manifest !== undefined;
 if (!present) console.warn(`Real-spectra tests skipped: ${root} is absent (it lives outside the repository).`);
 
 interface Row { file: string; cls: string; z: number; reliable: boolean; tol: string }
-const rows: Row[] = present
-  ? readFileSync(join(root, 'MANIFEST.tsv'), 'utf8').trim().split('\n').slice(1).map((l) => {
-      const c = l.split('\t');
-      return { file: c[0]!, cls: c[4]!, z: Number(c[5]), reliable: c[8] === 'yes', tol: c[9]! };
-    })
-  : [];
+const rows: Row[] = (manifest ?? []).map((r) => ({ file: r.file, cls: r.objectClass, z: r.referenceZ, reliable: r.reliable, tol: r.tolerance }));
+
+// One scan per file, shared by the tests below (the reliable rows and the z ≈ 0 composites).
+let scored: RealSpectraScore | undefined;
+function score(): RealSpectraScore {
+  scored ??= scoreRealSpectra(manifest ?? [], root);
+  return scored;
+}
 
 describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
   it('every spectrum file reads without error (the documentation file gives a typed error)', () => {
@@ -43,15 +48,22 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     const lines: string[] = [];
     let pass = 0;
     let total = 0;
-    for (const r of rows.filter((x) => x.reliable)) {
-      const res = scanSpectrum(readSpectrum(new Uint8Array(readFileSync(join(root, r.file)))));
-      const top = res.solutions[0]!;
-      const tol = parseFloat(r.tol);
-      const ok = r.tol.endsWith('rel') ? Math.abs(top.z - r.z) / (1 + r.z) <= tol : Math.abs(top.z - r.z) <= tol;
+    const result = score();
+    for (const f of result.files.filter((x) => x.top1 !== undefined)) {
+      const r = f.row;
+      const top = f.solutions[0]!;
+      const ok = withinTolerance(r, top.z);
       total++;
       if (ok) pass++;
-      lines.push(`${ok ? 'ok ' : 'BAD'} ${r.file.padEnd(46)} ref ${r.z.toFixed(4).padStart(8)} top ${top.z.toFixed(4).padStart(8)} ${top.template}`);
+      lines.push(`${ok ? 'ok ' : 'BAD'} ${f.half === 'tuning' ? 'T' : 'V'} ${r.file.padEnd(46)} ref ${r.referenceZ.toFixed(4).padStart(8)} top ${top.z.toFixed(4).padStart(8)} ${top.template}`);
     }
+    // The two halves (T = tuning, V = validation; sha-256 of the file name, realSpectraSplit.ts):
+    // printed so a change tuned on one half can be checked on the other. No per-half threshold.
+    console.log([
+      formatHalf('tuning half', result.tuning), formatHalf('validation half', result.validation),
+      formatConfusion(result.tuning.confusion, `tuning half: true class × found class (${result.tuning.scanned} sources)`),
+      formatConfusion(result.validation.confusion, `validation half: true class × found class (${result.validation.scanned} sources)`),
+    ].join('\n'));
     const fraction = pass / total;
     console.log(`${lines.join('\n')}\nreliable rows within tolerance: ${pass}/${total} = ${(100 * fraction).toFixed(1)} %`);
     // Issue 3 asks for ≥ 95 %: 105/109 = 96.3 % with engine 0.5.3, which adds a quasar template
@@ -69,15 +81,16 @@ describe.skipIf(!present)('real spectra in ../shared/real-spectra', () => {
     // than with the engine: Hα, [N II], [S II], Hβ and [O II] sit at z = 0.0847, and its header's
     // Z_CONF = 0.53 and Z_WARNIN = 4608 flag the catalogued 0.0880 as doubtful.
     expect(fraction).toBeGreaterThanOrEqual(0.95);
-  });
+  }, 240_000); // scans every source once (≈ 155 files), reused by the next test
 
   it('rest-frame composites and cool-dwarf templates come out at z ≈ 0 with their class (table printed)', () => {
     const lines: string[] = [];
     let pass = 0;
     const chosen = rows.filter((r) => (r.file.startsWith('composites/') || r.file.startsWith('stars/')) && r.cls !== 'DOC');
+    const scans = new Map(score().files.map((f) => [f.row.file, f]));
     for (const r of chosen) {
       const want = /STAR/.test(r.cls) ? ['star'] : /QSO/.test(r.cls) ? ['quasar'] : /LBG/.test(r.cls) ? ['lyman-break', 'galaxy'] : ['galaxy'];
-      const top = scanSpectrum(readSpectrum(new Uint8Array(readFileSync(join(root, r.file))))).solutions[0]!;
+      const top = scans.get(r.file)!.solutions[0]!;
       const ok = Math.abs(top.z) <= 0.005 && want.includes(top.class);
       if (ok) pass++;
       lines.push(`${ok ? 'ok ' : 'BAD'} ${r.file.padEnd(46)} want ${want.join('/').padEnd(18)} top z ${top.z.toFixed(4).padStart(8)} ${top.template}`);
