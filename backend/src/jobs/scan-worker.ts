@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import type { GridStep } from '../contracts/campaigns';
 import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
+import { assertFiniteScan } from '../spectra/scanResultCheck';
 import { scanSpectrum, type ScanResult, type Solution } from '../spectra/scanSpectrum';
 import { solutionModel } from '../spectra/solutionModel';
 import type { SpectrumMeta } from '../spectra/types';
@@ -51,7 +52,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   const n = spectrum.wavelength.length;
   const summary = { meta: spectrum.meta, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! };
   try {
-    const { curves, ...scan } = scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) });
+    const { curves, ...scan } = assertFiniteScan(scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) }));
     return { ok: true, spectrum: summary, scanned: { ok: true, scan, curves: packCurves(curves) } };
   } catch (err) {
     return {
