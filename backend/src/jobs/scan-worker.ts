@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import type { MessagePort } from 'node:worker_threads';
 import type { GridStep } from '../contracts/campaigns';
 import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
@@ -8,7 +9,12 @@ import { solutionModel } from '../spectra/solutionModel';
 import type { SpectrumMeta } from '../spectra/types';
 import { packCurves } from './scan-curves';
 
-export interface ScanTask {
+/** Set by the pool: the worker posts on it once as it begins, which starts the task's time limit. */
+interface Started {
+  started?: MessagePort;
+}
+
+export interface ScanTask extends Started {
   filePath: string;
   fileName: string;
   zMin: number;
@@ -42,6 +48,7 @@ export type ScanTaskResult =
  * keeps. Reading errors are answers, not failures: they are reported per file.
  */
 export default function runScanTask(task: ScanTask): ScanTaskResult {
+  task.started?.postMessage('started');
   let spectrum;
   try {
     spectrum = readSpectrum(readFileSync(task.filePath));
@@ -63,7 +70,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   }
 }
 
-export interface ModelTask {
+export interface ModelTask extends Started {
   filePath: string;
   solution: Pick<Solution, 'z' | 'template'>;
   zMin?: number | undefined;
@@ -79,6 +86,7 @@ export type ModelTaskResult = { ok: true; model: Float32Array } | { ok: false; m
  * scan, so it runs in a worker thread like the scans: the web server's thread stays free.
  */
 export function runModelTask(task: ModelTask): ModelTaskResult {
+  task.started?.postMessage('started');
   try {
     const spectrum = readSpectrum(readFileSync(task.filePath));
     return { ok: true, model: new Float32Array(solutionModel(spectrum, task.solution, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) })) };
