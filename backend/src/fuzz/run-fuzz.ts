@@ -1,6 +1,6 @@
 import { Piscina } from 'piscina';
 import type { FuzzCase, FuzzCaseOutcome } from './fuzz-worker';
-import { mutateSpectrum, seededRandom, type MutationKind } from './mutate-spectrum';
+import { mutateSpectrum, seededRandom, type Mutation, type MutationKind } from './mutate-spectrum';
 
 export interface FuzzOptions {
   /** Real spectrum files to mutate: a name for the report and the bytes. */
@@ -38,6 +38,25 @@ export interface FuzzReport {
 
 const workerFile = new URL('./fuzz-worker.ts', import.meta.url).href;
 
+export interface FuzzDraw {
+  index: number;
+  source: string;
+  mutation: Mutation;
+}
+
+/**
+ * The cases of a run in order: which corpus file and which mutation of it. Drawn from one seeded
+ * generator, so case k of a seed is the same whatever the thread count (and can be written out
+ * with `npm run fuzz -- --seed S --write-case k FILE` to reproduce a failure by hand).
+ */
+export function* fuzzCases(corpus: FuzzOptions['corpus'], seed: number): Generator<FuzzDraw, void, undefined> {
+  const rnd = seededRandom(seed);
+  for (let index = 0; ; index++) {
+    const source = corpus[Math.floor(rnd() * corpus.length)]!;
+    yield { index, source: source.name, mutation: mutateSpectrum(source.bytes, rnd) };
+  }
+}
+
 /**
  * Mutates the corpus `cases` times (seeded, so a run can be repeated) and reads and scans every
  * variant in worker threads, each case under a wall-clock limit: a case that overruns is a hang
@@ -58,11 +77,12 @@ export async function runFuzz(options: FuzzOptions): Promise<FuzzReport> {
     failures: [],
     seconds: 0,
   };
-  const rnd = seededRandom(options.seed);
+  const cases = fuzzCases(options.corpus, options.seed);
   let next = 0;
-  const runOne = async (index: number) => {
-    const source = options.corpus[Math.floor(rnd() * options.corpus.length)]!;
-    const mutation = mutateSpectrum(source.bytes, rnd);
+  const runOne = async () => {
+    const draw = cases.next();
+    if (draw.done) return;
+    const { index, source, mutation } = draw.value;
     report.byMutation[mutation.kind] += 1;
     const controller = new AbortController();
     let hung = false;
@@ -80,7 +100,7 @@ export async function runFuzz(options: FuzzOptions): Promise<FuzzReport> {
     }
     report.cases += 1;
     const fail = (text: string) => {
-      if (report.failures.length < 50) report.failures.push({ case: index, file: source.name, mutation: `${mutation.kind}: ${mutation.detail}`, outcome: text });
+      if (report.failures.length < 50) report.failures.push({ case: index, file: source, mutation: `${mutation.kind}: ${mutation.detail}`, outcome: text });
     };
     if (outcome === 'hang') {
       report.hangs += 1;
@@ -98,10 +118,9 @@ export async function runFuzz(options: FuzzOptions): Promise<FuzzReport> {
     }
     options.onCase?.(report.cases);
   };
-  // Mutations are drawn in case order from one generator, so the same seed gives the same cases
-  // whatever the thread count; only the drawing is sequential, the scans run in parallel.
+  // Cases are drawn in order (synchronously, before each await); only the scans run in parallel.
   const lane = async () => {
-    while (next < options.cases) await runOne(next++);
+    while (next++ < options.cases) await runOne();
   };
   try {
     await Promise.all(Array.from({ length: options.threads }, lane));

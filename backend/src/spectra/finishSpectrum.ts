@@ -94,7 +94,6 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
   const unusableErrors = hasErrors && usable === 0 && fluxUsable > 0;
   let ignored = 0;
   for (let k = 0; k < m; k++) if (fluxBad[k] || (!unusableErrors && errorBad[k])) ignored++;
-  if (ignored > 0) warnings.push(`${ignored} pixel${ignored === 1 ? '' : 's'} with non-finite or absurd values ignored.`);
   if (unusableErrors) {
     for (let k = 0; k < m; k++) mask[k] = fluxBad[k]!;
     warnings.push('The file gives no usable uncertainty at any pixel (all zero, negative or not a number); uncertainties were estimated from the scatter of the flux instead.');
@@ -123,6 +122,16 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
     }
     errorsEstimated = true;
   }
+  // Whatever their source, weights beyond these bounds overflow the χ² sums (squares of sums of
+  // f²·ivar and t²·ivar) long before they could mean a measurement.
+  for (let k = 0; k < m; k++) {
+    if (mask[k] || (ivar[k]! <= MAX_IVAR && Math.abs(flux[k]!) * Math.sqrt(ivar[k]!) <= MAX_PIXEL_SNR)) continue;
+    mask[k] = 1;
+    ivar[k] = 0;
+    usable--;
+    ignored++;
+  }
+  if (ignored > 0) warnings.push(`${ignored} pixel${ignored === 1 ? '' : 's'} with non-finite or absurd values ignored.`);
   if (usable < MIN_PIXELS) {
     const why = errorsEstimated && fluxUsable >= MIN_PIXELS
       ? ': the file gives no uncertainties and the flux has no pixel-to-pixel scatter to estimate them from (a noise-free model?); add an error column'
@@ -147,8 +156,10 @@ const MAX_ABS_FLUX = 1e100;
 /** A flux this many times the file's typical |flux|, or an ivar this many times its typical ivar, is absurd. */
 const MAX_FLUX_RATIO = 1e12;
 const MAX_IVAR_RATIO = 1e24;
-/** ivar above this (σ below 1e-100 in any unit) overflows χ² sums against unit-scale templates. */
-const MAX_IVAR = 1e200;
+/** ivar above this (σ below 1e-50 in any unit) overflows χ² sums against unit-scale templates. */
+const MAX_IVAR = 1e100;
+/** |flux|/σ of one pixel above this is no measurement (a composite of thousands of spectra reaches 10³–10⁴). */
+const MAX_PIXEL_SNR = 1e12;
 
 function plausibleFlux(f: number, scale: number): boolean {
   const a = Math.abs(f);
@@ -163,7 +174,7 @@ function plausibleUncertainty(raw: RawColumns, i: number, iv: number, scale: num
   if (written === Infinity) return raw.ivar === undefined;
   if (!Number.isFinite(written)) return false;
   if (written === 0 || iv <= 0) return true;
-  return iv <= MAX_IVAR && (scale === 0 || iv <= MAX_IVAR_RATIO * scale);
+  return scale === 0 || iv <= MAX_IVAR_RATIO * scale;
 }
 
 /** Median of the positive finite values (a sample of at most 4096 of them), or 0 when there are none. */
