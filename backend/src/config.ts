@@ -35,6 +35,8 @@ const envSchema = z.object({
   ARCHIVE_MAX_RATIO: z.coerce.number().positive().default(200),
   /** Worker threads for scans; defaults to the number of cores. */
   SCAN_THREADS: z.coerce.number().int().positive().max(64).optional(),
+  /** Wall-clock limit of one file's scan; past it the item fails and its worker thread is replaced. */
+  SCAN_TIME_LIMIT_S: z.coerce.number().positive().max(3600).default(60),
   /** Run the background job runner in this process (tests and the import command may not). */
   JOB_RUNNER: flag.default(true),
   /** How long a runner's claim on a job lasts without renewal; after a crash the job waits this long. */
@@ -65,7 +67,7 @@ export interface Config {
     maxFiles: number;
     archive: { maxEntries: number; maxExpandedBytes: number; maxEntryBytes: number; maxRatio: number };
   };
-  jobs: { runner: boolean; scanThreads: number | undefined; leaseMs: number };
+  jobs: { runner: boolean; scanThreads: number | undefined; scanTimeLimitMs: number; leaseMs: number };
   linkToleranceArcsec: number;
   version: string;
 }
@@ -117,7 +119,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
         maxRatio: e.ARCHIVE_MAX_RATIO,
       },
     },
-    jobs: { runner: e.JOB_RUNNER, scanThreads: e.SCAN_THREADS, leaseMs: e.JOB_LEASE_SECONDS * 1000 },
+    jobs: { runner: e.JOB_RUNNER, scanThreads: e.SCAN_THREADS, scanTimeLimitMs: e.SCAN_TIME_LIMIT_S * 1000, leaseMs: e.JOB_LEASE_SECONDS * 1000 },
     linkToleranceArcsec: e.LINK_TOLERANCE_ARCSEC,
     version: readVersion(),
   };

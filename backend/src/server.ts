@@ -35,7 +35,7 @@ export async function createRedward(config: Config, now: () => Date = () => new 
   const smtpUrl = mailCatcher && config.mailCatcher.port === 0 ? `smtp://127.0.0.1:${mailCatcher.port}` : config.smtpUrl;
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
   const store = new BlobStore(config.uploadsDir);
-  const pool = createScanPool(config.jobs.scanThreads);
+  const pool = createScanPool(config.jobs.scanThreads, { timeLimitMs: config.jobs.scanTimeLimitMs });
   const ctx: ServiceContext = { config, db, mailer, logger, now, store, scanPool: pool, wakeJobRunner: () => {} };
   const seeded = config.demo ? await seedDemoIfEmpty(ctx) : false;
   let stopJobs = async () => {

@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
+import { assertFiniteScan, NonFiniteScanError } from '../spectra/scanResultCheck';
 import { scanSpectrum } from '../spectra/scanSpectrum';
 
 // `npm run scan -- <files...> [--zmin A --zmax B] [--step S|native] [--json]`: one JSON object per file per line.
@@ -29,15 +30,19 @@ if (files.length === 0) usage('no files given');
 for (const file of files) {
   try {
     const spectrum = readSpectrum(new Uint8Array(readFileSync(file)));
-    const r = scanSpectrum(spectrum, { zMin, zMax, step });
+    const r = assertFiniteScan(scanSpectrum(spectrum, { zMin, zMax, step }));
+    const m = spectrum.meta;
     console.log(JSON.stringify({
       file, ok: true, class: r.class,
       ...(r.unknownReason ? { unknownReason: r.unknownReason } : {}),
       solutions: r.solutions.map((s) => ({ z: s.z, zErr: s.zErr, class: s.class, template: s.template, chi2: s.chi2, deltaChi2: s.deltaChi2, lines: s.lines.map((l) => ({ name: l.name, rest: l.rest, observed: l.observed })), ...(s.interlopers ? { interlopers: s.interlopers } : {}) })),
-      meta: { pixels: r.meta.pixels, step: r.meta.step, wavelengthMin: r.meta.wavelengthMin, wavelengthMax: r.meta.wavelengthMax, medium: r.meta.medium, snrMedian: r.meta.snrMedian },
+      meta: {
+        pixels: r.meta.pixels, step: r.meta.step, wavelengthMin: r.meta.wavelengthMin, wavelengthMax: r.meta.wavelengthMax, medium: r.meta.medium, snrMedian: r.meta.snrMedian,
+        ignoredPixels: m.ignoredPixels ?? 0, errorsEstimated: m.errorsEstimated, warnings: m.warnings,
+      },
     }));
   } catch (e) {
-    const code = e instanceof SpectrumReadError ? e.code : e instanceof RangeError ? 'bad-range' : (e as NodeJS.ErrnoException).code ?? 'internal';
+    const code = e instanceof SpectrumReadError || e instanceof NonFiniteScanError ? e.code : e instanceof RangeError ? 'bad-range' : (e as NodeJS.ErrnoException).code ?? 'internal';
     console.log(JSON.stringify({ file, ok: false, error: { code, message: (e as Error).message } }));
   }
 }

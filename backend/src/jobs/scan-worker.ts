@@ -1,13 +1,20 @@
 import { readFileSync } from 'node:fs';
+import type { MessagePort } from 'node:worker_threads';
 import type { GridStep } from '../contracts/campaigns';
 import { SpectrumReadError } from '../spectra/errors';
 import { readSpectrum } from '../spectra/readSpectrum';
+import { assertFiniteScan } from '../spectra/scanResultCheck';
 import { scanSpectrum, type ScanResult, type Solution } from '../spectra/scanSpectrum';
 import { solutionModel } from '../spectra/solutionModel';
 import type { FluxUnit, SpectrumMeta } from '../spectra/types';
 import { packCurves } from './scan-curves';
 
-export interface ScanTask {
+/** Set by the pool: the worker posts on it once as it begins, which starts the task's time limit. */
+interface Started {
+  started?: MessagePort;
+}
+
+export interface ScanTask extends Started {
   filePath: string;
   fileName: string;
   zMin: number;
@@ -42,6 +49,7 @@ export type ScanTaskResult =
  * keeps. Reading errors are answers, not failures: they are reported per file.
  */
 export default function runScanTask(task: ScanTask): ScanTaskResult {
+  task.started?.postMessage('started');
   let spectrum;
   try {
     spectrum = readSpectrum(readFileSync(task.filePath));
@@ -52,7 +60,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   const n = spectrum.wavelength.length;
   const summary = { meta: spectrum.meta, fluxUnit: spectrum.fluxUnit, pixels: n, wavelengthMin: spectrum.wavelength[0]!, wavelengthMax: spectrum.wavelength[n - 1]! };
   try {
-    const { curves, ...scan } = scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) });
+    const { curves, ...scan } = assertFiniteScan(scanSpectrum(spectrum, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) }));
     return { ok: true, spectrum: summary, scanned: { ok: true, scan, curves: packCurves(curves) } };
   } catch (err) {
     return {
@@ -63,7 +71,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   }
 }
 
-export interface ModelTask {
+export interface ModelTask extends Started {
   filePath: string;
   solution: Pick<Solution, 'z' | 'template'>;
   zMin?: number | undefined;
@@ -79,6 +87,7 @@ export type ModelTaskResult = { ok: true; model: Float32Array } | { ok: false; m
  * scan, so it runs in a worker thread like the scans: the web server's thread stays free.
  */
 export function runModelTask(task: ModelTask): ModelTaskResult {
+  task.started?.postMessage('started');
   try {
     const spectrum = readSpectrum(readFileSync(task.filePath));
     return { ok: true, model: new Float32Array(solutionModel(spectrum, task.solution, { zMin: task.zMin, zMax: task.zMax, ...engineStep(task.gridStep) })) };

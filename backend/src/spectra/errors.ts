@@ -9,7 +9,9 @@ export type SpectrumReadErrorCode =
   | 'fits-wcs'
   | 'gzip'
   | 'text-table'
-  | 'no-valid-pixels';
+  | 'no-valid-pixels'
+  | 'bad-wavelength'
+  | 'too-many-pixels';
 
 /** The only error readers throw: anything else escaping a reader is a bug. */
 export class SpectrumReadError extends Error {

@@ -18,10 +18,13 @@ const MIN_PIXELS = 5;
 
 /**
  * Turns raw columns into the engine's columnar spectrum: drops non-finite or non-positive
- * wavelengths, sorts by wavelength (some files run red to blue), converts error/variance to ivar,
- * marks unusable pixels in the mask (ivar = 0 there) and estimates uncertainties when none exist.
+ * wavelengths (readers have refused them already), sorts by wavelength (some files run red to
+ * blue), converts error/variance to ivar, marks unusable pixels in the mask (ivar = 0 there),
+ * ignores pixels whose flux or uncertainty is not a number, infinite or absurd (counted in
+ * meta.ignoredPixels and a warning), and estimates uncertainties when none exist or none is usable.
  * The unit text the reader found (meta.fluxUnit) becomes the normalised `fluxUnit`; text it
  * cannot read leaves the flux 'arbitrary' with a warning that quotes it.
+ * Throws SpectrumReadError when fewer than MIN_PIXELS pixels remain with a weight.
  */
 export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errorsEstimated'>, where: string): Spectrum {
   const n = Math.min(raw.wavelength.length, raw.flux.length);
@@ -56,25 +59,50 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
     maskColumn = undefined;
     warnings.push('The mask column holds bit flags; they were not applied, pixels with zero weight are masked instead.');
   }
+  const fluxScale = typicalMagnitude(keep.map((i) => Math.abs(raw.flux[i]!)));
+  const ivarOf = raw.ivar
+    ? (i: number) => raw.ivar![i]!
+    : raw.variance
+      ? (i: number) => 1 / raw.variance![i]!
+      : raw.error
+        ? (i: number) => 1 / (raw.error![i]! * raw.error![i]!)
+        : () => 1;
+  const ivarScale = hasErrors ? typicalMagnitude(keep.map(ivarOf).filter((v) => v > 0 && v < Infinity)) : 1;
+  // σ = 0 or ivar = 0 is the usual "no information here" flag and only masks a pixel; a NaN or
+  // infinite number, or one far outside the file's own scale, is counted as ignored as well.
+  const fluxBad = new Uint8Array(m);
+  const errorBad = new Uint8Array(m);
+  let usable = 0;
   for (let k = 0; k < m; k++) {
     const i = keep[k]!;
     wavelength[k] = raw.wavelength[i]!;
     const f = raw.flux[i]!;
-    let iv = 1;
-    if (raw.ivar) iv = raw.ivar[i]!;
-    else if (raw.variance) iv = 1 / raw.variance[i]!;
-    else if (raw.error) iv = 1 / (raw.error[i]! * raw.error[i]!);
-    const bad = !Number.isFinite(f) || !Number.isFinite(iv) || iv <= 0 || (maskColumn !== undefined && maskColumn[i]! !== 0 && !Number.isNaN(maskColumn[i]!));
-    flux[k] = Number.isFinite(f) ? f : 0;
+    const iv = ivarOf(i);
+    fluxBad[k] = plausibleFlux(f, fluxScale) ? 0 : 1;
+    errorBad[k] = hasErrors && !plausibleUncertainty(raw, i, iv, ivarScale) ? 1 : 0;
+    const masked = maskColumn !== undefined && maskColumn[i]! !== 0 && !Number.isNaN(maskColumn[i]!);
+    const bad = fluxBad[k] || errorBad[k] || !(iv > 0 && iv < Infinity) || masked;
+    flux[k] = fluxBad[k] ? 0 : f;
     ivar[k] = bad ? 0 : iv;
     mask[k] = bad ? 1 : 0;
+    if (!bad) usable++;
     if (sky) {
       const s = raw.sky![i]!;
       sky[k] = Number.isFinite(s) ? s : 0;
     }
   }
+  // A file whose uncertainties are zero (or unusable) everywhere has none in fact: they are
+  // estimated as for a file without any, instead of leaving no pixel with a weight.
+  const fluxUsable = m - fluxBad.reduce((a, b) => a + b, 0);
+  const unusableErrors = hasErrors && usable === 0 && fluxUsable > 0;
+  let ignored = 0;
+  for (let k = 0; k < m; k++) if (fluxBad[k] || (!unusableErrors && errorBad[k])) ignored++;
+  if (unusableErrors) {
+    for (let k = 0; k < m; k++) mask[k] = fluxBad[k]!;
+    warnings.push('The file gives no usable uncertainty at any pixel (all zero, negative or not a number); uncertainties were estimated from the scatter of the flux instead.');
+  }
   let errorsEstimated = false;
-  if (!hasErrors) {
+  if (!hasErrors || unusableErrors) {
     // Without uncertainties nothing marks the zero padding some files carry at their ends; it is
     // not a measurement (and would get the weight of a noise-free stretch), so it is masked.
     let head = 0;
@@ -89,11 +117,29 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
     const valid = new Uint8Array(m);
     for (let k = 0; k < m; k++) valid[k] = mask[k] ? 0 : 1;
     const est = estimateIvar(flux, valid);
+    usable = 0;
     for (let k = 0; k < m; k++) {
       ivar[k] = est[k]!;
       if (ivar[k] === 0) mask[k] = 1;
+      else usable++;
     }
     errorsEstimated = true;
+  }
+  // Whatever their source, weights beyond these bounds overflow the χ² sums (squares of sums of
+  // f²·ivar and t²·ivar) long before they could mean a measurement.
+  for (let k = 0; k < m; k++) {
+    if (mask[k] || (ivar[k]! <= MAX_IVAR && Math.abs(flux[k]!) * Math.sqrt(ivar[k]!) <= MAX_PIXEL_SNR)) continue;
+    mask[k] = 1;
+    ivar[k] = 0;
+    usable--;
+    ignored++;
+  }
+  if (ignored > 0) warnings.push(`${ignored} pixel${ignored === 1 ? '' : 's'} with non-finite or absurd values ignored.`);
+  if (usable < MIN_PIXELS) {
+    const why = errorsEstimated && fluxUsable >= MIN_PIXELS
+      ? ': the file gives no uncertainties and the flux has no pixel-to-pixel scatter to estimate them from (a noise-free model?); add an error column'
+      : '';
+    throw new SpectrumReadError('no-valid-pixels', `${where}: only ${usable} of ${m} pixels have a finite flux and a usable uncertainty (need at least ${MIN_PIXELS})${why}.`);
   }
   const unitText = meta.fluxUnit;
   let fluxUnit = unitText === undefined ? arbitraryFluxUnit() : parseFluxUnit(unitText);
@@ -101,7 +147,7 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
     warnings.push(`The flux unit "${unitText}" is not one Redward reads; the flux is shown in arbitrary units.`);
     fluxUnit = arbitraryFluxUnit(unitText ?? null);
   }
-  const spectrum: Spectrum = { wavelength, flux, ivar, mask, fluxUnit, meta: { ...meta, warnings, errorsEstimated } };
+  const spectrum: Spectrum = { wavelength, flux, ivar, mask, fluxUnit, meta: { ...meta, warnings, errorsEstimated, ignoredPixels: ignored } };
   if (sky) spectrum.sky = sky;
   return spectrum;
 }
@@ -109,4 +155,46 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
 function isBitmask(mask: ArrayLike<number>, n: number): boolean {
   for (let i = 0; i < n; i++) if (mask[i]! > 1) return true;
   return false;
+}
+
+/**
+ * |flux| beyond which no unit system in use gives a measurement, and beyond which squares and
+ * sums of squares approach the double-precision range (≈ 1.8e308): common practice, no source.
+ */
+const MAX_ABS_FLUX = 1e100;
+/** A flux this many times the file's typical |flux|, or an ivar this many times its typical ivar, is absurd. */
+const MAX_FLUX_RATIO = 1e12;
+const MAX_IVAR_RATIO = 1e24;
+/** ivar above this (σ below 1e-50 in any unit) overflows χ² sums against unit-scale templates. */
+const MAX_IVAR = 1e100;
+/** |flux|/σ of one pixel above this is no measurement (a composite of thousands of spectra reaches 10³–10⁴). */
+const MAX_PIXEL_SNR = 1e12;
+
+function plausibleFlux(f: number, scale: number): boolean {
+  const a = Math.abs(f);
+  return a <= MAX_ABS_FLUX && (scale === 0 || a <= MAX_FLUX_RATIO * scale);
+}
+
+/** The uncertainty as written is a number (0 is the usual flag for "no data") and its ivar is within range. */
+function plausibleUncertainty(raw: RawColumns, i: number, iv: number, scale: number): boolean {
+  const written = raw.ivar?.[i] ?? raw.variance?.[i] ?? raw.error![i]!;
+  if (Number.isNaN(written)) return false;
+  // An infinite σ or variance is zero weight, written the other way round (Kesseli et al. 2017 do).
+  if (written === Infinity) return raw.ivar === undefined;
+  if (!Number.isFinite(written)) return false;
+  if (written === 0 || iv <= 0) return true;
+  return scale === 0 || iv <= MAX_IVAR_RATIO * scale;
+}
+
+/** Median of the positive finite values (a sample of at most 4096 of them), or 0 when there are none. */
+function typicalMagnitude(values: number[]): number {
+  const stride = Math.max(1, Math.floor(values.length / 4096));
+  const sample: number[] = [];
+  for (let k = 0; k < values.length; k += stride) {
+    const v = values[k]!;
+    if (v > 0 && v < Infinity) sample.push(v);
+  }
+  if (sample.length === 0) return 0;
+  sample.sort((a, b) => a - b);
+  return sample[sample.length >> 1]!;
 }

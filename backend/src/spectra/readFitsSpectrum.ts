@@ -7,6 +7,10 @@ import { str, type FitsHeader } from './fits/parseHeader';
 import { readBinaryTable, type TableColumn } from './fits/readBinaryTable';
 import { readImage } from './fits/readImage';
 import type { Medium, Spectrum, SpectrumMeta } from './types';
+import { checkPixelCount, checkWavelengths } from './spectrumLimits';
+
+/** Rows of a 2D image looked at for flux, error, mask and sky (IRAF multispec layouts use ≤ 4). */
+const MAX_IMAGE_ROWS = 16;
 
 /** Caller choices that override what the file says. */
 export interface ReadOptions {
@@ -107,7 +111,9 @@ function labelRole(label: string | undefined): ColumnRole | 'ignore' | undefined
 function fromImage(bytes: Uint8Array, hdus: FitsHdu[], hdu: FitsHdu, primary: FitsHeader, options: ReadOptions, problems: string[]): Spectrum | undefined {
   const n = hdu.axes[0]!;
   const rows = hdu.axes.slice(1).reduce((a, b) => a * b, 1);
-  const pixels = readImage(bytes, hdu);
+  checkPixelCount(n, `FITS HDU ${hdu.index} image`, `pixels along NAXIS1`);
+  // Rows past the 16th are never looked at (labelled layouts have a handful), so they are not decoded.
+  const pixels = readImage(bytes, hdu, Math.min(rows, MAX_IMAGE_ROWS) * n);
   const row = (r: number) => pixels.subarray(r * n, (r + 1) * n);
   const h = hdu.header;
   const ctype = (str(h, 'CTYPE1') ?? '').trim().toUpperCase();
@@ -123,6 +129,7 @@ function fromImage(bytes: Uint8Array, hdus: FitsHdu[], hdu: FitsHdu, primary: Fi
     const w = row(0);
     const factor = guessAngstromsPer(Math.abs(w[n >> 1]!));
     wavelength = Float64Array.from(w, (v) => v * factor);
+    checkWavelengths(wavelength, `FITS HDU ${hdu.index} image`, (i) => `row 0 (wavelengths), pixel ${i + 1}`, w);
     columns.wavelength = 'row 0';
     firstFluxRow = 1;
   }
@@ -130,7 +137,7 @@ function fromImage(bytes: Uint8Array, hdus: FitsHdu[], hdu: FitsHdu, primary: Fi
     problems.push(`HDU ${hdu.index}: image without CRVAL1/CDELT1, COEFF0/COEFF1 or a wavelength row.`);
     return undefined;
   }
-  for (let r = firstFluxRow; r < Math.min(rows, 16); r++) {
+  for (let r = firstFluxRow; r < Math.min(rows, MAX_IMAGE_ROWS); r++) {
     const label = str(h, `ARRAY${r + 1}`) ?? str(h, `BANDID${r + 1}`);
     let role = labelRole(label);
     if (role === undefined) role = r === firstFluxRow ? 'flux' : r === firstFluxRow + 1 && !label && firstFluxRow === 1 ? 'error' : undefined;
@@ -196,6 +203,8 @@ function fromTable(bytes: Uint8Array, hdu: FitsHdu, primary: FitsHeader, options
     for (let i = 0; i < len; i++) w[i] = wave.values[i]! * factor;
   }
   const where = `FITS HDU ${hdu.index} binary table`;
+  const position = rows > 1 ? (i: number) => `row ${i + 1} of column ${wave.name}` : (i: number) => `element ${i + 1} of column ${wave.name}`;
+  checkWavelengths(w, where, position, wave.values);
   const raw: RawColumns = { wavelength: w, flux: flux.values };
   const columns: Record<string, string> = { wavelength: wave.name, flux: flux.name };
   for (const role of ['ivar', 'error', 'variance', 'mask', 'sky'] as const) {

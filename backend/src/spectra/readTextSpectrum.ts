@@ -5,6 +5,7 @@ import { finishSpectrum, type RawColumns } from './finishSpectrum';
 import { fluxUnitFromText } from './parseFluxUnit';
 import type { ReadOptions } from './readFitsSpectrum';
 import type { Medium, Spectrum, SpectrumMeta } from './types';
+import { checkPixelCount, checkWavelengths, MAX_PIXELS } from './spectrumLimits';
 
 const COMMENT = /^\s*(#|!|%|;|\\|\||\/\/)/;
 const MAX_COLUMNS = 64;
@@ -21,10 +22,17 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
   for (let i = 0; i < Math.min(bytes.length, 4096); i++) {
     if (bytes[i] === 0) throw new SpectrumReadError('unknown-format', `Byte ${i} is a NUL: this is a binary file, not a text table.`);
   }
+  // Counted on the bytes, before the text is decoded and split: a table of 10⁷ lines would take
+  // gigabytes as JavaScript strings. Comment lines are allowed as many again as the pixel limit.
+  let newlines = 0;
+  for (let i = 0; i < bytes.length; i++) if (bytes[i] === 0x0a) newlines++;
+  checkPixelCount(newlines + 1, 'Text table', 'lines, more than twice the pixel limit', 2 * MAX_PIXELS);
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   const lines = text.split(/\r\n|\n|\r/);
   const comments: string[] = [];
   const body: string[] = [];
+  /** File line (1-based) of each body line, so errors can name it. */
+  const bodyLines: number[] = [];
   let headerNames: string[] | undefined;
   let firstDataLine = -1;
   let headerLine = -1;
@@ -48,12 +56,16 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
       }
     }
     body.push(line);
+    bodyLines.push(i + 1);
   }
   if (body.length === 0) throw new SpectrumReadError('text-table', 'No data lines: every line is empty, a comment or a header.');
+  checkPixelCount(body.length, 'Text table', 'data lines');
   const delimiter = /\t/.test(body[0]!) ? '\t' : /,/.test(body[0]!) ? ',' : /;/.test(body[0]!) ? ';' : ' ';
   const joined = delimiter === ' ' ? body.map((l) => l.trim().replace(/\s+/g, '\t')).join('\n') : body.join('\n');
   const parsed = Papa.parse<string[]>(joined, { delimiter: delimiter === ' ' ? '\t' : delimiter, skipEmptyLines: true, dynamicTyping: false });
   const rows = parsed.data;
+  // papaparse keeps one row per body line unless a quoted field spans lines; then only a row count can be named.
+  const rowLabel = (r: number) => (rows.length === body.length ? `line ${bodyLines[r]}` : `data row ${r + 1}`);
   const width = Math.min(MAX_COLUMNS, rows[0]?.length ?? 0);
   if (width < 2) throw new SpectrumReadError('text-table', `Line ${firstDataLine}: found ${width} column(s); a spectrum needs at least wavelength and flux.`);
   if (!headerNames) {
@@ -105,6 +117,7 @@ export function readTextSpectrum(bytes: Uint8Array, options: ReadOptions = {}): 
     factor ??= guessAngstromsPer(Math.abs(mid));
     for (let i = 0; i < wCol.length; i++) wavelength[i] = wCol[i]! * factor;
   }
+  checkWavelengths(wavelength, 'Text table', rowLabel, wCol);
   const raw: RawColumns = { wavelength, flux: columns[roles.get('flux')!]! };
   const used: Record<string, string> = {};
   for (const [role, c] of roles) {

@@ -10,6 +10,9 @@ export interface LogGridSpectrum {
   ivar: Float64Array;
 }
 
+/** Most pixels of the log grid a spectrum is resampled onto: ten times the 5 dex of the widest allowed axis on the finest step. */
+export const MAX_GRID_PIXELS = 2_000_000;
+
 /**
  * Rebinning onto the log10-λ grid: every input pixel is a bin whose edges are halfway to its
  * neighbours; each output pixel takes the mean of the flux densities it covers, weighted by overlap
@@ -37,6 +40,13 @@ export function resampleToLogGrid(wavelength: Float64Array, flux: Float64Array, 
   const g0 = Math.ceil(Math.log10(lo) / step - 0.5);
   const g1 = Math.floor(Math.log10(hi) / step - 0.5);
   const m = Math.max(0, g1 - g0 + 1);
+  // Checked before anything is allocated: readers keep wavelengths within 100 Å – 1 mm (5 dex,
+  // 200,000 pixels at the finest 'native' step), so only a caller's own step or axis gets here.
+  if (!(m <= MAX_GRID_PIXELS)) {
+    throw new RangeError(
+      `The log grid would have ${m} pixels (${lo.toPrecision(6)} – ${hi.toPrecision(6)} Å at ${step} dex per pixel), more than the ${MAX_GRID_PIXELS.toLocaleString('en-US')} allowed; check the wavelengths and the grid step.`,
+    );
+  }
   const sumF = new Float64Array(m);
   const sumW = new Float64Array(m);
   const sumV = new Float64Array(m);

@@ -25,6 +25,8 @@ export interface SpectrumMeta {
   fluxUnit?: string;
   /** True when the file had no uncertainties and ivar was estimated from local scatter. */
   errorsEstimated: boolean;
+  /** Pixels dropped because the file gave them a non-finite or absurd flux or uncertainty (0 when none). */
+  ignoredPixels?: number;
   /** Column or row names used for each role, for display ("flux <- FLUX", ...). */
   columns: Record<string, string>;
   /** Non-fatal remarks about the file (ignored columns, odd units...). */

@@ -23,7 +23,8 @@ describe('text tables: which column is the flux', () => {
   });
 
   it('takes the named flux column wherever it sits', () => {
-    const s = readSpectrum(encode('sky,wavelength,flux\n' + rows((i) => `${i % 7},${4000 + i},${10 + i}`)));
+    // A little scatter (0, 0.1, 0.2): without an error column the uncertainties are estimated from it.
+    const s = readSpectrum(encode('sky,wavelength,flux\n' + rows((i) => `${i % 7},${4000 + i},${10 + i + (i % 3) / 10}`)));
     expect(s.flux[3]).toBe(13);
     expect(s.wavelength[3]).toBe(4003);
     expect(s.meta.columns.flux).toBe('flux');

@@ -1,5 +1,6 @@
 import { SpectrumReadError } from '../errors';
 import { angstromsPer, guessAngstromsPer } from '../columnRoles';
+import { checkWavelengths } from '../spectrumLimits';
 import { num, str, type FitsHeader } from './parseHeader';
 
 /**
@@ -12,6 +13,12 @@ import { num, str, type FitsHeader } from './parseHeader';
  * (e.g. an axis moved to the rest frame) are pushed to `notes`.
  */
 export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number, fallback?: FitsHeader, notes: string[] = []): Float64Array | undefined {
+  const axis = axisWavelengths(header, n, hduIndex, fallback, notes);
+  if (axis) checkWavelengths(axis.values, `FITS HDU ${hduIndex} image`, (i) => `pixel ${i + 1} (from ${axis.keywords})`);
+  return axis?.values;
+}
+
+function axisWavelengths(header: FitsHeader, n: number, hduIndex: number, fallback: FitsHeader | undefined, notes: string[]): { values: Float64Array; keywords: string } | undefined {
   const get = (k: string) => num(header, k) ?? (fallback ? num(fallback, k) : undefined);
   const gets = (k: string) => str(header, k) ?? (fallback ? str(fallback, k) : undefined);
   const out = new Float64Array(n);
@@ -24,7 +31,7 @@ export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number
   if (crval === undefined || cdelt === undefined) {
     if (coeff0 === undefined || coeff1 === undefined) return undefined;
     for (let i = 0; i < n; i++) out[i] = 10 ** (coeff0 + coeff1 * i);
-    return out;
+    return { values: out, keywords: 'COEFF0/COEFF1' };
   }
   if (cdelt === 0) throw new SpectrumReadError('fits-wcs', `HDU ${hduIndex}: CDELT1/CD1_1 is zero, so pixels have no wavelength step.`);
   const crpix = get('CRPIX1') ?? 1;
@@ -45,10 +52,10 @@ export function imageWavelengths(header: FitsHeader, n: number, hduIndex: number
         `CRVAL1/CD1_1 give the source's rest frame: the SDSS axis COEFF0/COEFF1 is longer by 1 + Z = ${(1 + get('Z')!).toFixed(5)} at both ends, ` +
           'as after a Doppler correction to the header redshift. The axis was multiplied by 1 + Z back to observed wavelengths, because a redshift is measured on those.',
       );
-      return observed;
+      return { values: observed, keywords: 'CRVAL1/CD1_1 × (1 + Z)' };
     }
   }
-  return out;
+  return { values: out, keywords: `CRVAL1 = ${crval}, ${get('CDELT1') !== undefined ? 'CDELT1' : 'CD1_1'} = ${cdelt}, CRPIX1 = ${crpix}` };
 }
 
 /**

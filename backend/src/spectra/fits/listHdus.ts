@@ -56,6 +56,18 @@ export function listHdus(bytes: Uint8Array): FitsHdu[] {
     if (pcount < 0 || gcount < 0 || !Number.isInteger(pcount) || !Number.isInteger(gcount)) {
       throw new SpectrumReadError('fits-header', `HDU ${index}: PCOUNT/GCOUNT must be non-negative integers.`);
     }
+    const xtension = str(header, 'XTENSION')?.trim().toUpperCase();
+    const kind: HduKind = index === 0 || xtension === 'IMAGE' ? 'image' : xtension === 'BINTABLE' ? 'bintable' : 'other';
+    // FITS 4.0 §4.4.1.2, §7.1.1, §7.3.1: images and binary tables have GCOUNT = 1, images PCOUNT = 0.
+    // Another value changes the size of the data, so the byte count below would not be the reader's.
+    // (A primary array with NAXIS1 = 0 is random groups, which we do not read but may skip.)
+    const groups = index === 0 && axes[0] === 0;
+    if (kind !== 'other' && !groups && gcount !== 1) {
+      throw new SpectrumReadError('fits-header', `HDU ${index}: GCOUNT = ${gcount}, but an ${kind === 'image' ? 'image' : 'binary table'} must have GCOUNT = 1.`);
+    }
+    if (kind === 'image' && !groups && pcount !== 0) {
+      throw new SpectrumReadError('fits-header', `HDU ${index}: PCOUNT = ${pcount}, but an image must have PCOUNT = 0.`);
+    }
     let elements = naxis === 0 ? 0 : 1;
     for (const n of axes) elements *= n;
     const claimed = (Math.abs(bitpix) / 8) * gcount * (pcount + elements);
@@ -67,8 +79,6 @@ export function listHdus(bytes: Uint8Array): FitsHdu[] {
         `HDU ${index}: the header claims ${claimed} data bytes (NAXIS ${axes.join(' × ')}) but only ${remaining} bytes remain in the file.`,
       );
     }
-    const xtension = str(header, 'XTENSION')?.trim().toUpperCase();
-    const kind: HduKind = index === 0 || xtension === 'IMAGE' ? 'image' : xtension === 'BINTABLE' ? 'bintable' : 'other';
     hdus.push({ index, kind, header, axes, bitpix, dataOffset, dataBytes: claimed });
     offset = dataOffset + Math.ceil(claimed / 2880) * 2880;
   }

@@ -1,4 +1,5 @@
 import { SpectrumReadError } from '../errors';
+import { checkPixelCount } from '../spectrumLimits';
 import { num, str } from './parseHeader';
 import type { FitsHdu } from './listHdus';
 
@@ -26,6 +27,15 @@ export function readBinaryTable(bytes: Uint8Array, hdu: FitsHdu): TableColumn[] 
   if (!Number.isInteger(fields) || fields < 0 || fields > 999) {
     throw new SpectrumReadError('fits-table', `HDU ${hdu.index}: TFIELDS is not an integer between 0 and 999.`);
   }
+  // The table proper must fit in the HDU's data, and the heap (PCOUNT bytes at THEAP) after it (FITS 4.0 §7.3.5).
+  if (rows * rowBytes > hdu.dataBytes) {
+    throw new SpectrumReadError('fits-table', `HDU ${hdu.index}: NAXIS1 × NAXIS2 = ${rowBytes} × ${rows} bytes do not fit in the ${hdu.dataBytes} bytes of data.`);
+  }
+  const theap = h.values.get('THEAP');
+  const pcount = num(h, 'PCOUNT') ?? 0;
+  if (theap !== undefined && !(typeof theap === 'number' && Number.isInteger(theap) && theap >= rows * rowBytes && theap <= rows * rowBytes + pcount)) {
+    throw new SpectrumReadError('fits-table', `HDU ${hdu.index}: THEAP = ${String(theap)} is not a byte offset between the end of the table (${rows * rowBytes}) and the end of the heap (${rows * rowBytes + pcount}).`);
+  }
   const view = new DataView(bytes.buffer, bytes.byteOffset + hdu.dataOffset, hdu.dataBytes);
   const columns: TableColumn[] = [];
   let offset = 0;
@@ -35,11 +45,15 @@ export function readBinaryTable(bytes: Uint8Array, hdu: FitsHdu): TableColumn[] 
     if (!match) throw new SpectrumReadError('fits-table', `HDU ${hdu.index}: TFORM${f} = '${tform}' is not a binary-table format.`);
     const repeat = match[1] === '' ? 1 : Number(match[1]);
     const code = match[2]!;
+    if (!Number.isSafeInteger(repeat) || repeat > rowBytes * 8) {
+      throw new SpectrumReadError('fits-table', `HDU ${hdu.index}: TFORM${f} = '${tform}' repeats ${match[1]} times, more than a row of NAXIS1 = ${rowBytes} bytes can hold.`);
+    }
     const width = code === 'X' ? Math.ceil(repeat / 8) : code === 'P' || code === 'Q' ? SIZES[code]! : repeat * SIZES[code]!;
     if (offset + width > rowBytes) {
       throw new SpectrumReadError('fits-table', `HDU ${hdu.index}: column ${f} (TFORM${f} = '${tform}') runs past the row width NAXIS1 = ${rowBytes}.`);
     }
     if ('BIJKED'.includes(code) && repeat > 0) {
+      checkPixelCount(rows * repeat, `FITS HDU ${hdu.index} binary table`, `values in column ${f} (NAXIS2 × repeat of TFORM${f} = ${rows} × ${repeat})`);
       const scale = num(h, `TSCAL${f}`) ?? 1;
       const zero = num(h, `TZERO${f}`) ?? 0;
       const tnull = num(h, `TNULL${f}`);
