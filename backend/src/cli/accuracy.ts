@@ -155,17 +155,19 @@ if (only.has('sky')) {
   const band = (snr: number) => (snr < 5 ? '2–5' : snr < 10 ? '5–10' : '≥10');
   const bands = ['2–5', '5–10', '≥10'];
   print(`(iii) independent sky, ${skyCount} spectra, seed ${seed}${keep ? `, files kept in ${keep}` : ''}; right = top |Δz|/(1+z) ≤ ${RIGHT}, class = the scan's class`);
-  print('class        S/N      n   top≤0.002  top3≤0.002  right class  catastrophic  pull rms  med|pull|');
+  print('class        S/N      n   top≤0.002  top3≤0.002  right class  catastrophic  pull rms  med|pull|  rms with zSysErr');
   const table: unknown[] = [];
   const summarise = (label: string, bandName: string, set: Outcome[], cls?: SpectrumClass) => {
     if (set.length === 0) return;
     const pulls = set.filter((o) => !o.catastrophic && o.top && o.top.zErr > 0).map((o) => (o.top!.z - o.truth.z) / o.top!.zErr);
+    // The same pulls with the systematic term of Lyman-break galaxies and quasars in quadrature.
+    const sysPulls = set.filter((o) => !o.catastrophic && o.top && o.top.zErr > 0).map((o) => (o.top!.z - o.truth.z) / Math.hypot(o.top!.zErr, o.top!.zSysErr ?? 0));
     const right = set.filter((o) => o.right).length;
     const right3 = set.filter((o) => o.right3).length;
     const cat = set.filter((o) => o.catastrophic).length;
     const classOk = set.filter((o) => o.found === (cls ?? o.truth.class)).length;
-    print(`${label.padEnd(12)} ${bandName.padEnd(5)} ${String(set.length).padStart(4)}  ${pct(right, set.length).padStart(9)}   ${pct(right3, set.length).padStart(9)}   ${pct(classOk, set.length).padStart(9)}   ${pct(cat, set.length).padStart(9)}    ${fixed(rms(pulls)).padStart(7)}  ${fixed(medianAbs(pulls)).padStart(8)}`);
-    table.push({ class: label, snr: bandName, n: set.length, top1: right, top3: right3, rightClass: classOk, catastrophic: cat, pullRms: rms(pulls), pullMedianAbs: medianAbs(pulls), pulls: pulls.length });
+    print(`${label.padEnd(12)} ${bandName.padEnd(5)} ${String(set.length).padStart(4)}  ${pct(right, set.length).padStart(9)}   ${pct(right3, set.length).padStart(9)}   ${pct(classOk, set.length).padStart(9)}   ${pct(cat, set.length).padStart(9)}    ${fixed(rms(pulls)).padStart(7)}  ${fixed(medianAbs(pulls)).padStart(8)}  ${fixed(rms(sysPulls)).padStart(10)}`);
+    table.push({ class: label, snr: bandName, n: set.length, top1: right, top3: right3, rightClass: classOk, catastrophic: cat, pullRms: rms(pulls), pullMedianAbs: medianAbs(pulls), pullRmsWithSystematic: rms(sysPulls), pulls: pulls.length });
   };
   for (const cls of ['galaxy', 'quasar', 'lyman-break', 'star'] as const) {
     const ofClass = outcomes.filter((o) => o.truth.class === cls);

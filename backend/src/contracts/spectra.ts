@@ -23,6 +23,8 @@ const solutionLineSchema = z.object({ name: z.string(), rest: z.number(), observ
 export const solutionSchema = z.object({
   z: z.number(),
   zErr: z.number(),
+  /** Systematic error from line offsets to the systemic redshift (Lyman-break galaxies, quasars; engine ≥ 0.6.0). */
+  zSysErr: z.number().optional(),
   class: z.string(),
   template: z.string(),
   chi2: z.number(),

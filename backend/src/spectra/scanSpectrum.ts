@@ -52,10 +52,12 @@ export interface Solution {
   z: number;
   /**
    * 1σ from the χ² curvature, scaled by √(χ²/dof) when the fit is worse than the errors allow
-   * (common practice), with a sub-pixel floor and, for Lyman-break galaxies and quasars, a velocity
-   * floor in quadrature (withErrorFloors); pulls per class are printed by npm run accuracy.
+   * (common practice), with a sub-pixel floor in quadrature; pulls per class are printed by
+   * npm run accuracy.
    */
   zErr: number;
+  /** Lyman-break galaxies and quasars: the systematic error from line offsets to systemic (see systematicError). */
+  zSysErr?: number;
   /** χ² per degree of freedom at the solution (usable grid pixels minus fitted amplitudes). */
   reducedChi2: number;
   class: TemplateClass;
@@ -191,7 +193,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     const interlopers = s.class === 'lyman-break' ? interloperAlternatives(s.z, s.chi2, curves, set.step, lazyTotal) : undefined;
     return {
       z: s.z,
-      zErr: withErrorFloors(s.zErr * Math.sqrt(Math.max(1, reducedChi2)), s.z, set.step, s.class),
+      zErr: withSubPixelFloor(s.zErr * Math.sqrt(Math.max(1, reducedChi2)), s.z, set.step),
+      ...(systematicError(s.z, s.class) !== undefined ? { zSysErr: systematicError(s.z, s.class)! } : {}),
       reducedChi2,
       class: s.class,
       template: s.template,
@@ -256,23 +259,30 @@ function dropShiftsWithoutFeatures(c: TemplateCurve, prepared: PreparedSpectrum,
 }
 
 /**
- * Floors of a redshift error, added in quadrature to the curvature error:
- * - a sub-pixel floor for the three-point parabola and the resampling onto the grid (0.05 pixel:
- *   on the engine's own synthetic spectra pulls were 1.18–1.36 without it and 0.1–0.65 with 0.35);
- * - a velocity floor where the features that set z sit off the systemic redshift by amounts that
- *   vary from object to object: Lyman-break galaxies (Lyα emission typically +200–400 km/s, the
- *   interstellar absorption lines ≈ −150 km/s; from memory: Shapley et al. 2003) and quasars (broad
- *   high-ionisation lines blueshifted by 0–5000 km/s with a wide spread; from memory: Richards et al.
- *   2011). The values (250 and 400 km/s) bring the pulls of the independent synthetic sky
- *   (backend/src/validation/independentSky) towards 1; npm run accuracy prints them.
+ * Sub-pixel floor of a redshift error, added in quadrature to the curvature error: the three-point
+ * parabola and the resampling onto the grid (0.05 pixel: on the engine's own synthetic spectra
+ * pulls were 1.18–1.36 without it and 0.1–0.65 with 0.35 pixel; npm run accuracy).
  */
 export const SUB_PIXEL_FLOOR_PX = 0.05;
-const VELOCITY_FLOOR_KMS: Partial<Record<TemplateClass, number>> = { 'lyman-break': 250, quasar: 400 };
 
-function withErrorFloors(zErr: number, z: number, step: number, cls: TemplateClass): number {
+function withSubPixelFloor(zErr: number, z: number, step: number): number {
   const pixel = (1 + z) * Math.LN10 * step * SUB_PIXEL_FLOOR_PX;
-  const velocity = ((1 + z) * (VELOCITY_FLOOR_KMS[cls] ?? 0)) / C_KMS;
-  return Math.sqrt(zErr * zErr + pixel * pixel + velocity * velocity);
+  return Math.sqrt(zErr * zErr + pixel * pixel);
+}
+
+/**
+ * The systematic error of classes whose redshift-setting features sit off the systemic redshift by
+ * amounts that vary from object to object, kept apart from zErr (a measurement error): Lyman-break
+ * galaxies (Lyα emission typically +200–400 km/s, interstellar absorption ≈ −150 km/s; from memory:
+ * Shapley et al. 2003) and quasars (broad high-ionisation lines blueshifted by 0–5000 km/s; from
+ * memory: Richards et al. 2011). On the independent synthetic sky, which draws such offsets, the
+ * measurement-only pulls of these classes are ≈ 10; with this term in quadrature they are ≈ 1.
+ */
+const SYSTEMATIC_KMS: Partial<Record<TemplateClass, number>> = { 'lyman-break': 250, quasar: 400 };
+
+function systematicError(z: number, cls: TemplateClass): number | undefined {
+  const v = SYSTEMATIC_KMS[cls];
+  return v === undefined ? undefined : ((1 + z) * v) / C_KMS;
 }
 
 function unknownReason(detectionChi2: number | undefined, threshold: number): string {
