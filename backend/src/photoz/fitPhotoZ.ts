@@ -1,0 +1,253 @@
+import type { ModelGrid } from './modelGrid';
+import type { PhotoZClass } from './restTemplates';
+
+export interface FitOptions {
+  /**
+   * Fraction of each measured flux added in quadrature to its error: calibration and template
+   * mismatch that the catalogue's errors do not carry (3 %; common practice, our choice).
+   */
+  errorFloor: number;
+  /** Model error, as a fraction of the model flux, of a star in a band its real spectrum does not cover (30 %, our choice: the tail is a guess). */
+  extrapolatedFloor: number;
+  /** Redshift below which a galaxy counts as a low-z interloper for pLowZ. */
+  lowZ: number;
+  /** Also return P(z) on the grid nodes (normalised to unit mass). */
+  withPosterior: boolean;
+}
+
+export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, lowZ: 2, withPosterior: false };
+
+/** One source's photometric redshift. χ² values are with the floored errors. */
+export interface PhotoZFit {
+  /** Best z: the minimum of χ²(z) (the posterior mode under the flat prior), refined between grid nodes. */
+  z: number;
+  /** Equal-tail intervals of P(z): 16–84 % and 2.5–97.5 % of the probability. */
+  z68: [number, number];
+  z95: [number, number];
+  /** P(z < lowZ), the interloper odds. */
+  pLowZ: number;
+  class: PhotoZClass;
+  starChi2: number;
+  galaxyChi2: number;
+  /** Best galaxy template at z, best star template. */
+  galaxyTemplate: string;
+  starTemplate: string | null;
+  /** Bands that carried a measurement (finite flux and positive error). */
+  bands: number;
+  posterior?: Float64Array;
+}
+
+/** Reusable per-thread buffers, so a catalogue fit allocates nothing per source. */
+export interface FitScratch {
+  w: Float64Array;
+  wf: Float64Array;
+  profile: Float64Array;
+  bestT: Int32Array;
+  mass: Float64Array;
+}
+
+export function fitScratch(grid: ModelGrid): FitScratch {
+  const nz = grid.redshift.z.length;
+  const nb = grid.bands.length;
+  return { w: new Float64Array(nb), wf: new Float64Array(nb), profile: new Float64Array(nz), bestT: new Int32Array(nz), mass: new Float64Array(nz) };
+}
+
+/**
+ * Fits one source: for every galaxy template and grid redshift the best non-negative amplitude
+ * a = max(0, Σ w F M / Σ w M²) (analytic, one template at a time), χ²(z) = min over templates,
+ * P(z) ∝ exp(−χ²(z)/2) under a flat prior in z; stars at z = 0 the same way. Non-detections
+ * (zero or negative flux with an error) are measurements like any other; a band with a NaN flux
+ * or a non-positive error carries no weight (not observed).
+ *
+ * @param flux band fluxes in the grid's band order (any unit, the same as err)
+ * @param err 1σ errors
+ */
+export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLike<number>, options: Partial<FitOptions> = {}, scratch: FitScratch = fitScratch(grid)): PhotoZFit {
+  const opt = { ...DEFAULT_FIT_OPTIONS, ...options };
+  const nb = grid.bands.length;
+  const { z, edges } = grid.redshift;
+  const nz = z.length;
+  const { w, wf, profile, bestT, mass } = scratch;
+  let chi0 = 0;
+  let bands = 0;
+  for (let b = 0; b < nb; b++) {
+    const f = flux[b]!;
+    const e = err[b]!;
+    if (Number.isFinite(f) && e > 0 && Number.isFinite(e)) {
+      const floor = opt.errorFloor * f;
+      w[b] = 1 / (e * e + floor * floor);
+      wf[b] = w[b]! * f;
+      chi0 += wf[b]! * f;
+      bands++;
+    } else {
+      w[b] = 0;
+      wf[b] = 0;
+    }
+  }
+
+  // Galaxies: the tight loop (templates × redshifts × bands), walking the grid in memory order.
+  profile.fill(Infinity);
+  const m = grid.galaxy;
+  const m2 = grid.galaxySquared;
+  const nt = grid.galaxyIds.length;
+  let o = 0;
+  for (let t = 0; t < nt; t++) {
+    for (let k = 0; k < nz; k++) {
+      let num = 0;
+      let den = 0;
+      for (let b = 0; b < nb; b++, o++) {
+        num += wf[b]! * m[o]!;
+        den += w[b]! * m2[o]!;
+      }
+      // Amplitude num/den clipped at 0: a template that can only fit with negative flux is the zero model.
+      let chi = num > 0 ? chi0 - (num * num) / den : chi0;
+      if (chi < 0) chi = 0;
+      if (chi < profile[k]!) {
+        profile[k] = chi;
+        bestT[k] = t;
+      }
+    }
+  }
+  let kMin = 0;
+  for (let k = 1; k < nz; k++) if (profile[k]! < profile[kMin]!) kMin = k;
+  const galaxyChi2 = profile[kMin]!;
+
+  // P(z) as mass per grid cell, then equal-tail intervals from its cumulative sum.
+  let total = 0;
+  let low = 0;
+  for (let k = 0; k < nz; k++) {
+    const width = edges[k + 1]! - edges[k]!;
+    const p = Math.exp(-0.5 * (profile[k]! - galaxyChi2)) * width;
+    mass[k] = p;
+    total += p;
+    if (edges[k + 1]! <= opt.lowZ) low += p;
+    else if (edges[k]! < opt.lowZ) low += (p * (opt.lowZ - edges[k]!)) / width;
+  }
+  const quantile = (q: number): number => {
+    const target = q * total;
+    let cum = 0;
+    for (let k = 0; k < nz; k++) {
+      const next = cum + mass[k]!;
+      if (next >= target && mass[k]! > 0) return edges[k]! + ((edges[k + 1]! - edges[k]!) * (target - cum)) / mass[k]!;
+      cum = next;
+    }
+    return edges[nz]!;
+  };
+
+  // Stars: z = 0. In a band mostly off a star's real spectrum the model is a guess (the
+  // Rayleigh–Jeans tail), so it carries a model error of `extrapolatedFloor` × the model flux:
+  // the amplitude is first fitted on the other bands, the model error follows from it, then the
+  // star is fitted on all bands. A model error scaled by the data instead would make the zero
+  // model of a star fit better than the zero model of a galaxy.
+  let starChi2 = Infinity;
+  let starBest = -1;
+  const ns = grid.starIds.length;
+  for (let t = 0; t < ns; t++) {
+    const o = t * nb;
+    let cFM = 0;
+    let cMM = 0;
+    for (let b = 0; b < nb; b++) {
+      if (grid.starExtrapolated[o + b]) continue;
+      const mm = grid.star[o + b]!;
+      cFM += wf[b]! * mm;
+      cMM += w[b]! * mm * mm;
+    }
+    const a0 = cFM > 0 && cMM > 0 ? cFM / cMM : 0;
+    let sFF = 0;
+    let sFM = 0;
+    let sMM = 0;
+    for (let b = 0; b < nb; b++) {
+      if (w[b] === 0) continue;
+      const mm = grid.star[o + b]!;
+      let ww = w[b]!;
+      if (grid.starExtrapolated[o + b]) {
+        const modelErr = opt.extrapolatedFloor * a0 * mm;
+        ww = 1 / (1 / ww + modelErr * modelErr);
+      }
+      const f = flux[b]!;
+      sFF += ww * f * f;
+      sFM += ww * f * mm;
+      sMM += ww * mm * mm;
+    }
+    const chi = sFM > 0 && sMM > 0 ? Math.max(0, sFF - (sFM * sFM) / sMM) : sFF;
+    if (chi < starChi2) {
+      starChi2 = chi;
+      starBest = t;
+    }
+  }
+
+  const result: PhotoZFit = {
+    z: refineMinimum(profile, z, kMin),
+    z68: [quantile(0.16), quantile(0.84)],
+    z95: [quantile(0.025), quantile(0.975)],
+    pLowZ: total > 0 ? low / total : NaN,
+    // A tie goes to the star: it has one free parameter where the galaxy has two (amplitude and z).
+    class: starChi2 <= galaxyChi2 ? 'star' : 'galaxy',
+    starChi2,
+    galaxyChi2,
+    galaxyTemplate: grid.galaxyIds[bestT[kMin]!]!,
+    starTemplate: starBest >= 0 ? grid.starIds[starBest]! : null,
+    bands,
+  };
+  if (opt.withPosterior) result.posterior = Float64Array.from(mass, (p, k) => p / total / (edges[k + 1]! - edges[k]!));
+  return result;
+}
+
+/** The χ² minimum between nodes: a parabola through the node and its neighbours, in ln(1 + z), moved at most half a step. */
+function refineMinimum(profile: Float64Array, z: Float64Array, k: number): number {
+  if (k === 0 || k === z.length - 1) return z[k]!;
+  const a = profile[k - 1]!;
+  const b = profile[k]!;
+  const c = profile[k + 1]!;
+  const curv = a - 2 * b + c;
+  if (!(curv > 0)) return z[k]!;
+  const d = Math.max(-0.5, Math.min(0.5, (0.5 * (a - c)) / curv));
+  const u = Math.log1p(z[k]!) + d * (Math.log1p(z[k + 1]!) - Math.log1p(z[k]!));
+  return Math.expm1(u);
+}
+
+/** A catalogue's fits as columns (compact to move between threads). Template columns index the grid's id lists. */
+export interface PhotoZColumns {
+  z: Float64Array;
+  z68: Float64Array;
+  z95: Float64Array;
+  pLowZ: Float64Array;
+  starChi2: Float64Array;
+  galaxyChi2: Float64Array;
+  isStar: Uint8Array;
+  galaxyTemplate: Int16Array;
+  starTemplate: Int16Array;
+  bands: Uint8Array;
+}
+
+/**
+ * Fits `n` sources whose fluxes and errors are row-major (`n × bands`, the grid's band order).
+ * z68 and z95 hold [lo, hi] pairs per source.
+ */
+export function fitCatalogue(grid: ModelGrid, flux: Float64Array, err: Float64Array, n: number, options: Partial<FitOptions> = {}): PhotoZColumns {
+  const nb = grid.bands.length;
+  if (flux.length !== n * nb || err.length !== n * nb) throw new RangeError(`expected ${n} × ${nb} fluxes and errors`);
+  const out: PhotoZColumns = {
+    z: new Float64Array(n), z68: new Float64Array(2 * n), z95: new Float64Array(2 * n), pLowZ: new Float64Array(n),
+    starChi2: new Float64Array(n), galaxyChi2: new Float64Array(n), isStar: new Uint8Array(n),
+    galaxyTemplate: new Int16Array(n), starTemplate: new Int16Array(n), bands: new Uint8Array(n),
+  };
+  const scratch = fitScratch(grid);
+  const opt = { ...options, withPosterior: false };
+  for (let i = 0; i < n; i++) {
+    const r = fitPhotoZ(grid, flux.subarray(i * nb, (i + 1) * nb), err.subarray(i * nb, (i + 1) * nb), opt, scratch);
+    out.z[i] = r.z;
+    out.z68[2 * i] = r.z68[0];
+    out.z68[2 * i + 1] = r.z68[1];
+    out.z95[2 * i] = r.z95[0];
+    out.z95[2 * i + 1] = r.z95[1];
+    out.pLowZ[i] = r.pLowZ;
+    out.starChi2[i] = r.starChi2;
+    out.galaxyChi2[i] = r.galaxyChi2;
+    out.isStar[i] = r.class === 'star' ? 1 : 0;
+    out.galaxyTemplate[i] = grid.galaxyIds.indexOf(r.galaxyTemplate);
+    out.starTemplate[i] = r.starTemplate === null ? -1 : grid.starIds.indexOf(r.starTemplate);
+    out.bands[i] = r.bands;
+  }
+  return out;
+}
