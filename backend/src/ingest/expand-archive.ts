@@ -33,14 +33,27 @@ export class ArchiveRefusedError extends Error {
   }
 }
 
+/**
+ * Compressed bytes handed to the unzipper at a time. fflate inflates a pushed slice whole and
+ * emits it as one chunk, so this bounds the memory of one step: deflate cannot expand data more
+ * than 1032:1 (RFC 1951: a 258-byte match costs at least 2 bits; from memory), 16 MB at most. It
+ * also bounds the unzipper's recursion, one level per entry inside a slice: a 256 kB push of
+ * 18-byte entries (≈ 3,000 of them) overflowed the stack.
+ */
+const PUSH_BYTES = 16 * 1024;
+/** Inflated bytes allowed beyond maxRatio × the compressed bytes read so far (a very compressible first file). */
+const RATIO_SLACK_BYTES = 16 * 1024 * 1024;
+
 const mb = (bytes: number) =>
   bytes < 1024 * 1024 ? `${Math.max(1, Math.round(bytes / 1024))} kB` : `${(bytes / 1024 / 1024).toFixed(bytes < 10 * 1024 * 1024 ? 1 : 0)} MB`;
 
 /**
  * Expands a zip archive entry by entry into temporary files of the store, streaming: neither
- * the archive nor an entry is ever held in memory whole. Limits are checked on the bytes
- * actually inflated, not on what the headers claim, so a zip bomb is stopped after at most
- * the allowed amount and every temporary file is removed. Directories and operating-system
+ * the archive nor an entry is ever held in memory whole, only one pushed slice (PUSH_BYTES) and
+ * what it inflates to. Limits are checked on the bytes actually inflated, not on what the headers
+ * claim, as they arrive: the running total may not pass maxRatio × the compressed bytes read so
+ * far (plus RATIO_SLACK_BYTES), the whole archive's ratio, the expanded-size limit or the entry
+ * limit, so a zip bomb is stopped within a few slices and every temporary file is removed. Directories and operating-system
  * clutter (`__MACOSX/`, `._*`, `.DS_Store`) are not entries.
  */
 export async function expandArchive(zipPath: string, archiveName: string, store: BlobStore, limits: ArchiveLimits): Promise<ExpandedEntry[]> {
@@ -77,6 +90,12 @@ export async function expandArchive(zipPath: string, archiveName: string, store:
       }
       size += chunk.length;
       expanded += chunk.length;
+      // The running total against what has been read so far: a bomb is caught after its first
+      // slices, not after the whole-archive allowance (hundreds of MB) has been inflated and written.
+      if (expanded > limits.maxRatio * consumed + RATIO_SLACK_BYTES && expanded <= allowedExpanded) {
+        refuse(new ArchiveRefusedError('archive_ratio', `${archiveName} expands more than ${limits.maxRatio} times its size (${mb(expanded)} from the first ${mb(consumed)}); it looks like a zip bomb and was refused.`));
+        return;
+      }
       if (size > limits.maxEntryBytes) {
         refuse(new ArchiveRefusedError('archive_entry_too_large', `${archiveName}: ${file.name} expands beyond the ${mb(limits.maxEntryBytes)} limit for one file.`));
         return;
@@ -106,10 +125,16 @@ export async function expandArchive(zipPath: string, archiveName: string, store:
   });
   unzip.register(UnzipInflate);
 
+  let consumed = 0;
   try {
-    for await (const chunk of createReadStream(zipPath, { highWaterMark: 256 * 1024 })) {
-      unzip.push(chunk as Uint8Array);
-      if (refusal) break;
+    read: for await (const chunk of createReadStream(zipPath, { highWaterMark: 256 * 1024 })) {
+      const bytes = chunk as Uint8Array;
+      for (let at = 0; at < bytes.length; at += PUSH_BYTES) {
+        const slice = bytes.subarray(at, at + PUSH_BYTES);
+        consumed += slice.length;
+        unzip.push(slice);
+        if (refusal) break read;
+      }
     }
     if (!refusal) unzip.push(new Uint8Array(0), true);
   } catch (err) {
