@@ -118,8 +118,10 @@ export function shapeChi2(bins: ShapeBins, prepared: PreparedSpectrum, set: Temp
   const vectors: Float64Array[] = basis.slice(0, m).map(() => new Float64Array(nb));
   const start = prepared.g0 - shift - set.h0;
   const lyAlphaJ = Math.log10(LY_ALPHA) / set.step - set.h0;
+  const blue = new Float64Array(m);
   for (let b = 0; b < nb; b++) {
     let sw = 0;
+    blue.fill(0);
     for (let i = bins.start[b]!; i < bins.end[b]!; i++) {
       const w = bins.pixelWeight[i]!;
       if (!(w > 0)) continue;
@@ -128,9 +130,17 @@ export function shapeChi2(bins: ShapeBins, prepared: PreparedSpectrum, set: Temp
       if (j < 0 || j >= set.length) continue;
       for (let k = 0; k < m; k++) {
         const v = basis[k]!;
-        const value = v.igm && j < lyAlphaJ ? v.igm.unattenuated[j]! * transmission(10 ** ((prepared.g0 + i) * set.step), z) : v.unfiltered[j]!;
-        vectors[k]![b]! += w * value;
+        if (v.igm && j < lyAlphaJ) blue[k]! += w * v.igm.unattenuated[j]!;
+        else vectors[k]![b]! += w * v.unfiltered[j]!;
       }
+    }
+    // The transmission varies little across one bin: it is taken at the bin's centre (one
+    // evaluation per bin, not per pixel; the IGM models sum over 4–39 Lyman-series lines).
+    let t = -1;
+    for (let k = 0; k < m; k++) {
+      if (blue[k] === 0) continue;
+      if (t < 0) t = transmission(10 ** ((prepared.g0 + (bins.start[b]! + bins.end[b]!) / 2) * set.step), z);
+      vectors[k]![b]! += blue[k]! * t;
     }
     for (const v of vectors) v[b]! /= sw;
   }
