@@ -67,7 +67,10 @@ export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
   const mask = new Uint8Array(n);
   const sky = new Float64Array(n);
   const model = new Float64Array(n);
-  const physical = t.class === 'lyman-break';
+  // Lyman-break sources and quasars are drawn with their template's own continuum (power law, IGM):
+  // the continuum-shape check of the scan judges it, so an arbitrary added continuum would be a
+  // spectrum no quasar has. Galaxies and stars keep the filtered template on a smooth continuum.
+  const physical = t.class === 'lyman-break' || t.class === 'quasar';
   let peak = 0;
   const redContinuum: number[] = [];
   for (let i = 0; i < n; i++) {
@@ -89,7 +92,9 @@ export function generateSyntheticSpectrum(options: SyntheticOptions): Spectrum {
     if (physical && restA >= 1250 && restA <= 1500) redContinuum.push(v);
   }
   redContinuum.sort((a, b) => a - b);
-  const level = physical ? (redContinuum[redContinuum.length >> 1] ?? peak) : peak;
+  const all = Array.from(model, Math.abs).sort((a, b) => a - b);
+  // S/N is per pixel on the continuum: redward of Lyα for Lyman-break sources, the median level for quasars.
+  const level = t.class === 'lyman-break' ? (redContinuum[redContinuum.length >> 1] ?? peak) : physical ? all[all.length >> 1]! : peak;
   const sigma = level > 0 ? level / options.snr : 1;
   const maskedFraction = options.maskedFraction ?? 0.01;
   for (let i = 0; i < n; i++) {
