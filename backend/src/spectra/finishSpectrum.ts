@@ -72,7 +72,9 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
   // infinite number, or one far outside the file's own scale, is counted as ignored as well.
   const fluxBad = new Uint8Array(m);
   const errorBad = new Uint8Array(m);
+  const maskedByFile = new Uint8Array(m);
   let usable = 0;
+  let weighted = 0;
   for (let k = 0; k < m; k++) {
     const i = keep[k]!;
     wavelength[k] = raw.wavelength[i]!;
@@ -80,8 +82,10 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
     const iv = ivarOf(i);
     fluxBad[k] = plausibleFlux(f, fluxScale) ? 0 : 1;
     errorBad[k] = hasErrors && !plausibleUncertainty(raw, i, iv, ivarScale) ? 1 : 0;
-    const masked = maskColumn !== undefined && maskColumn[i]! !== 0 && !Number.isNaN(maskColumn[i]!);
-    const bad = fluxBad[k] || errorBad[k] || !(iv > 0 && iv < Infinity) || masked;
+    maskedByFile[k] = maskColumn !== undefined && maskColumn[i]! !== 0 && !Number.isNaN(maskColumn[i]!) ? 1 : 0;
+    const weight = !errorBad[k] && iv > 0 && iv < Infinity;
+    if (weight) weighted++;
+    const bad = fluxBad[k] || !weight || maskedByFile[k];
     flux[k] = fluxBad[k] ? 0 : f;
     ivar[k] = bad ? 0 : iv;
     mask[k] = bad ? 1 : 0;
@@ -94,11 +98,11 @@ export function finishSpectrum(raw: RawColumns, meta: Omit<SpectrumMeta, 'errors
   // A file whose uncertainties are zero (or unusable) everywhere has none in fact: they are
   // estimated as for a file without any, instead of leaving no pixel with a weight.
   const fluxUsable = m - fluxBad.reduce((a, b) => a + b, 0);
-  const unusableErrors = hasErrors && usable === 0 && fluxUsable > 0;
+  const unusableErrors = hasErrors && weighted === 0 && fluxUsable > 0;
   let ignored = 0;
   for (let k = 0; k < m; k++) if (fluxBad[k] || (!unusableErrors && errorBad[k])) ignored++;
   if (unusableErrors) {
-    for (let k = 0; k < m; k++) mask[k] = fluxBad[k]!;
+    for (let k = 0; k < m; k++) mask[k] = fluxBad[k]! | maskedByFile[k]!;
     warnings.push('The file gives no usable uncertainty at any pixel (all zero, negative or not a number); uncertainties were estimated from the scatter of the flux instead.');
   }
   let errorsEstimated = false;

@@ -23,7 +23,7 @@ export function checkWavelengths(angstroms: ArrayLike<number>, where: string, la
     const w = angstroms[i]!;
     if (w >= MIN_WAVELENGTH_A && w <= MAX_WAVELENGTH_A) continue;
     const asWritten = written[i]!;
-    const shown = asWritten === w ? `${w} Å` : `${asWritten} (${w} Å)`;
+    const shown = Object.is(asWritten, w) ? `${w} Å` : `${asWritten} (${w} Å)`;
     throw new SpectrumReadError(
       'bad-wavelength',
       `${where}, ${label(i)}: the wavelength ${shown} is ${Number.isNaN(w) ? 'not a number' : !Number.isFinite(w) ? 'infinite' : w <= 0 ? 'not positive' : `outside ${MIN_WAVELENGTH_A} Å – 1 mm`}; every wavelength must lie between ${MIN_WAVELENGTH_A} Å and 1 mm (10⁷ Å).`,

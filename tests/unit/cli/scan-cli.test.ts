@@ -48,6 +48,26 @@ describe('npm run scan (CLI)', () => {
     expect(line.solutions[0].z).toBeCloseTo(0.42, 2);
   });
 
+  it('reports pixels with non-finite values it ignored, and refuses an absurd wavelength naming its line', async () => {
+    const rows = Array.from(s.wavelength, (l, i) => `${l},${i % 10 === 5 ? 'NaN' : i % 10 === 6 ? '1e308' : s.flux[i]},${s.mask[i] ? 0 : s.ivar[i]}`);
+    const holes = join(dir, 'holes.csv');
+    writeFileSync(holes, ['wavelength,flux,ivar', ...rows].join('\n'));
+    const absurd = join(dir, 'absurd.csv');
+    writeFileSync(absurd, ['wavelength,flux,ivar', ...rows.map((r, i) => (i === 99 ? r.replace(/^[^,]+/, '1e308') : r))].join('\n'));
+    const r = await scan([holes, absurd, '--zmax', '2']);
+    const [a, b] = r.stdout.trim().split('\n').map((l) => JSON.parse(l));
+    expect(a.ok).toBe(true);
+    expect(a.meta.ignoredPixels).toBe(434); // 2 of every 10 of the 2175 rows
+    expect(a.meta.warnings).toContain('434 pixels with non-finite or absurd values ignored.');
+    expect(a.meta.errorsEstimated).toBe(false);
+    expect(a.solutions[0].z).toBeCloseTo(0.42, 2);
+    expect(b).toEqual({
+      file: absurd,
+      ok: false,
+      error: { code: 'bad-wavelength', message: 'Text table, line 101: the wavelength 1e+308 Å is outside 100 Å – 1 mm; every wavelength must lie between 100 Å and 1 mm (10⁷ Å).' },
+    });
+  });
+
   it('exits 2 with a usage line on a bad option', async () => {
     for (const args of [[good, '--step', 'fine'], [good, '--frobnicate'], []]) {
       const r = await scan(args);

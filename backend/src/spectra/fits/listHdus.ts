@@ -63,7 +63,7 @@ export function listHdus(bytes: Uint8Array): FitsHdu[] {
     // (A primary array with NAXIS1 = 0 is random groups, which we do not read but may skip.)
     const groups = index === 0 && axes[0] === 0;
     if (kind !== 'other' && !groups && gcount !== 1) {
-      throw new SpectrumReadError('fits-header', `HDU ${index}: GCOUNT = ${gcount}, but an ${kind === 'image' ? 'image' : 'binary table'} must have GCOUNT = 1.`);
+      throw new SpectrumReadError('fits-header', `HDU ${index}: GCOUNT = ${gcount}, but ${kind === 'image' ? 'an image' : 'a binary table'} must have GCOUNT = 1.`);
     }
     if (kind === 'image' && !groups && pcount !== 0) {
       throw new SpectrumReadError('fits-header', `HDU ${index}: PCOUNT = ${pcount}, but an image must have PCOUNT = 0.`);
