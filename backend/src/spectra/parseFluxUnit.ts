@@ -98,7 +98,9 @@ export function arbitraryFluxUnit(raw: string | null = null): FluxUnit {
 export function parseFluxUnit(raw: string): FluxUnit | null {
   const text = normalise(raw);
   if (text === '' || ARBITRARY.test(text)) return arbitraryFluxUnit(raw);
-  const parsed = parseExpression(WORDS[text]?.toLowerCase() ?? text);
+  // Own keys only: a unit string such as "__proto__" must not reach Object.prototype.
+  const word = Object.hasOwn(WORDS, text) ? WORDS[text]! : undefined;
+  const parsed = parseExpression(word?.toLowerCase() ?? text);
   if (!parsed) return null;
   const { factor, dims, cmOverWavelength } = parsed;
   const d = (k: DimKey) => dims[k] ?? 0;
@@ -199,7 +201,7 @@ function parseExpression(text: string): Parsed | null {
       if (!Number.isFinite(factor)) return false;
       i++;
     } else if (/^[a-z]+$/.test(t)) {
-      const unit = UNITS[t];
+      const unit = Object.hasOwn(UNITS, t) ? UNITS[t] : undefined;
       if (!unit) return false;
       factor = unit.factor;
       dims = unit.dims;

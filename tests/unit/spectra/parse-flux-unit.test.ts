@@ -116,6 +116,10 @@ describe('parseFluxUnit: no unit and unknown units', () => {
     });
   }
 
+  it('treats prototype names as unknown text, not as table entries (fast-check counterexample "__proto__")', () => {
+    for (const text of ['__proto__', 'constructor', 'toString']) expect(parseFluxUnit(text)).toBeNull();
+  });
+
   it('never throws, and whatever it returns is a normalised unit with a positive finite scale', () => {
     fc.assert(
       fc.property(fc.string({ maxLength: 40 }), (text) => {
