@@ -1,3 +1,4 @@
+import { decodeScanCurves } from '../../backend/src/contracts/scan-curves-binary';
 import { and, desc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spectrumDetailSchema } from '../../backend/src/contracts/spectra';
@@ -109,12 +110,13 @@ describe('readings', () => {
 
 describe('spectrum data for plotting', () => {
   it('packs vacuum wavelengths as float64 and flux, error, mask compactly', async () => {
-    const res = await reader1.get(`/api/spectra/${spectrumIds[2]}/data`).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => done(null, Buffer.concat(chunks)));
-    });
+    const res = await reader1.get(`/api/spectra/${spectrumIds[2]}/data`).buffer(true).parse(collectBytes);
     expect(res.status).toBe(200);
+    // The stored file never changes: the answer is validated by its hash, and served again from memory.
+    expect(res.headers.etag).toMatch(/^"[0-9a-f]{64}-v\d+"$/);
+    expect((await reader1.get(`/api/spectra/${spectrumIds[2]}/data`).set('If-None-Match', res.headers.etag!)).status).toBe(304);
+    const second = await reader1.get(`/api/spectra/${spectrumIds[2]}/data`).buffer(true).parse(collectBytes);
+    expect(Buffer.compare(second.body as Buffer, res.body as Buffer)).toBe(0);
     const buf = res.body as Buffer;
     const headerLength = buf.readUInt32LE(0);
     const header = JSON.parse(buf.subarray(4, 4 + headerLength).toString('utf8'));
@@ -163,13 +165,28 @@ describe('spectrum data for plotting', () => {
     expect(bad.body.error.code).toBe('invalid_input');
   });
 
-  it('serves the χ²(z) curves and the line list of the comb', async () => {
-    const curves = (await reader1.get(`/api/spectra/${spectrumIds[2]}/scan-curves`)).body.curves;
+  it('serves the χ²(z) curves packed as stored, revalidated by scan, and the line list of the comb', async () => {
+    const res = await reader1.get(`/api/spectra/${spectrumIds[2]}/scan-curves`).buffer(true).parse(collectBytes);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/octet-stream');
+    const scanId = (await reader1.get(`/api/spectra/${spectrumIds[2]}`)).body.scan.id;
+    expect(res.headers.etag).toBe(`"scan-${scanId}"`);
+    const { curves } = decodeScanCurves(res.body as Buffer);
     expect(curves.length).toBeGreaterThan(2);
-    expect(curves[0].z.length).toBe(curves[0].chi2.length);
+    expect(curves[0]!.z.length).toBe(curves[0]!.chi2.length);
+    expect(curves[0]!.z[0]).toBeGreaterThanOrEqual(0);
+    expect(curves.every((c) => c.chi2.every(Number.isFinite))).toBe(true);
+    const again = await reader1.get(`/api/spectra/${spectrumIds[2]}/scan-curves`).set('If-None-Match', res.headers.etag!);
+    expect(again.status).toBe(304);
     const lines = (await reader1.get('/api/line-list')).body;
     expect(lines.medium).toBe('vacuum');
     // NIST vacuum wavelength of Hα (reference-values.md §1): 6564.61 Å.
     expect(lines.lines.find((l: { name: string }) => l.name === 'H-alpha').rest).toBeCloseTo(6564.61, 1);
   });
 });
+
+function collectBytes(r: import('superagent').Response, done: (err: Error | null, body: Buffer) => void): void {
+  const chunks: Buffer[] = [];
+  r.on('data', (c: Buffer) => chunks.push(c));
+  r.on('end', () => done(null, Buffer.concat(chunks)));
+}

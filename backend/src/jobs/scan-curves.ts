@@ -27,25 +27,4 @@ export function packCurves(curves: ScanCurve[]): Buffer {
   return out;
 }
 
-export interface StoredCurve {
-  template: string;
-  class: ScanCurve['class'];
-  z: Float32Array;
-  chi2: Float32Array;
-}
-
-export function unpackCurves(packed: Uint8Array): StoredCurve[] {
-  const view = Buffer.from(packed.buffer, packed.byteOffset, packed.byteLength);
-  const indexLength = view.readUInt32LE(0);
-  const index = JSON.parse(view.subarray(4, 4 + indexLength).toString('utf8')) as { template: string; class: ScanCurve['class']; n: number }[];
-  const headerLength = 4 + indexLength;
-  let offset = headerLength + ((4 - (headerLength % 4)) % 4);
-  // Copy out of the buffer: SQLite hands back buffers whose offset need not be 4-aligned.
-  const floats = (n: number) => {
-    const arr = new Float32Array(n);
-    new Uint8Array(arr.buffer).set(view.subarray(offset, offset + n * 4));
-    offset += n * 4;
-    return arr;
-  };
-  return index.map((entry) => ({ template: entry.template, class: entry.class, z: floats(entry.n), chi2: floats(entry.n) }));
-}
+/** Read back with `decodePackedCurves` (contracts/scan-curves-binary.ts), shared with the client. */

@@ -7,7 +7,11 @@ import { assertFiniteScan } from '../spectra/scanResultCheck';
 import { scanSpectrum, type ScanResult, type Solution } from '../spectra/scanSpectrum';
 import { solutionModel } from '../spectra/solutionModel';
 import type { FluxUnit, SpectrumMeta } from '../spectra/types';
+import { lowerThisThreadPriority } from './lower-thread-priority';
 import { packCurves } from './scan-curves';
+
+// Scans yield the core to the web thread whenever it has requests to answer (issue 13).
+lowerThisThreadPriority();
 
 /** Set by the pool: the worker posts on it once as it begins, which starts the task's time limit. */
 interface Started {

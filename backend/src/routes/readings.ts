@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import { queueQuerySchema, readingQueueSchema, readingResponseSchema, submitReadingRequestSchema } from '../contracts/readings';
-import { scanCurvesSchema, solutionModelQuerySchema, spectrumDetailSchema } from '../contracts/spectra';
+import { solutionModelQuerySchema, spectrumDetailSchema } from '../contracts/spectra';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
@@ -52,8 +52,10 @@ export function readingRoutes(ctx: ServiceContext): Router {
     access: viewer,
     handle: ({ req, res }) => {
       // Packed before any header is set: an error must leave as JSON, not as an octet stream.
-      const packed = packSpectrumData(ctx, spectrumId(req));
-      res.type('application/octet-stream').set('Cache-Control', 'private, max-age=3600').send(packed);
+      const { packed, etag } = packSpectrumData(ctx, spectrumId(req));
+      res.set('ETag', etag).set('Cache-Control', 'private, max-age=3600');
+      if (req.get('if-none-match') === etag) return void res.status(304).end();
+      res.type('application/octet-stream').send(packed);
     },
   });
 
@@ -61,8 +63,13 @@ export function readingRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId/scan-curves',
     access: viewer,
-    response: scanCurvesSchema,
-    handle: ({ req }) => getScanCurves(ctx, spectrumId(req)),
+    handle: ({ req, res }) => {
+      // Binary, as stored (contracts/scan-curves-binary.ts); revalidated, since a re-scan replaces them.
+      const { packed, etag } = getScanCurves(ctx, spectrumId(req));
+      res.set('ETag', etag).set('Cache-Control', 'private, no-cache');
+      if (req.get('if-none-match') === etag) return void res.status(304).end();
+      res.type('application/octet-stream').send(packed);
+    },
   });
 
   // float32[n] on the spectrum's pixels, the same n as /data.

@@ -3,7 +3,6 @@ import { gridStepOf, type CampaignRole } from '../contracts/campaigns';
 import type { Reading } from '../contracts/readings';
 import type { Scan, SpectrumDetail } from '../contracts/spectra';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
-import { unpackCurves } from '../jobs/scan-curves';
 import type { Actor, ServiceContext } from './context';
 import { toReadingView } from './submit-reading';
 
@@ -106,18 +105,22 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
   };
 }
 
-/** The current scan's χ²(z) curves as plain arrays (rounded; they are for plotting). */
-export function getScanCurves(ctx: ServiceContext, spectrumId: number) {
-  const scan = ctx.db.select({ curves: scanResults.curves }).from(scanResults).where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true))).get();
-  if (!scan) return { curves: [] };
-  return {
-    curves: unpackCurves(scan.curves).map((c) => ({
-      template: c.template,
-      class: c.class,
-      z: Array.from(c.z, (v) => Number(v.toFixed(6))),
-      chi2: Array.from(c.chi2, (v) => Number(v.toPrecision(7))),
-    })),
-  };
+/** An empty packing (no curves): a spectrum not scanned yet has an empty strip, not an error. */
+const NO_CURVES = Buffer.from([2, 0, 0, 0, 0x5b, 0x5d, 0, 0]);
+
+/**
+ * The current scan's χ²(z) curves, packed as stored (contracts/scan-curves-binary.ts), with a
+ * validator naming the scan: a re-scan makes a new scan row, so the ETag changes exactly when the
+ * curves do.
+ */
+export function getScanCurves(ctx: ServiceContext, spectrumId: number): { packed: Buffer; etag: string } {
+  const scan = ctx.db
+    .select({ id: scanResults.id, curves: scanResults.curves })
+    .from(scanResults)
+    .where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true)))
+    .get();
+  if (!scan) return { packed: NO_CURVES, etag: '"no-scan"' };
+  return { packed: Buffer.from(scan.curves.buffer, scan.curves.byteOffset, scan.curves.byteLength), etag: `"scan-${scan.id}"` };
 }
 
 /** The engine's reason for an 'unknown' class, kept in the scan's meta (engine ≥ 0.6.0). */
