@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
-import { and, count, eq, gt, isNull, lt, ne } from 'drizzle-orm';
+import { and, count, eq, gt, isNull, lt, ne, sql } from 'drizzle-orm';
+import { preparedQuery } from '../db/prepared';
 import { sessions, users } from '../db/schema';
 import { notFound } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
@@ -30,14 +31,19 @@ export function startSession(ctx: ServiceContext, userId: number): string {
  * The person behind a session cookie, or null when the session is unknown, ended or expired, or
  * its account disabled. One primary-key lookup joined to the user.
  */
-export function findSessionUser(ctx: ServiceContext, sessionId: string): Actor | null {
-  const now = ctx.now();
-  const row = ctx.db
+// Every signed-in request asks this.
+const sessionWithUser = preparedQuery((db) =>
+  db
     .select({ id: users.id, email: users.email, name: users.name, isAdmin: users.isAdmin, disabled: users.disabled, lastSeenAt: sessions.lastSeenAt, expiresAt: sessions.expiresAt, revokedAt: sessions.revokedAt })
     .from(sessions)
     .innerJoin(users, eq(users.id, sessions.userId))
-    .where(eq(sessions.id, sessionId))
-    .get();
+    .where(eq(sessions.id, sql.placeholder('sessionId')))
+    .prepare(),
+);
+
+export function findSessionUser(ctx: ServiceContext, sessionId: string): Actor | null {
+  const now = ctx.now();
+  const row = sessionWithUser(ctx.db).get({ sessionId });
   if (!row || row.disabled || row.revokedAt !== null || row.expiresAt <= iso(now)) return null;
   if (now.getTime() - Date.parse(row.lastSeenAt) > LAST_SEEN_RESOLUTION_MS) {
     ctx.db.update(sessions).set({ lastSeenAt: iso(now) }).where(eq(sessions.id, sessionId)).run();

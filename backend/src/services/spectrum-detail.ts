@@ -1,10 +1,23 @@
-import { and, asc, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { gridStepOf, type CampaignRole } from '../contracts/campaigns';
 import type { Reading } from '../contracts/readings';
 import type { Scan, SpectrumDetail } from '../contracts/spectra';
+import { preparedQuery } from '../db/prepared';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
 import type { Actor, ServiceContext } from './context';
 import { toReadingView } from './submit-reading';
+
+// The inspection screen asks for a detail on every spectrum it opens: its reads are prepared once.
+const id = sql.placeholder('id');
+const spectrumById = preparedQuery((db) => db.select().from(spectra).where(eq(spectra.id, id)).prepare());
+const campaignById = preparedQuery((db) => db.select().from(campaigns).where(eq(campaigns.id, id)).prepare());
+const targetById = preparedQuery((db) => db.select().from(targets).where(eq(targets.id, id)).prepare());
+const currentScanOf = preparedQuery((db) =>
+  db.select().from(scanResults).where(and(eq(scanResults.spectrumId, id), eq(scanResults.isCurrent, true))).prepare(),
+);
+const assignmentOf = preparedQuery((db) =>
+  db.select().from(assignments).where(and(eq(assignments.spectrumId, id), eq(assignments.readerId, sql.placeholder('readerId')))).prepare(),
+);
 
 /**
  * Everything the inspection screen shows about one spectrum except the arrays. Readings are
@@ -12,11 +25,11 @@ import { toReadingView } from './submit-reading';
  * an observer none until confirmed.
  */
 export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: CampaignRole | null, spectrumId: number): SpectrumDetail {
-  const s = ctx.db.select().from(spectra).where(eq(spectra.id, spectrumId)).get()!;
-  const campaign = ctx.db.select().from(campaigns).where(eq(campaigns.id, s.campaignId)).get()!;
-  const target = s.targetId === null ? null : (ctx.db.select().from(targets).where(eq(targets.id, s.targetId)).get() ?? null);
-  const scan = ctx.db.select().from(scanResults).where(and(eq(scanResults.spectrumId, s.id), eq(scanResults.isCurrent, true))).get();
-  const assignment = ctx.db.select().from(assignments).where(and(eq(assignments.spectrumId, s.id), eq(assignments.readerId, actor.id))).get();
+  const s = spectrumById(ctx.db).get({ id: spectrumId })!;
+  const campaign = campaignById(ctx.db).get({ id: s.campaignId })!;
+  const target = s.targetId === null ? null : (targetById(ctx.db).get({ id: s.targetId }) ?? null);
+  const scan = currentScanOf(ctx.db).get({ id: s.id });
+  const assignment = assignmentOf(ctx.db).get({ id: s.id, readerId: actor.id });
 
   const visibleReadings = (spectrumIds: number[]): Reading[] => {
     if (spectrumIds.length === 0 || (role !== 'lead' && role !== 'reader')) return [];
@@ -105,6 +118,14 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
   };
 }
 
+const currentCurvesOf = preparedQuery((db) =>
+  db
+    .select({ id: scanResults.id, curves: scanResults.curves })
+    .from(scanResults)
+    .where(and(eq(scanResults.spectrumId, id), eq(scanResults.isCurrent, true)))
+    .prepare(),
+);
+
 /** An empty packing (no curves): a spectrum not scanned yet has an empty strip, not an error. */
 const NO_CURVES = Buffer.from([2, 0, 0, 0, 0x5b, 0x5d, 0, 0]);
 
@@ -114,11 +135,7 @@ const NO_CURVES = Buffer.from([2, 0, 0, 0, 0x5b, 0x5d, 0, 0]);
  * curves do.
  */
 export function getScanCurves(ctx: ServiceContext, spectrumId: number): { packed: Buffer; etag: string } {
-  const scan = ctx.db
-    .select({ id: scanResults.id, curves: scanResults.curves })
-    .from(scanResults)
-    .where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true)))
-    .get();
+  const scan = currentCurvesOf(ctx.db).get({ id: spectrumId });
   if (!scan) return { packed: NO_CURVES, etag: '"no-scan"' };
   return { packed: Buffer.from(scan.curves.buffer, scan.curves.byteOffset, scan.curves.byteLength), etag: `"scan-${scan.id}"` };
 }
