@@ -7,22 +7,38 @@ export const SMOOTH_BELOW_SNR = 3;
 const MIN_WIDTH = 3;
 const MAX_WIDTH = 9;
 
+/** The spectrum is cut into this many stretches of equal pixel count for its S/N (medianSnrPerPixel). */
+const STRETCHES = 10;
+
 /**
- * Median S/N per pixel: the median of flux / σ over unmasked pixels with a finite flux and a
- * known positive σ. Null when no pixel has both (e.g. no error column).
+ * Median S/N per pixel of the part of the spectrum that carries signal: the median of flux / σ
+ * (unmasked pixels with a finite flux and a known positive σ) in each tenth of the pixels, and
+ * the highest of those ten. A Lyman-break source is black blueward of its break by nature and an
+ * emission-line source may have continuum over part of the range only; over the whole spectrum
+ * their median would call a clear S/N 6 continuum noise. Null when no stretch has a usable pixel.
  *
- * @example medianSnrPerPixel(Float32Array.of(2, 4, 6), Float32Array.of(1, 2, 1), new Uint8Array(3)) // 2
+ * @example medianSnrPerPixel(Float32Array.of(2, 4, 6), Float32Array.of(1, 2, 1), new Uint8Array(3)) // 6 (three stretches of one pixel)
  */
 export function medianSnrPerPixel(flux: Float32Array, error: Float32Array, mask: Uint8Array): number | null {
-  return sampleMedian(
-    flux.length,
-    (i) => flux[i]! / error[i]!,
-    (i) => mask[i] === 0 && Number.isFinite(flux[i]!) && error[i]! > 0,
-  );
+  const n = flux.length;
+  let best: number | null = null;
+  for (let k = 0; k < STRETCHES; k++) {
+    const i0 = Math.floor((k * n) / STRETCHES);
+    const i1 = Math.floor(((k + 1) * n) / STRETCHES);
+    if (i1 <= i0) continue;
+    const m = sampleMedian(
+      i1 - i0,
+      (i) => flux[i0 + i]! / error[i0 + i]!,
+      (i) => mask[i0 + i] === 0 && Number.isFinite(flux[i0 + i]!) && error[i0 + i]! > 0,
+    );
+    if (m !== null && (best === null || m > best)) best = m;
+  }
+  return best;
 }
 
 /**
- * The smoothing a spectrum opens with. At a median S/N per pixel of 3 or more (or unknown), none.
+ * The smoothing a spectrum opens with, from medianSnrPerPixel. At a median S/N per pixel of 3 or
+ * more (or unknown), none.
  * Below it, a boxcar of N pixels, N = (3 / S/N)² — averaging N independent pixels raises the S/N
  * by √N, so the median smoothed pixel reaches S/N ≈ 3 — rounded up to an odd N (centred on its
  * pixel), at least 3 and at most 9 pixels. At S/N 2 that is 3 pixels, at 1.5 five, at 1 or below nine.

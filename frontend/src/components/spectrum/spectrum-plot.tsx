@@ -548,11 +548,11 @@ function attachLineHover(u: uPlot, host: HTMLElement, scratches: () => readonly 
   let at: { x: number; y: number } | null = null;
   const render = () => {
     frame = 0;
-    if (!at) return void tip.classList.add('hidden');
     const found: Array<DrawnMarker & { comb: number }> = [];
-    scratches().forEach((s, comb) => markersAt(s, at!.x, at!.y, HOVER_SLOP_PX).forEach((m) => found.push({ ...m, comb })));
-    if (found.length === 0) {
+    if (at) scratches().forEach((s, comb) => markersAt(s, at!.x, at!.y, HOVER_SLOP_PX).forEach((m) => found.push({ ...m, comb })));
+    if (!at || found.length === 0) {
       tip.classList.add('hidden');
+      tip.replaceChildren();
       u.over.removeAttribute('aria-describedby');
       return;
     }

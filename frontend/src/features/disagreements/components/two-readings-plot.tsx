@@ -6,12 +6,12 @@ import { SpectrumPlot } from '@/components/spectrum/spectrum-plot';
 import type { PlotControls } from '@/components/spectrum/spectrum-plot';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { readingCombLines } from '@/components/spectrum/comb-lines';
+import { defaultSmoothing, medianSnrPerPixel } from '@/components/spectrum/default-smoothing';
 import { useDisplayArrays } from '@/components/spectrum/use-display-arrays';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatRedshift } from '@/lib/format';
 import type { CombLine } from '@/lib/line-list';
 
-const NO_SMOOTHING = { kind: 'none', width: 5, unit: 'pixels' } as const;
 
 /**
  * The spectrum with both readings' combs at once, each drawing only the lines its reader used (or
@@ -21,7 +21,9 @@ const NO_SMOOTHING = { kind: 'none', width: 5, unit: 'pixels' } as const;
  * dragging zooms.
  */
 export function TwoReadingsPlot({ arrays, lines, first, second }: { arrays: SpectrumArrays; lines: CombLine[]; first: Reading; second: Reading }) {
-  const display = useDisplayArrays(arrays, NO_SMOOTHING);
+  // Smoothed as the inspection screen opens it: matched to the S/N below 3 per pixel, else not at all.
+  const smoothing = useMemo(() => defaultSmoothing(medianSnrPerPixel(arrays.flux, arrays.error, arrays.mask)), [arrays]);
+  const display = useDisplayArrays(arrays, smoothing);
   const controls = useRef<PlotControls>(null);
   // Stores are per pair of readings; the page mounts this per disagreement.
   const [stores] = useState(() => [createTrialZStore(first.z, -0.01, 12), createTrialZStore(second.z, -0.01, 12)] as const);
@@ -48,7 +50,7 @@ export function TwoReadingsPlot({ arrays, lines, first, second }: { arrays: Spec
         <ul aria-label="Combs" className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600">
           <CombKey colour={PLOT.readingFirst} text={`first reading, z = ${formatRedshift(first.z)} (its lines, names on top)`} />
           <CombKey colour={PLOT.readingSecond} text={`second reading, z = ${formatRedshift(second.z)} (its lines, names below)`} />
-          <li>solid emission · dashed absorption · dotted band or break</li>
+          <li>solid emission · dashed absorption · dotted band or break{smoothing.kind === 'none' ? '' : ` · flux smoothed: boxcar ${smoothing.width} px (S/N below 3 per pixel)`}</li>
         </ul>
         <Button variant="secondary" size="sm" onClick={() => controls.current?.resetZoom()}>
           Reset zoom

@@ -151,7 +151,7 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
         </span>
         <span>numbers: solutions by rank</span>
         <span className="basis-full">
-          Δχ² = χ²(z) − χ² of the best fit (0 at the best): linear up to {DELTA_CHI2_KNEE}, compressed above, cut at {DELTA_CHI2_CLIP}. A dip is a candidate redshift; one more than {DELTA_CHI2_KNEE} above the best is strongly disfavoured (5σ for Gaussian errors).
+          Δχ² = χ²(z) − χ² of the best fit (0 at the best): linear up to {DELTA_CHI2_KNEE}, compressed above, cut at {DELTA_CHI2_CLIP.toLocaleString('en')}. A dip is a candidate redshift; one more than {DELTA_CHI2_KNEE} above the best is strongly disfavoured (5σ for Gaussian errors).
         </span>
       </figcaption>
     </figure>
@@ -159,7 +159,7 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
 }
 
 const TICK_HEIGHTS = DELTA_CHI2_TICKS.map(deltaChi2Height);
-const TICK_LABELS = DELTA_CHI2_TICKS.map((d) => (d === DELTA_CHI2_CLIP ? `≥${d}` : String(d)));
+const TICK_LABELS = DELTA_CHI2_TICKS.map((d) => (d === DELTA_CHI2_CLIP ? `≥${d.toLocaleString('en')}` : d.toLocaleString('en')));
 const TOP = deltaChi2Height(DELTA_CHI2_CLIP);
 const Y_RANGE: [number, number] = [-0.03 * TOP, 1.04 * TOP];
 

@@ -5,10 +5,12 @@
  * errors (common practice), so every minimum a reader should weigh sits in the linear part, where
  * depths compare by eye. Beyond it the scale is asinh (logarithmic far out), so a curve ranging
  * over 10⁵ does not squash the minima into the bottom pixel row. Values above the clip are drawn
- * at the clip: at Δχ² > 1000 a redshift is ruled out and its exact value does not matter.
+ * at the clip: at Δχ² > 10⁴ a redshift is ruled out and its exact value does not matter, while
+ * the engine's other solutions (often a few hundred to a few thousand above the best on faint
+ * spectra) still show as dips below it.
  */
 export const DELTA_CHI2_KNEE = 25;
-export const DELTA_CHI2_CLIP = 1000;
+export const DELTA_CHI2_CLIP = 10_000;
 
 /**
  * Height on the strip for a Δχ² (arbitrary units, 0 at the best fit): K·asinh(Δχ²/K) with
@@ -26,4 +28,4 @@ export function deltaChi2Height(delta: number): number {
 export const deltaChi2AtHeight = (h: number) => DELTA_CHI2_KNEE * Math.sinh(h / DELTA_CHI2_KNEE);
 
 /** Axis ticks, as Δχ² values: dense in the linear part, sparse in the compressed one. */
-export const DELTA_CHI2_TICKS = [0, 10, 25, 50, 100, 250, 1000] as const;
+export const DELTA_CHI2_TICKS = [0, 25, 100, 1000, 10_000] as const;
