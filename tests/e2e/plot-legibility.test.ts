@@ -1,9 +1,11 @@
-import { copyFileSync, mkdirSync } from 'node:fs';
+import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { eq } from 'drizzle-orm';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { jobs } from '../../backend/src/db/schema';
+import { jobs, users } from '../../backend/src/db/schema';
+import { receiveUpload } from '../../backend/src/services/receive-upload';
+import { generateSyntheticSpectrum } from '../../backend/src/spectra/generateSyntheticSpectrum';
 import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
 
 /*
@@ -182,6 +184,54 @@ it('the settlement view: each comb draws only its reading’s lines in one row c
   expect(texts(1).slice(1).every((t) => second.lines.includes(t))).toBe(true);
   expect(texts(0).length + texts(1).length).toBeGreaterThan(4);
   await screenshot(page, 'settlement.png');
+  expect(pageErrors).toEqual([]);
+  await page.close();
+}, 120_000);
+
+/** An invented galaxy spectrum whose sky column is 40× its continuum, as a text table with a sky column. */
+function skyDominatedCsv(): string {
+  const s = generateSyntheticSpectrum({ class: 'galaxy', z: 0.8, snr: 10, seed: 2031, wavelengthMin: 5000, wavelengthMax: 9500, pixels: 3000 });
+  const rows = ['# Invented test spectrum: a galaxy under a bright sky (Redward plot test)', '# medium: vacuum', 'wavelength_angstrom,flux,error,mask,sky'];
+  let level = 0;
+  for (let i = 0; i < s.flux.length; i++) level = Math.max(level, Math.abs(s.flux[i]!));
+  for (let i = 0; i < s.flux.length; i++) {
+    const lam = s.wavelength[i]!;
+    const night = [5578.9, 6302.0, 7246.0, 7916.0, 8399.0, 8827.0, 9378.0].some((l) => Math.abs(lam - l) < 4) ? 300 : 40;
+    const err = s.ivar[i]! > 0 ? 1 / Math.sqrt(s.ivar[i]!) : 0;
+    rows.push(`${lam.toFixed(3)},${s.flux[i]!.toPrecision(6)},${err.toPrecision(5)},${s.mask[i]},${(night * level).toPrecision(6)}`);
+  }
+  return rows.join('\n') + '\n';
+}
+
+it('a sky that swamps the data starts hidden and is one click away', async () => {
+  const ctx = server.ctx;
+  const idOf = (email: string) => ctx.db.select({ id: users.id }).from(users).where(eq(users.email, email)).get()!.id;
+  const tempFile = ctx.store.tempPath();
+  writeFileSync(tempFile, skyDominatedCsv());
+  const lead = { id: idOf('lead@demo.test'), email: 'lead@demo.test', name: 'Lena', isAdmin: false };
+  const { jobId } = await receiveUpload(ctx, ctx.store, lead, 1, [{ originalName: 'SKYTEST-1.csv', tempFile }], { assign: { first: idOf('reader1@demo.test'), second: idOf('reader2@demo.test') } });
+  ctx.wakeJobRunner();
+  for (let i = 0; i < 600 && ctx.db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, jobId)).get()!.state !== 'done'; i++) await new Promise((r) => setTimeout(r, 100));
+
+  const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
+  const pageErrors: string[] = [];
+  page.on('pageerror', (err) => pageErrors.push(err.message));
+  await signInThroughPage(page, server.url, 'reader1@demo.test');
+  const queue: Array<{ id: number; fileName: string }> = await page.evaluate(async () => (await fetch('/api/me/queue?campaign=1')).json());
+  const sky = queue.find((q) => q.fileName === 'SKYTEST-1.csv');
+  expect(sky).toBeDefined();
+  await page.goto(`${server.url}/campaigns/1/inspect?spectrum=${sky!.id}`);
+  await page.getByRole('group', { name: 'Spectrum plot' }).waitFor({ timeout: 30_000 });
+  const skyBox = page.getByLabel(/^Sky/);
+  await skyBox.waitFor({ timeout: 15_000 });
+  expect(await skyBox.isChecked()).toBe(false);
+  expect(await page.getByText('(swamps the data: hidden at first)').count()).toBe(1);
+  const legend = page.getByRole('list', { name: 'Plot legend' });
+  expect(await legend.textContent()).not.toMatch(/\bsky\b/);
+  // At S/N 10 per pixel the spectrum opens unsmoothed.
+  expect(await page.getByLabel('Smoothing', { exact: true }).inputValue()).toBe('none');
+  await skyBox.check();
+  await expect.poll(() => legend.textContent()).toMatch(/\bsky\b/);
   expect(pageErrors).toEqual([]);
   await page.close();
 }, 120_000);
