@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defaultSmoothing, medianSnrPerPixel } from './default-smoothing';
+import { defaultSmoothing, medianSnrPerPixel, spectrumSnr } from './default-smoothing';
 import { sampleMedian } from './sample-median';
 import { skySwampsData } from './sky-default';
 
@@ -62,6 +62,14 @@ describe('default smoothing from the median S/N per pixel', () => {
     expect(defaultSmoothing(0.3).width).toBe(9);
     expect(defaultSmoothing(-0.5).width).toBe(9);
   });
+  it('keeps one S/N per flux array', () => {
+    const arrays = { flux: Float32Array.of(2, 4, 6), error: Float32Array.of(1, 1, 1), mask: new Uint8Array(3) };
+    expect(spectrumSnr(arrays)).toBe(6);
+    arrays.error.fill(2); // the cache answers for the same flux array (arrays are never changed in the app)
+    expect(spectrumSnr(arrays)).toBe(6);
+    expect(spectrumSnr({ ...arrays, flux: Float32Array.of(2, 4, 6) })).toBe(3);
+  });
+
   it('opens a noisy spectrum at S/N ≈ 2 with a 3-pixel boxcar', () => {
     const n = 3000;
     const err = new Float32Array(n).fill(0.5);

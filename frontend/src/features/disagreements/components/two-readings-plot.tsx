@@ -6,7 +6,7 @@ import { SpectrumPlot } from '@/components/spectrum/spectrum-plot';
 import type { PlotControls } from '@/components/spectrum/spectrum-plot';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { readingCombLines } from '@/components/spectrum/comb-lines';
-import { defaultSmoothing, medianSnrPerPixel } from '@/components/spectrum/default-smoothing';
+import { defaultSmoothing, spectrumSnr } from '@/components/spectrum/default-smoothing';
 import { useDisplayArrays } from '@/components/spectrum/use-display-arrays';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import { formatRedshift } from '@/lib/format';
@@ -22,7 +22,7 @@ import type { CombLine } from '@/lib/line-list';
  */
 export function TwoReadingsPlot({ arrays, lines, first, second }: { arrays: SpectrumArrays; lines: CombLine[]; first: Reading; second: Reading }) {
   // Smoothed as the inspection screen opens it: matched to the S/N below 3 per pixel, else not at all.
-  const smoothing = useMemo(() => defaultSmoothing(medianSnrPerPixel(arrays.flux, arrays.error, arrays.mask)), [arrays]);
+  const smoothing = useMemo(() => defaultSmoothing(spectrumSnr(arrays)), [arrays]);
   const display = useDisplayArrays(arrays, smoothing);
   const controls = useRef<PlotControls>(null);
   // Stores are per pair of readings; the page mounts this per disagreement.

@@ -19,7 +19,7 @@ import { linesOnData, nudgeZ, pixelStepFactor } from '@/components/spectrum/comb
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import type { Smoothing } from '@/components/spectrum/smooth';
 import { combLinesFor } from '@/components/spectrum/comb-lines';
-import { defaultSmoothing, medianSnrPerPixel } from '@/components/spectrum/default-smoothing';
+import { defaultSmoothing, spectrumSnr } from '@/components/spectrum/default-smoothing';
 import { skySwampsData } from '@/components/spectrum/sky-default';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { Chi2Strip } from './chi2-strip';
@@ -81,7 +81,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   const [tool, setTool] = useState<PlotTool>('comb');
   // Null: the S/N-matched default of each spectrum (default-smoothing.ts); a reader's choice carries over.
   const [smoothingChoice, setSmoothingChoice] = useState<Smoothing | null>(null);
-  const snr = useMemo(() => medianSnrPerPixel(arrays.flux, arrays.error, arrays.mask), [arrays]);
+  const snr = useMemo(() => spectrumSnr(arrays), [arrays]);
   const smoothing = useMemo(() => smoothingChoice ?? defaultSmoothing(snr), [smoothingChoice, snr]);
   const lastSmoothing = useRef<Smoothing>({ kind: 'boxcar', width: 5, unit: 'pixels' });
   // Sky starts hidden when it swamps the data (sky-default.ts), per spectrum; one click shows it.
@@ -287,7 +287,7 @@ function useUpcomingDisplay(nextId: number | null, smoothingChoice: Smoothing | 
   const model = useQuery({ ...getSolutionModelQueryOptions(nextId ?? 0, nextScanId ?? 0, 1), enabled: nextId !== null && nextScanId !== null && showModel, retry: false });
   const arrays = nextId !== null ? data.data : undefined;
   const nextModel = showModel && nextId !== null ? (model.data ?? null) : null;
-  return useMemo(() => (arrays ? () => displayArraysOf(arrays, smoothingChoice ?? defaultSmoothing(medianSnrPerPixel(arrays.flux, arrays.error, arrays.mask)), nextModel) : null), [arrays, smoothingChoice, nextModel]);
+  return useMemo(() => (arrays ? () => displayArraysOf(arrays, smoothingChoice ?? defaultSmoothing(spectrumSnr(arrays)), nextModel) : null), [arrays, smoothingChoice, nextModel]);
 }
 
 function Legend({ hasSky, hasModel, hasOffset }: { hasSky: boolean; hasModel: boolean; hasOffset: boolean }) {
