@@ -72,18 +72,30 @@ interface Group {
 const pad = (i: number) => String(i + 1).padStart(2, '0');
 
 /** Lantern Cluster arcs: three multiple-image families, cluster members, interlopers, contaminants. */
-export const LANTERN_TARGETS = build({ ra: 160.5146, dec: -11.6333 }, 41, [
-  // A triply imaged Lyman-break source with Lyα emission: the campaign's prize.
-  { count: 3, id: (i) => `LNT-A1.${i + 1}`, truth: () => ({ class: 'lyman-break', template: 'lyman-break-lya', z: 6.143, snr: 6 }), family: 'A1', priority: 1, mag: [25.4, 26.3], instrument: 'demo-grism' },
-  { count: 2, id: (i) => `LNT-B2.${i + 1}`, truth: () => ({ class: 'galaxy', template: 'galaxy-emission', z: 2.317, snr: 7 }), family: 'B2', priority: 1, mag: [23.8, 24.6], instrument: 'demo-grism' },
-  { count: 3, id: (i) => `LNT-C3.${i + 1}`, truth: () => ({ class: 'galaxy', template: 'galaxy-emission', z: 1.288, snr: 9 }), family: 'C3', priority: 1, mag: [22.9, 23.7], instrument: 'demo-slit' },
-  { count: 15, id: (i) => `LNT-M${pad(i)}`, truth: (r) => ({ class: 'galaxy', template: 'galaxy-absorption', z: round(0.41 + 0.004 * r.gauss(), 4), snr: r.between(6, 15) }), priority: 3, mag: [19.5, 22], instrument: 'demo-slit' },
-  { count: 20, id: (i) => `LNT-S${pad(i)}`, truth: (r) => ({ class: 'galaxy', template: 'galaxy-emission', z: round(r.between(0.55, 1.45), 4), snr: r.between(3, 12) }), priority: 2, mag: [22.5, 25], instrument: 'demo-slit' },
-  { count: 6, id: (i) => `LNT-F${pad(i)}`, truth: (r) => ({ class: 'galaxy', template: 'galaxy-emission', z: round(r.between(0.08, 0.3), 4), snr: r.between(8, 20) }), priority: 3, mag: [20, 22], instrument: 'demo-slit' },
-  { count: 2, id: (i) => `LNT-Q${pad(i)}`, truth: (r) => ({ class: 'quasar', template: 'quasar', z: round(r.between(2.6, 3.1), 4), snr: 12 }), priority: 2, mag: [20.5, 21.5], instrument: 'demo-slit' },
-  { count: 5, id: (i) => `LNT-X${pad(i)}`, truth: () => ({ class: 'star', template: 'star-cool', z: 0, snr: 10 }), photoZ: (r) => r.between(5.8, 6.6), priority: 2, mag: [24, 25.5], instrument: 'demo-grism' },
-  { count: 4, id: (i) => `LNT-U${pad(i)}`, truth: null, priority: 3, mag: [26, 27], instrument: 'demo-grism' },
-]);
+export const LANTERN_TARGETS: readonly DemoTarget[] = [
+  ...build({ ra: 160.5146, dec: -11.6333 }, 41, [
+    // A triply imaged Lyman-break source with Lyα emission: the campaign's prize.
+    { count: 3, id: (i) => `LNT-A1.${i + 1}`, truth: () => ({ class: 'lyman-break', template: 'lyman-break-lya', z: 6.143, snr: 6 }), family: 'A1', priority: 1, mag: [25.4, 26.3], instrument: 'demo-grism' },
+    { count: 2, id: (i) => `LNT-B2.${i + 1}`, truth: () => ({ class: 'galaxy', template: 'galaxy-emission', z: 2.317, snr: 7 }), family: 'B2', priority: 1, mag: [23.8, 24.6], instrument: 'demo-grism' },
+    { count: 3, id: (i) => `LNT-C3.${i + 1}`, truth: () => ({ class: 'galaxy', template: 'galaxy-emission', z: 1.288, snr: 9 }), family: 'C3', priority: 1, mag: [22.9, 23.7], instrument: 'demo-slit' },
+    { count: 15, id: (i) => `LNT-M${pad(i)}`, truth: (r) => ({ class: 'galaxy', template: 'galaxy-absorption', z: round(0.41 + 0.004 * r.gauss(), 4), snr: r.between(6, 15) }), priority: 3, mag: [19.5, 22], instrument: 'demo-slit' },
+    { count: 20, id: (i) => `LNT-S${pad(i)}`, truth: (r) => ({ class: 'galaxy', template: 'galaxy-emission', z: round(r.between(0.55, 1.45), 4), snr: r.between(3, 12) }), priority: 2, mag: [22.5, 25], instrument: 'demo-slit' },
+    { count: 6, id: (i) => `LNT-F${pad(i)}`, truth: (r) => ({ class: 'galaxy', template: 'galaxy-emission', z: round(r.between(0.08, 0.3), 4), snr: r.between(8, 20) }), priority: 3, mag: [20, 22], instrument: 'demo-slit' },
+    { count: 2, id: (i) => `LNT-Q${pad(i)}`, truth: (r) => ({ class: 'quasar', template: 'quasar', z: round(r.between(2.6, 3.1), 4), snr: 12 }), priority: 2, mag: [20.5, 21.5], instrument: 'demo-slit' },
+    { count: 5, id: (i) => `LNT-X${pad(i)}`, truth: () => ({ class: 'star', template: 'star-cool', z: 0, snr: 10 }), photoZ: (r) => r.between(5.8, 6.6), priority: 2, mag: [24, 25.5], instrument: 'demo-grism' },
+    { count: 4, id: (i) => `LNT-U${pad(i)}`, truth: null, priority: 3, mag: [26, 27], instrument: 'demo-grism' },
+  ]),
+  ...faintArcTargets({ ra: 160.5146, dec: -11.6333 }),
+];
+
+/**
+ * One faint lensed arc at S/N ≈ 2 per pixel in the grism (2.1 in its best tenth as generated, medianSnrPerPixel of the client): what a reader meets at the detection
+ * limit (smoothed by default, most comb labels competing for room). Built from its own seed after
+ * the other targets, so adding it moved none of them.
+ */
+function faintArcTargets(centre: { ra: number; dec: number }): DemoTarget[] {
+  return build(centre, 43, [{ count: 1, id: () => 'LNT-W01', truth: () => ({ class: 'lyman-break', template: 'lyman-break-lya', z: 4.372, snr: 1.8 }), priority: 3, mag: [26.4, 26.8], instrument: 'demo-grism' }]);
+}
 
 /** Tidewater Deep Field dropouts: Lyman-break sources, low-redshift interlopers and cool dwarfs. */
 export const TIDEWATER_TARGETS = build({ ra: 214.3021, dec: 8.7142 }, 77, [

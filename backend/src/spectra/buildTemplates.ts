@@ -176,11 +176,13 @@ export function transmissionWithProximity(restA: number, z: number, zone: Proxim
   return dv < zone.velocityKms ? Math.max(t, zone.transmission * (1 - dv / zone.velocityKms)) : t;
 }
 
-function strengthKeyOf(recipe: TemplateRecipe, comp: ComponentRecipe): string {
+/** The strength key a component reads its lines' strengths under (component, then recipe, then recipe id). */
+export function strengthKeyOf(recipe: TemplateRecipe, comp: ComponentRecipe): string {
   return comp.strengthKey ?? recipe.strengthKey ?? recipe.id;
 }
 
-function selectLines(recipeId: string, comp: ComponentRecipe): SpectralLine[] {
+/** The lines a template component draws: a strength under its key, and its kinds, species and names. */
+export function selectLines(recipeId: string, comp: ComponentRecipe): SpectralLine[] {
   return TEMPLATE_LINES.filter(
     (l) =>
       (l.strength[recipeId] ?? 0) > 0 &&

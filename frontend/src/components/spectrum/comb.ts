@@ -1,28 +1,6 @@
 import type { CombLine } from '@/lib/line-list';
 import { lowerBound } from './robust-range';
 
-/**
- * Label rows for comb markers: each label goes to the first row whose last label ends left of
- * it, so crowded regions stack instead of overlapping. `xs` must be sorted; widths in the same
- * unit (CSS px). Writes into `rows` to avoid allocating per frame; returns the rows used.
- */
-export function staggerLabels(xs: Float64Array, widths: Float64Array, count: number, rows: Int8Array, maxRows: number, gap = 4): number {
-  const ends = new Float64Array(maxRows).fill(-Infinity);
-  let used = 0;
-  for (let i = 0; i < count; i++) {
-    let r = 0;
-    while (r < maxRows && ends[r]! > xs[i]! - gap) r++;
-    if (r === maxRows) {
-      rows[i] = -1; // no room: the marker is drawn, its label is not
-      continue;
-    }
-    rows[i] = r;
-    ends[r] = xs[i]! + widths[i]!;
-    if (r + 1 > used) used = r + 1;
-  }
-  return used;
-}
-
 /** Observed vacuum wavelength of a rest-frame feature at redshift z. */
 export const observedAt = (rest: number, z: number) => rest * (1 + z);
 

@@ -5,8 +5,8 @@ import 'uplot/dist/uPlot.min.css';
 import type { CombLine } from '@/lib/line-list';
 import type { DisplayArrays } from './use-display-arrays';
 import { bandColumns } from './band-columns';
-import { createCombScratch, drawComb, drawPeaks, KIND_COLOURED } from './draw-comb';
-import type { CombLook } from './draw-comb';
+import { createCombScratch, drawComb, drawnLabelBoxes, drawPeaks, droppedLabels, KIND_COLOURED, markersAt } from './draw-comb';
+import type { CombLook, CombScratch, DrawnMarker } from './draw-comb';
 import { dragZ } from './comb';
 import type { WindowArrays } from './display-window';
 import { preparedWindow } from './prepared-window';
@@ -32,6 +32,8 @@ export interface PlotControls {
 export interface PlotComb {
   store: TrialZStore;
   look?: CombLook;
+  /** This comb's own lines (e.g. those a reading used); else the plot's `lines`. */
+  lines?: readonly CombLine[];
 }
 
 interface Props {
@@ -41,11 +43,13 @@ interface Props {
    * plot makes it (smoothing it if need be) and reduces its whole range for its own width.
    */
   upcoming?: (() => DisplayArrays) | null;
-  lines: CombLine[];
+  lines: readonly CombLine[];
   /** The first comb is the one a comb drag moves and the rest-frame axis follows. Keep the array stable (memoise it). */
   combs: readonly PlotComb[];
   tool: PlotTool;
   restFrame: boolean;
+  /** Draw the sky spectrum when the file has one (default true). */
+  showSky?: boolean;
   peaks?: Array<{ wavelength: number }>;
   onPeak?: (index: number) => void;
   controls?: Ref<PlotControls>;
@@ -74,10 +78,10 @@ type Window = [number, number];
  * two points per screen column (display-window.ts), so drawing costs the same on 4,000 pixels as
  * on 100,000. A comb move repaints only the overlay.
  */
-export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, restFrame, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
+export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, restFrame, showSky = true, peaks = NO_PEAKS, onPeak = ignorePeak, controls, describedBy, label = 'Spectrum plot' }: Props) {
   const host = useRef<HTMLDivElement>(null);
   const plot = useRef<uPlot | null>(null);
-  const live = useRef({ display, lines, combs, peaks, tool, restFrame, onPeak, view: fullRange(display), win: null as WindowArrays | null, yRange: null as [number, number] | null, columns: 0, flux: NO_FLUX_AXIS as ReturnType<typeof fluxAxisOf> });
+  const live = useRef({ display, lines, combs, peaks, tool, restFrame, showSky, onPeak, view: fullRange(display), win: null as WindowArrays | null, yRange: null as [number, number] | null, columns: 0, flux: NO_FLUX_AXIS as ReturnType<typeof fluxAxisOf> });
   const paintComb = useRef<() => void>(() => {});
   const showWindow = useRef<(view: Window) => void>(() => {});
   live.current.lines = lines;
@@ -85,6 +89,7 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
   live.current.peaks = peaks;
   live.current.tool = tool;
   live.current.onPeak = onPeak;
+  live.current.showSky = showSky;
   const store = combs[0]!.store;
 
   useImperativeHandle(controls, () => ({
@@ -104,7 +109,9 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
 
   useEffect(() => {
     const el = host.current!;
-    const scratch = createCombScratch(512);
+    // One set of buffers per comb: after a paint each holds what its comb drew (for hover and tests).
+    const scratches: CombScratch[] = [];
+    const scratchOf = (i: number) => (scratches[i] ??= createCombScratch(512));
     const trialZ = () => live.current.combs[0]!.store.get();
     let overlay: ReturnType<typeof createOverlayCanvas> | null = null;
     let bandTop = new Float32Array(0);
@@ -116,9 +123,23 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
       const toX = (lambda: number) => u.valToPos(lambda, 'x');
       const { lines, peaks, combs } = live.current;
       overlay.paint((ctx, w, h) => {
-        for (const comb of combs) drawComb(ctx, lines, comb.store.get(), toX, w, h, scratch, comb.look ?? KIND_COLOURED);
+        combs.forEach((comb, i) => drawComb(ctx, comb.lines ?? lines, comb.store.get(), toX, w, h, scratchOf(i), comb.look ?? KIND_COLOURED));
         drawPeaks(ctx, peaks, toX, w, h);
       });
+      scratches.length = combs.length;
+      publishLabels();
+    };
+    // The label boxes as drawn, on the overlay canvas for tests and tools: written once the comb
+    // rests (serialising them on every frame of a drag would cost the frame for nothing).
+    let labelTimer = 0;
+    const publishLabels = () => {
+      clearTimeout(labelTimer);
+      labelTimer = window.setTimeout(() => {
+        if (!overlay) return;
+        const boxes = scratches.map((s, comb) => drawnLabelBoxes(s).map((b) => ({ comb, ...b })));
+        overlay.canvas.dataset.labelBoxes = JSON.stringify(boxes.flat());
+        overlay.canvas.dataset.droppedLabels = String(scratches.reduce((n, s) => n + droppedLabels(s), 0));
+      }, 150);
     };
     paintComb.current = repaint;
 
@@ -136,7 +157,8 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
         u.axes[1]!.label = live.current.flux.axis.label;
       }
       u.batch(() => {
-        if (u.series[SKY]!.show !== (display.source.sky !== null)) u.setSeries(SKY, { show: display.source.sky !== null });
+        const sky = display.source.sky !== null && live.current.showSky;
+        if (u.series[SKY]!.show !== sky) u.setSeries(SKY, { show: sky });
         if (u.series[MODEL]!.show !== (display.model !== null)) u.setSeries(MODEL, { show: display.model !== null });
         u.setData(toData(win), false);
         u.setScale('x', { min: view[0], max: view[1] });
@@ -244,7 +266,7 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
         },
         series: [
           {},
-          { label: 'sky', stroke: PLOT.sky, width: 1, points: { show: false }, show: display.source.sky !== null },
+          { label: 'sky', stroke: PLOT.sky, width: 1, points: { show: false }, show: display.source.sky !== null && live.current.showSky },
           { label: 'flux', stroke: PLOT.flux, width: 1, points: { show: false } },
           { label: 'model', stroke: PLOT.model, width: 1.5, points: { show: false }, show: display.model !== null },
         ],
@@ -275,6 +297,7 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
     repaint();
 
     const detachPointer = attachPointer(u, live, show, repaint);
+    const detachHover = attachLineHover(u, el, () => scratches);
     const resetOnDoubleClick = () => show(fullRange(live.current.display));
     u.over.addEventListener('dblclick', resetOnDoubleClick);
     const resize = new ResizeObserver(() => {
@@ -285,6 +308,8 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
 
     return () => {
       detachPointer();
+      detachHover();
+      clearTimeout(labelTimer);
       u.over.removeEventListener('dblclick', resetOnDoubleClick);
       resize.disconnect();
       u.destroy();
@@ -331,6 +356,13 @@ export function SpectrumPlot({ display, upcoming = null, lines, combs, tool, res
   }, [restFrame, store]);
 
   useEffect(() => paintComb.current(), [lines, peaks]);
+
+  useEffect(() => {
+    const u = plot.current;
+    if (!u) return;
+    const sky = live.current.display.source.sky !== null && showSky;
+    if (u.series[SKY]!.show !== sky) u.setSeries(SKY, { show: sky });
+  }, [showSky]);
 
   // The next spectrum's whole range, reduced ahead for this plot's width while the reader is on this one.
   useEffect(() => {
@@ -495,5 +527,83 @@ function attachPointer(u: uPlot, live: Live, show: (view: Window) => void, repai
     over.removeEventListener('pointerup', up);
     over.removeEventListener('pointercancel', up);
     over.removeEventListener('wheel', wheel);
+  };
+}
+
+/** How close (CSS px) the pointer must be to a marker to list it. */
+const HOVER_SLOP_PX = 4;
+
+/**
+ * The full list of comb lines under the pointer, in a tooltip: every marker within a few px (or
+ * whose label is pointed at), with its observed wavelength, saying which labels were dropped for
+ * lack of room. It follows the pointer once per frame and stays away while a button is held.
+ */
+function attachLineHover(u: uPlot, host: HTMLElement, scratches: () => readonly CombScratch[]): () => void {
+  const tip = document.createElement('div');
+  tip.setAttribute('role', 'tooltip');
+  tip.id = `comb-lines-${Math.random().toString(36).slice(2, 8)}`;
+  tip.className = 'comb-lines-tip pointer-events-none absolute z-10 hidden max-w-72 rounded-control border border-paper-300 bg-paper-50 px-2 py-1 text-xs text-ink-800 shadow';
+  host.appendChild(tip);
+  let frame = 0;
+  let at: { x: number; y: number } | null = null;
+  const render = () => {
+    frame = 0;
+    const found: Array<DrawnMarker & { comb: number }> = [];
+    if (at) scratches().forEach((s, comb) => markersAt(s, at!.x, at!.y, HOVER_SLOP_PX).forEach((m) => found.push({ ...m, comb })));
+    if (!at || found.length === 0) {
+      tip.classList.add('hidden');
+      tip.replaceChildren();
+      u.over.removeAttribute('aria-describedby');
+      return;
+    }
+    const hidden = found.filter((m) => !m.labelled).length;
+    tip.replaceChildren(
+      ...found.map((m) => {
+        const row = document.createElement('div');
+        row.className = 'num whitespace-nowrap';
+        const lambda = u.posToVal(m.x, 'x');
+        row.textContent = `${m.line.name} · ${m.line.rest.toFixed(1)} Å rest · ${lambda.toFixed(1)} Å${scratches().length > 1 ? ` · comb ${m.comb + 1}` : ''}${m.labelled ? '' : ' (label hidden)'}`;
+        const offset = (m.line as { offsetKms?: number }).offsetKms;
+        if (offset !== undefined) row.textContent += ` · template peak ${offset > 0 ? '+' : '−'}${Math.abs(offset)} km/s (short tick)`;
+        return row;
+      }),
+    );
+    if (hidden > 0) {
+      const note = document.createElement('div');
+      note.className = 'text-ink-500';
+      note.textContent = `${hidden} label${hidden === 1 ? '' : 's'} hidden here for lack of room`;
+      tip.appendChild(note);
+    }
+    const hostBox = host.getBoundingClientRect();
+    const overBox = u.over.getBoundingClientRect();
+    const overLeft = overBox.left - hostBox.left;
+    const overTop = overBox.top - hostBox.top;
+    tip.classList.remove('hidden');
+    const flip = at.x > u.over.clientWidth / 2;
+    tip.style.left = flip ? '' : `${overLeft + at.x + 12}px`;
+    tip.style.right = flip ? `${host.clientWidth - overLeft - at.x + 12}px` : '';
+    tip.style.top = `${overTop + Math.max(0, at.y - 8)}px`;
+    u.over.setAttribute('aria-describedby', tip.id);
+  };
+  const move = (e: PointerEvent) => {
+    if (e.buttons !== 0) {
+      at = null;
+    } else {
+      const r = u.over.getBoundingClientRect();
+      at = { x: e.clientX - r.left, y: e.clientY - r.top };
+    }
+    if (!frame) frame = requestAnimationFrame(render);
+  };
+  const leave = () => {
+    at = null;
+    if (!frame) frame = requestAnimationFrame(render);
+  };
+  u.over.addEventListener('pointermove', move);
+  u.over.addEventListener('pointerleave', leave);
+  return () => {
+    cancelAnimationFrame(frame);
+    u.over.removeEventListener('pointermove', move);
+    u.over.removeEventListener('pointerleave', leave);
+    tip.remove();
   };
 }

@@ -3,6 +3,7 @@ import uPlot from 'uplot';
 import type { Solution } from '../api/schemas';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
 import { placeRankLabels } from '../utils/rank-labels';
+import { DELTA_CHI2_CLIP, DELTA_CHI2_KNEE, DELTA_CHI2_TICKS, deltaChi2Height } from '../utils/delta-chi2-scale';
 import { PLOT } from '@/components/spectrum/plot-palette';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES } from '@/lib/spectrum-class';
@@ -14,7 +15,8 @@ const RANK_ROW_PX = 12;
 const RANK_GAP_PX = 14;
 
 /**
- * χ²(z) per class under the spectrum: dips are candidate redshifts. The solutions are marked with
+ * Δχ²(z) per class under the spectrum (delta-chi2-scale.ts: linear near the minima, compressed
+ * and clipped far above them): dips are candidate redshifts. The solutions are marked with
  * their rank, the trial z is a cursor line on an overlay, and a click sets the trial z there.
  * The strip is built once and kept across spectra (new curves arrive through setData; only a
  * different set of classes rebuilds it); the cursor is moved by the compositor, once per frame.
@@ -85,12 +87,13 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
         height: HEIGHT,
         legend: { show: false },
         cursor: { drag: { x: false, y: false }, points: { show: false }, y: false },
-        scales: { x: { time: false }, y: { distr: 3 } },
+        // One fixed Δχ² scale for every spectrum, so depths compare from one spectrum to the next.
+        scales: { x: { time: false }, y: { range: (): uPlot.Range.MinMax => [Y_RANGE[0], Y_RANGE[1]] } },
         // Curves one pixel wide: wider strokes of a jagged curve are far slower to rasterise in software.
         series: [{}, ...data.classes.map((c) => ({ label: c, stroke: PLOT.classes[c] ?? PLOT.axis, width: 1, spanGaps: false, points: { show: false } }))],
         axes: [
           { label: 'Redshift', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid } },
-          { label: 'χ² − min + 1', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64 },
+          { label: 'Δχ²', stroke: PLOT.axis, grid: { stroke: PLOT.grid, width: 1 }, ticks: { stroke: PLOT.grid }, size: 64, splits: () => TICK_HEIGHTS.slice(), values: () => TICK_LABELS.slice() },
         ],
         hooks: { draw: [paint], setSize: [() => (overlay?.fit(), paint())] },
       },
@@ -147,9 +150,17 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
           trial z
         </span>
         <span>numbers: solutions by rank</span>
+        <span className="basis-full">
+          Δχ² = χ²(z) − χ² of the best fit (0 at the best): linear up to {DELTA_CHI2_KNEE}, compressed above, cut at {DELTA_CHI2_CLIP.toLocaleString('en')}. A dip is a candidate redshift; one more than {DELTA_CHI2_KNEE} above the best is strongly disfavoured (5σ for Gaussian errors).
+        </span>
       </figcaption>
     </figure>
   );
 }
+
+const TICK_HEIGHTS = DELTA_CHI2_TICKS.map(deltaChi2Height);
+const TICK_LABELS = DELTA_CHI2_TICKS.map((d) => (d === DELTA_CHI2_CLIP ? `≥${d.toLocaleString('en')}` : d.toLocaleString('en')));
+const TOP = deltaChi2Height(DELTA_CHI2_CLIP);
+const Y_RANGE: [number, number] = [-0.03 * TOP, 1.04 * TOP];
 
 const toData = (d: Chi2StripData) => [d.z, ...d.series] as uPlot.AlignedData;

@@ -18,6 +18,9 @@ import type { Chi2StripData } from '../utils/chi2-strip-data';
 import { linesOnData, nudgeZ, pixelStepFactor } from '@/components/spectrum/comb';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import type { Smoothing } from '@/components/spectrum/smooth';
+import { combLinesFor } from '@/components/spectrum/comb-lines';
+import { defaultSmoothing, spectrumSnr } from '@/components/spectrum/default-smoothing';
+import { skySwampsData } from '@/components/spectrum/sky-default';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { Chi2Strip } from './chi2-strip';
 import { asSpectrumClass } from '@/lib/spectrum-class';
@@ -76,8 +79,15 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   const combs = useMemo(() => [{ store }], [store]);
   const [draft, setDraft] = useReadingDraft(spectrumId, mine, asSpectrumClass(mine?.class ?? top?.class ?? scan?.class));
   const [tool, setTool] = useState<PlotTool>('comb');
-  const [smoothing, setSmoothing] = useState<Smoothing>({ kind: 'none', width: 5, unit: 'pixels' });
+  // Null: the S/N-matched default of each spectrum (default-smoothing.ts); a reader's choice carries over.
+  const [smoothingChoice, setSmoothingChoice] = useState<Smoothing | null>(null);
+  const snr = useMemo(() => spectrumSnr(arrays), [arrays]);
+  const smoothing = useMemo(() => smoothingChoice ?? defaultSmoothing(snr), [smoothingChoice, snr]);
   const lastSmoothing = useRef<Smoothing>({ kind: 'boxcar', width: 5, unit: 'pixels' });
+  // Sky starts hidden when it swamps the data (sky-default.ts), per spectrum; one click shows it.
+  const skySwamps = useMemo(() => skySwampsData(arrays.flux, arrays.sky, arrays.mask), [arrays]);
+  const [showSky, setShowSky] = usePerSpectrum(spectrumId, () => !skySwamps);
+  const [allLines, setAllLines] = useState(false);
   const [restFrame, setRestFrame] = useState(false);
   const [helpOpen, setHelpOpen] = useState(false);
   const [pickedPeak, setPickedPeak] = usePerSpectrum<number | null>(spectrumId, () => null);
@@ -89,7 +99,15 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   const [showModel, setShowModel] = useState(true);
   const model = useSolutionModel(spectrumId, scan?.id ?? null, showModel ? modelRank : null);
   const display = useDisplayArrays(arrays, smoothing, showModel ? (model.data ?? null) : null);
-  const upcoming = useUpcomingDisplay(nextId, smoothing, showModel);
+  const upcoming = useUpcomingDisplay(nextId, smoothingChoice, showModel);
+  // The comb draws the lines of the class being read (the snapped solution's, or the reader's
+  // choice) unless all are asked for; the snapped solution's own lines keep their labels first.
+  const modelSolution = modelRank !== null ? solutions[modelRank - 1] : undefined;
+  const shownSolution = modelSolution && modelSolution.class === draft.cls ? modelSolution : undefined;
+  const combLines = useMemo(
+    () => combLinesFor(lines, { cls: draft.cls, all: allLines, template: shownSolution?.template ?? null, supporting: shownSolution?.lines.map((l) => l.name) ?? [] }),
+    [lines, draft.cls, allLines, shownSolution],
+  );
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
@@ -112,7 +130,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   };
   const setSmoothingKind = (s: Smoothing) => {
     if (s.kind !== 'none') lastSmoothing.current = s;
-    setSmoothing(s);
+    setSmoothingChoice(s);
   };
 
   useInspectKeys(
@@ -141,7 +159,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
       focusNote: () => noteRef.current?.focus(),
       nextSpectrum: () => nav.onNext?.(),
       previousSpectrum: () => nav.onPrevious?.(),
-      toggleSmoothing: () => setSmoothing((s) => (s.kind === 'none' ? lastSmoothing.current : { ...s, kind: 'none' })),
+      toggleSmoothing: () => setSmoothingChoice(smoothing.kind === 'none' ? lastSmoothing.current : { ...smoothing, kind: 'none' }),
       toggleFrame: () => setRestFrame((r) => !r),
       zoom: (f) => controls.current?.zoomBy(f),
       pan: (f) => controls.current?.panBy(f),
@@ -175,7 +193,19 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
           <section aria-label="Spectrum and comb" className={`flex flex-col gap-2 rounded-panel border border-paper-300 bg-paper-50 p-3 ${OWN_PAINT}`}>
             <div className={`flex flex-wrap items-end gap-x-5 gap-y-2 ${OWN_PAINT}`}>
               <TrialZInput ref={zInput} store={store} />
-              <PlotToolbar tool={tool} onTool={setTool} smoothing={smoothing} onSmoothing={setSmoothingKind} wavelength={arrays.wavelength} restFrame={restFrame} onRestFrame={setRestFrame} controls={controls} />
+              <PlotToolbar
+                tool={tool}
+                onTool={setTool}
+                smoothing={smoothing}
+                onSmoothing={setSmoothingKind}
+                smoothingDefault={{ snr, active: smoothingChoice === null, onRestore: () => setSmoothingChoice(null) }}
+                wavelength={arrays.wavelength}
+                restFrame={restFrame}
+                onRestFrame={setRestFrame}
+                lineSet={{ cls: draft.cls, all: allLines, onAll: setAllLines }}
+                sky={arrays.sky ? { shown: showSky, swamps: skySwamps, onShown: setShowSky } : null}
+                controls={controls}
+              />
             </div>
             <p id="plot-help" className="sr-only">
               Arrow keys nudge the comb by one pixel in velocity, with Shift by ten. Plus and minus zoom, comma and full stop pan, r resets the zoom. Press question mark for all keys.
@@ -183,7 +213,8 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
             <SpectrumPlot
               display={display}
               upcoming={upcoming}
-              lines={lines}
+              lines={combLines}
+              showSky={showSky}
               peaks={scan?.lineMatches.peaks ?? []}
               combs={combs}
               tool={tool}
@@ -192,7 +223,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
               controls={controls}
               describedBy="plot-help"
             />
-            <Legend hasSky={arrays.sky !== null} hasModel={display.model !== null} />
+            <Legend hasSky={arrays.sky !== null && showSky} hasModel={display.model !== null} hasOffset={combLines.some((l) => l.offsetKms !== undefined)} />
             {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
           </section>
           <Panel className={OWN_PAINT}>
@@ -248,7 +279,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
  * The next spectrum as the plot will show it when the reader moves on (same smoothing; its top
  * solution's template when templates are drawn), made on demand. Reads what the screen prefetched.
  */
-function useUpcomingDisplay(nextId: number | null, smoothing: Smoothing, showModel: boolean) {
+function useUpcomingDisplay(nextId: number | null, smoothingChoice: Smoothing | null, showModel: boolean) {
   const data = useQuery({ ...getSpectrumDataQueryOptions(nextId ?? 0), enabled: nextId !== null });
   // The next spectrum's scan id comes from its detail, which the screen prefetched.
   const detail = useQuery({ ...getSpectrumDetailQueryOptions(nextId ?? 0), enabled: nextId !== null });
@@ -256,10 +287,10 @@ function useUpcomingDisplay(nextId: number | null, smoothing: Smoothing, showMod
   const model = useQuery({ ...getSolutionModelQueryOptions(nextId ?? 0, nextScanId ?? 0, 1), enabled: nextId !== null && nextScanId !== null && showModel, retry: false });
   const arrays = nextId !== null ? data.data : undefined;
   const nextModel = showModel && nextId !== null ? (model.data ?? null) : null;
-  return useMemo(() => (arrays ? () => displayArraysOf(arrays, smoothing, nextModel) : null), [arrays, smoothing, nextModel]);
+  return useMemo(() => (arrays ? () => displayArraysOf(arrays, smoothingChoice ?? defaultSmoothing(spectrumSnr(arrays)), nextModel) : null), [arrays, smoothingChoice, nextModel]);
 }
 
-function Legend({ hasSky, hasModel }: { hasSky: boolean; hasModel: boolean }) {
+function Legend({ hasSky, hasModel, hasOffset }: { hasSky: boolean; hasModel: boolean; hasOffset: boolean }) {
   const item = 'inline-flex items-center gap-1.5';
   return (
     <ul aria-label="Plot legend" className={`flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-600 ${OWN_PAINT}`}>
@@ -291,9 +322,15 @@ function Legend({ hasSky, hasModel }: { hasSky: boolean; hasModel: boolean }) {
       <li className={item}>
         <span aria-hidden="true" className="inline-block h-3 w-0 border-l border-dotted border-ink-700" /> band / break (dotted)
       </li>
+      {hasOffset ? (
+        <li className={item}>
+          <span aria-hidden="true" className="inline-block h-2 w-0 border-l-2 border-ember-600" /> short tick: where the solution&apos;s template puts the line (e.g. Lyα +300 km/s)
+        </li>
+      ) : null}
       <li className={item}>
         <span aria-hidden="true" className="text-success-700">▲</span> detected peak (click to name it)
       </li>
+      <li className={item}>hover a marker: every line there, also those whose label had no room</li>
     </ul>
   );
 }

@@ -6,12 +6,21 @@ import { convertSmoothingWidth, MAX_SMOOTHING_PIXELS } from '@/components/spectr
 import type { Smoothing, SmoothingKind, SmoothingUnit } from '@/components/spectrum/smooth';
 import { pixelVelocitySummary } from '@/components/spectrum/velocity';
 import type { PlotControls, PlotTool } from '@/components/spectrum/spectrum-plot';
+import { isCombClass } from '@/components/spectrum/comb-lines';
+import { SMOOTH_BELOW_SNR } from '@/components/spectrum/default-smoothing';
+import { CLASS_NAMES } from '@/lib/spectrum-class';
 
 interface Props {
   tool: PlotTool;
   onTool: (tool: PlotTool) => void;
   smoothing: Smoothing;
   onSmoothing: (s: Smoothing) => void;
+  /** The S/N-matched default: the median S/N per pixel it follows, whether it is in force, and the way back to it. */
+  smoothingDefault: { snr: number | null; active: boolean; onRestore: () => void };
+  /** Which lines the comb draws: the class's (cls) or all of them. */
+  lineSet: { cls: string; all: boolean; onAll: (all: boolean) => void };
+  /** The sky spectrum's switch, when the file has a sky. */
+  sky: { shown: boolean; swamps: boolean; onShown: (shown: boolean) => void } | null;
   /** The spectrum's grid (vacuum Å): a width in km/s is converted with its pixels' velocity widths. */
   wavelength: Float64Array;
   restFrame: boolean;
@@ -25,7 +34,8 @@ const TOOLS: Array<{ id: PlotTool; label: string; hint: string }> = [
 ];
 
 /** Everything the pointer does on the plot, as ordinary controls (and keys, see the key map). */
-export function PlotToolbar({ tool, onTool, smoothing, onSmoothing, wavelength, restFrame, onRestFrame, controls }: Props) {
+export function PlotToolbar({ tool, onTool, smoothing, onSmoothing, smoothingDefault, lineSet, sky, wavelength, restFrame, onRestFrame, controls }: Props) {
+  const narrowed = isCombClass(lineSet.cls);
   return (
     <div className="flex flex-wrap items-end gap-x-4 gap-y-2">
       <fieldset className="flex flex-col gap-1">
@@ -57,10 +67,21 @@ export function PlotToolbar({ tool, onTool, smoothing, onSmoothing, wavelength, 
         </Button>
       </div>
       <SmoothingControls smoothing={smoothing} onSmoothing={onSmoothing} wavelength={wavelength} />
+      <SmoothingDefaultNote {...smoothingDefault} />
       <label className="flex items-center gap-2 pb-1 text-sm text-ink-800">
         <input type="checkbox" checked={restFrame} onChange={(e) => onRestFrame(e.target.checked)} className="size-4 accent-ink-900" />
         Rest-frame axis
       </label>
+      <label className="flex items-center gap-2 pb-1 text-sm text-ink-800" title={narrowed ? `The comb draws the lines of ${CLASS_NAMES[lineSet.cls as keyof typeof CLASS_NAMES]} templates; tick to draw every line` : 'The class is unknown: the comb draws every line'}>
+        <input type="checkbox" checked={lineSet.all || !narrowed} disabled={!narrowed} onChange={(e) => lineSet.onAll(e.target.checked)} className="size-4 accent-ink-900" />
+        All lines{narrowed && !lineSet.all ? <span className="text-xs text-ink-500">(now: {CLASS_NAMES[lineSet.cls as keyof typeof CLASS_NAMES]} lines)</span> : null}
+      </label>
+      {sky ? (
+        <label className="flex items-center gap-2 pb-1 text-sm text-ink-800">
+          <input type="checkbox" checked={sky.shown} onChange={(e) => sky.onShown(e.target.checked)} className="size-4 accent-ink-900" />
+          Sky{sky.swamps ? <span className="text-xs text-ink-500">(swamps the data: hidden at first)</span> : null}
+        </label>
+      ) : null}
     </div>
   );
 }
@@ -143,5 +164,22 @@ function SmoothingControls({ smoothing, onSmoothing, wavelength }: { smoothing: 
         {grid ? `; one pixel is about ${Math.round(grid.kmsPerPixel)} km/s at the middle of this spectrum` : ''}.
       </p>
     </div>
+  );
+}
+
+/** Says where the opening smoothing came from, and offers it back once the reader has changed it. */
+function SmoothingDefaultNote({ snr, active, onRestore }: { snr: number | null; active: boolean; onRestore: () => void }) {
+  const low = snr !== null && snr < SMOOTH_BELOW_SNR;
+  if (active) {
+    return (
+      <span className="num pb-1.5 text-xs text-ink-500">
+        {snr === null ? 'no errors: no S/N default' : `median S/N ${snr.toFixed(1)} per pixel${low ? ` (< ${SMOOTH_BELOW_SNR}): smoothed to match` : ''}`}
+      </span>
+    );
+  }
+  return (
+    <Button variant="secondary" size="sm" onClick={onRestore} title={`Smoothing matched to the S/N: a boxcar of (${SMOOTH_BELOW_SNR} / S/N)² pixels (3 to 9) below S/N ${SMOOTH_BELOW_SNR} per pixel, none above`}>
+      S/N default
+    </Button>
   );
 }
