@@ -101,6 +101,8 @@ const SIDEBAND_GAP = 0.5;
 const SIDEBAND_WIDTH = 3;
 /** Line windows: ± this many effective FWHM. ±1.5 FWHM holds 99.9 % of a Gaussian line. */
 const WINDOW_FWHM = 1.5;
+/** The core of a line, ± this many effective FWHM: no pixel in it may be masked. */
+const CORE_FWHM = 0.5;
 /** A window needs this share of its width on usable pixels to be measured. */
 const MIN_COVERAGE = 0.7;
 
@@ -276,12 +278,19 @@ function measureEmission(d: Data, group: SpectralLine[], z: number, fwhmKms: num
   const positions = group.map((l) => l.rest * (1 + z));
   const centre = positions.reduce((s, p) => s + p, 0) / positions.length;
   const half = (WINDOW_FWHM * fwhmKms * centre) / C_KMS;
-  const from = positions[0]! - half;
-  const to = positions[positions.length - 1]! + half;
+  const others = cores.filter((c) => !positions.includes(c));
+  // A resolved neighbour (e.g. [N II] beside Hα) closer than two half windows: each window stops
+  // half way, so no flux is counted twice (at the cost of the outer wings of both).
+  const left = Math.max(-Infinity, ...others.filter((c) => c < positions[0]!).map((c) => (c + positions[0]!) / 2));
+  const right = Math.min(Infinity, ...others.filter((c) => c > positions[positions.length - 1]!).map((c) => (c + positions[positions.length - 1]!) / 2));
+  const from = Math.max(positions[0]! - half, left);
+  const to = Math.min(positions[positions.length - 1]! + half, right);
   const gap = SIDEBAND_GAP * half;
   const width = SIDEBAND_WIDTH * half;
-  const others = cores.filter((c) => !positions.includes(c));
-  const result = measureExcess(d, from, to, centre, [[from - gap - width, from - gap], [to + gap, to + gap + width]], others, half);
+  const result = measureExcess(d, from, to, centre, [[from - gap - width, from - gap], [to + gap, to + gap + width]], others, half, {
+    at: positions,
+    half: (CORE_FWHM * fwhmKms * centre) / C_KMS,
+  });
   const names = group.map((l) => l.name);
   return group.map((line) => {
     const m = base(line, z, 'flux');
@@ -330,8 +339,27 @@ interface Excess {
 }
 
 /** Flux above (or absorbed below) a sideband continuum over [from, to]. */
-function measureExcess(d: Data, from: number, to: number, centre: number, bands: Array<[number, number]>, exclude: number[], excludeHalf: number): Excess {
+function measureExcess(
+  d: Data,
+  from: number,
+  to: number,
+  centre: number,
+  bands: Array<[number, number]>,
+  exclude: number[],
+  excludeHalf: number,
+  core: { at: number[]; half: number },
+): Excess {
   const out: Excess = { note: null, coverage: coverageOf(d, from, to), flux: 0, fluxErr: 0, continuum: 0, continuumErr: 0, centroid: null, centroidErr: 0, sumFlux: 0, sumWidth: 0, varRatio: 0, absorbed: 0 };
+  // A narrow line carries most of its flux in one or two pixels: with one of them masked, any
+  // sum (or interpolation) understates it, so the line is not measured rather than measured low.
+  const maskedCore = core.at.some((at) => {
+    for (let i = lowerBound(d.wavelength, at - core.half); i < d.n && d.wavelength[i]! <= at + core.half; i++) if (!d.good[i]) return true;
+    return false;
+  });
+  if (maskedCore) {
+    out.note = 'a pixel in the core of the line is masked or unusable';
+    return out;
+  }
   if (out.coverage < MIN_COVERAGE) {
     out.note = `only ${Math.round(out.coverage * 100)} % of the line window is on usable pixels (masked or at the edge of the data)`;
     return out;
@@ -411,7 +439,9 @@ function measureAbsorption(d: Data, line: SpectralLine, z: number, fwhmKms: numb
   const red: [number, number] = [to + gap, to + gap + width];
   const bands = sides === 'both' ? [blue, red] : sides === 'blue' ? [blue] : [red];
   const exclude = line.kind === 'band' ? [] : cores.filter((c) => c !== m.observed);
-  const r = measureExcess(d, from, to, m.observed, bands, exclude, (WINDOW_FWHM * fwhmKms * m.observed) / C_KMS);
+  // Bands are broad: a masked pixel at the head does not hide them, coverage decides.
+  const core = line.kind === 'band' ? { at: [], half: 0 } : { at: [m.observed], half: (CORE_FWHM * fwhmKms * m.observed) / C_KMS };
+  const r = measureExcess(d, from, to, m.observed, bands, exclude, (WINDOW_FWHM * fwhmKms * m.observed) / C_KMS, core);
   m.coverage = r.coverage;
   if (r.note) {
     m.note = r.note;

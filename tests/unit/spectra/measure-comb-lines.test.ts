@@ -136,11 +136,15 @@ describe('measureCombLines: emission lines', () => {
     wing.mask[centre + 9] = 1;
     expect(measureCombLines(wing, { z: Z, lines: [HALPHA] })[0]!.measured).toBe(true);
     const core = { ...data, mask: new Uint8Array(data.mask) };
-    for (let i = centre - 8; i <= centre + 8; i++) core.mask[i] = 1;
+    core.mask[centre] = 1;
     const [m] = measureCombLines(core, { z: Z, lines: [HALPHA] });
     expect(m!.measured).toBe(false);
     expect(m!.detected).toBe(false);
-    expect(m!.note).toMatch(/usable pixels/);
+    expect(m!.note).toMatch(/core of the line is masked/);
+    // A window mostly off the data (masked wings on both sides) is refused by its coverage.
+    const wings = { ...data, mask: new Uint8Array(data.mask) };
+    for (let i = centre - 11; i <= centre + 11; i++) if (Math.abs(i - centre) > 4) wings.mask[i] = 1;
+    expect(measureCombLines(wings, { z: Z, lines: [HALPHA] })[0]!.note).toMatch(/usable pixels/);
   });
 
   it('measures a doublet closer than the resolution as one blend, and resolves it at high resolution', () => {
