@@ -1,4 +1,5 @@
 import { and, eq } from 'drizzle-orm';
+import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { combLinesResponseSchema } from '../../backend/src/contracts/line-measurements';
 import { spectrumDetailSchema } from '../../backend/src/contracts/spectra';
@@ -95,6 +96,19 @@ describe('readings store the measurements of the lines used', () => {
     expect(current.lines).toEqual(['H-alpha', 'H-beta', 'Ly-alpha', '[O III] 5008']);
     const floor = (await reader1.get(`/api/spectra/${id}/lines?z=${z}`)).body.zErrFloor;
     expect(current.zErr).toBeGreaterThanOrEqual(floor);
+
+    // The CSV export: z to the digits of its error, the error not below the floor, the lines with their measurements.
+    const csv = await lead.get('/api/campaigns/1/confirmed?format=csv');
+    const row = Papa.parse<Record<string, string>>(csv.text, { header: true, comments: '#', skipEmptyLines: true }).data.find((r) => r.spectrum_id === String(id))!;
+    const decimals = row.z!.split('.')[1]!.length;
+    expect(decimals).toBeLessThanOrEqual(2 - 1 - Math.floor(Math.log10(current.zErr)));
+    expect(Math.abs(Number(row.z) - current.z)).toBeLessThanOrEqual(0.5 * 10 ** -decimals + 1e-12);
+    expect(Number(row.z_err)).toBeGreaterThanOrEqual(Number(row.z_err_floor));
+    expect(Number(row.z_err_floor)).toBeCloseTo(floor, 8);
+    expect(row.lines_measured).toMatch(/H-alpha:flux=[0-9.e+-]+\+\/-[0-9.e+-]+:sn=\d+\.\d:dv=-?\d+/);
+    expect(row.lines_measured).toMatch(/H-beta:flux=.*below-3sigma/);
+    expect(row.z_caveat).toBe('');
+    expect(csv.text).toMatch(/^# lya_caveat: .*Shapley et al\. 2003, from memory/m);
   });
 
   it('a reading saved before lines were measured still loads', async () => {
