@@ -1,5 +1,9 @@
 import { z } from 'zod';
 
+/** The caveat shown beside a redshift that rests on Lyα alone, in the reading form and in exports (ASCII for FITS). */
+export const LYA_CAVEAT =
+  'z rests on Lya alone: Lya emission is typically offset redward of systemic by a few hundred km/s (Shapley et al. 2003, from memory)';
+
 /** One comb line measured in the data (spectra/measureCombLines.ts LineMeasurement; fluxes scaled to `fluxUnit`). */
 export const lineMeasurementSchema = z.object({
   name: z.string(),

@@ -1,8 +1,8 @@
+import { LYA_CAVEAT } from '../contracts/line-measurements';
 import type { ExportLine, SpectrumClass } from './types';
 
-/** The caveat written beside a redshift that rests on Lyα alone (the same words in the reading form). */
-export const LYA_CAVEAT =
-  'z rests on Lya alone: Lya emission is typically offset redward of systemic by a few hundred km/s (Shapley et al. 2003, from memory)';
+// The same words as in the reading form.
+export { LYA_CAVEAT };
 
 /**
  * Whether a value rests on Lyα alone: a Lyman-break source (its break sits at Lyα), or Lyα the
