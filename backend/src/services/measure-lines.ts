@@ -4,6 +4,7 @@ import type { CombLines } from '../contracts/line-measurements';
 import { spectra } from '../db/schema';
 import { AppError } from '../http/errors';
 import { SpectrumReadError } from '../spectra/errors';
+import { linesForClass } from '../spectra/linesForClass';
 import { lineFwhmForClass, measureCombLines, type LineMeasurement } from '../spectra/measureCombLines';
 import { readSpectrum } from '../spectra/readSpectrum';
 import { resolutionElement, resolutionZFloor } from '../spectra/resolutionElement';
@@ -25,7 +26,8 @@ function scaled(m: LineMeasurement, scale: number): LineMeasurement {
 /**
  * Measures the comb's lines of a stored spectrum at z, from the stored file (read each time, so
  * nothing cached can go stale: the reader drags the comb and asks again). `cls` is the class of
- * the solution or reading: quasars get broad-line windows.
+ * the solution or reading: only the lines its templates draw are measured (all for 'unknown' or
+ * none given), and quasars get broad-line windows.
  */
 export function measureSpectrumLines(ctx: ServiceContext, spectrumId: number, z: number, cls?: string): CombLines {
   const row = ctx.db.select({ sha256: spectra.sha256, fileName: spectra.fileName }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
@@ -40,7 +42,7 @@ export function measureSpectrumLines(ctx: ServiceContext, spectrumId: number, z:
   const resolution = resolutionElement(wavelength);
   const lines = measureCombLines(
     { wavelength, flux: spectrum.flux, ivar: spectrum.ivar, mask: spectrum.mask },
-    { z, resolutionFwhmKms: resolution.fwhmKms, lineFwhmKms: lineFwhmForClass(cls ?? 'galaxy') },
+    { z, lines: linesForClass(cls ?? 'unknown'), resolutionFwhmKms: resolution.fwhmKms, lineFwhmKms: lineFwhmForClass(cls ?? 'galaxy') },
   );
   return {
     z,

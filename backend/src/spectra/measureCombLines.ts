@@ -11,7 +11,8 @@ import { resolutionElement } from './resolutionElement';
  * - absorption lines and molecular bands: equivalent width against the same kind of continuum;
  *   detected when the absorbed EW / σ ≥ 3;
  * - breaks: the mean f_ν redward over the mean f_ν blueward in fixed rest windows; detected when
- *   the step (red − blue) is ≥ 3σ and red > blue. Lyα also gets this measure (its forest
+ *   the step (red − blue) is ≥ 3σ and the ratio ≥ 1.25 (molecular bands also need a mean depth
+ *   ≥ 10 % of the continuum). Lyα also gets this measure (its forest
  *   decrement): for a Lyman-break source the break is the evidence for Lyα's position.
  * Lines closer than the effective line width (resolution and intrinsic width in quadrature) are
  * measured once, together, and each member says which others it was blended with.
@@ -93,6 +94,10 @@ const BREAK_WINDOWS: Record<string, readonly [number, number, number, number]> =
   'Balmer limit': [3525, 3625, 3675, 3715],
   '4000 Å break': [3850, 3950, 4000, 4100],
 };
+/** Smallest ⟨f_ν⟩ red/blue that counts as a break (our choice: well above the 1.08 of a flat f_λ continuum). */
+export const MIN_BREAK_RATIO = 1.25;
+/** Smallest mean depth of a molecular band, as a share of the continuum, that counts as detected (our choice). */
+export const MIN_BAND_DEPTH = 0.1;
 /** Lyα forest decrement: blueward of Lyα (forest) against the continuum redward of it; our own windows. */
 const LYA_BREAK_WINDOW = [1100, 1180, 1250, 1350] as const;
 
@@ -456,7 +461,9 @@ function measureAbsorption(d: Data, line: SpectralLine, z: number, fwhmKms: numb
   m.ewRest = -r.absorbed / (1 + z);
   m.ewRestErr = ewErr / (1 + z);
   m.snr = r.absorbed / ewErr;
-  m.detected = m.snr >= DETECTION_SIGMA;
+  // A band spans 50–2000 Å: a slope of the continuum alone can make it significant, so it must also be deep.
+  const deepEnough = line.kind !== 'band' || r.absorbed / r.sumWidth >= MIN_BAND_DEPTH;
+  m.detected = m.snr >= DETECTION_SIGMA && deepEnough;
   return m;
 }
 
@@ -509,8 +516,17 @@ function measureBreak(d: Data, line: SpectralLine, z: number, win: readonly [num
   m.breakRatio = r.ratio;
   m.breakRatioErr = r.ratioErr;
   m.snr = r.step;
-  m.detected = r.step >= DETECTION_SIGMA;
+  m.detected = breakDetected(r);
   return m;
+}
+
+/**
+ * A break is detected when the step is ≥ 3σ and the ratio reaches MIN_BREAK_RATIO (or the blue
+ * side is consistent with zero, a lower limit). The ratio condition matters at high S/N: a
+ * continuum flat in f_λ already gives a significant f_ν ratio of 1.08 across the 4000 Å windows.
+ */
+function breakDetected(r: BreakResult): boolean {
+  return r.step >= DETECTION_SIGMA && (r.ratio === null || r.ratio >= MIN_BREAK_RATIO);
 }
 
 /** Lyα also counts as detected by the forest decrement across it (the Lyman-break evidence). */
@@ -519,7 +535,7 @@ function addLyaBreak(d: Data, m: LineMeasurement, z: number): void {
   if (r.note) return;
   m.breakRatio = r.ratio;
   m.breakRatioErr = r.ratioErr;
-  if (!m.detected && r.step >= DETECTION_SIGMA) {
+  if (!m.detected && breakDetected(r)) {
     m.measure = 'break';
     m.snr = r.step;
     m.detected = true;

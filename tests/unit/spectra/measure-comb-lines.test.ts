@@ -197,6 +197,8 @@ describe('measureCombLines: absorption and breaks', () => {
     const flat = measureCombLines(synthetic({ continuum: 10, sigma: 1, seed: 6 }), { z, lines: [brk] })[0]!;
     // A flat f_λ is a gentle rise in f_ν (ratio ≈ 1.08) at high S/N: still a step, but a small one.
     expect(flat.breakRatio!).toBeCloseTo(1.077, 1);
+    expect(flat.snr!).toBeGreaterThan(3);
+    expect(flat.detected).toBe(false);
   });
 
   it('counts Lyα as detected by its forest decrement when there is no emission line', () => {
@@ -207,5 +209,20 @@ describe('measureCombLines: absorption and breaks', () => {
     expect(m!.measure).toBe('break');
     expect(m!.detected).toBe(true);
     expect(m!.snr!).toBeGreaterThan(10);
+  });
+});
+
+describe('linesForClass', () => {
+  it("keeps the lines a class's templates draw", async () => {
+    const { linesForClass } = await import('../../../backend/src/spectra/linesForClass');
+    const star = linesForClass('star').map((l) => l.name);
+    expect(star).toContain('Na D1');
+    expect(star).toContain('TiO 7056');
+    expect(star).not.toContain('[S II] 6718');
+    const galaxy = linesForClass('galaxy').map((l) => l.name);
+    expect(galaxy).toContain('H-alpha');
+    expect(galaxy).not.toContain('C2 5165');
+    expect(linesForClass('lyman-break').map((l) => l.name)).toContain('Ly-alpha');
+    expect(linesForClass('unknown').length).toBeGreaterThan(galaxy.length);
   });
 });
