@@ -54,6 +54,8 @@ export function LinesMeasuredField({ spectrumId, store, solutions, draft, onDraf
       return { ...d, excluded, added };
     });
   const used = data ? linesUsed(detected, draft) : [];
+  // What was seen first: the detected lines lead, the rest (on the data, below 3σ or not measurable) follow.
+  const shown = data ? [...data.lines.filter((m) => m.detected), ...data.lines.filter((m) => !m.detected)] : [];
   return (
     <fieldset className="min-w-0">
       <legend className="mb-1 flex w-full items-baseline justify-between text-sm font-medium text-ink-800">
@@ -67,7 +69,7 @@ export function LinesMeasuredField({ spectrumId, store, solutions, draft, onDraf
         <p className="text-sm text-ink-500">No comb line falls on the data here.</p>
       ) : (
         <ul aria-label="Lines measured" className="flex max-h-56 flex-col gap-0.5 overflow-y-auto rounded-control border border-paper-200 p-1.5">
-          {data.lines.map((m) => (
+          {shown.map((m) => (
             <li key={m.name} data-line={m.name} data-detected={m.detected} className="flex min-w-0 flex-wrap items-baseline gap-x-2 text-sm">
               <label className="flex items-center gap-1">
                 <input type="checkbox" checked={checked(m.name)} onChange={(e) => toggle(m.name, e.target.checked)} className="accent-ink-900" />
