@@ -3,7 +3,7 @@ import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { combLinesResponseSchema } from '../../backend/src/contracts/line-measurements';
 import { spectrumDetailSchema } from '../../backend/src/contracts/spectra';
-import { readings } from '../../backend/src/db/schema';
+import { confirmedRedshifts, readings } from '../../backend/src/db/schema';
 import { signInDemoMembers, uploadAssignedSpectra, type Agent } from '../helpers/assigned-spectra';
 import { createTestApp, type TestApp } from '../helpers/test-app';
 
@@ -125,5 +125,19 @@ describe('readings store the measurements of the lines used', () => {
     expect(spectrumDetailSchema.safeParse(detail).error).toBeUndefined();
     expect(detail.readings[0].lineMeasurements).toBeNull();
     expect(detail.readings[0].lines).toEqual(['H-alpha']);
+  });
+
+  it('a confirmed record made before lines were measured still exports, with its lines and no measurements', async () => {
+    const id = ids[0]!;
+    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 0.2, grade: 'likely', class: 'galaxy', lines: ['H-alpha'] });
+    t.ctx.db.update(readings).set({ lineMeasurements: null }).where(eq(readings.spectrumId, id)).run();
+    t.ctx.db.update(confirmedRedshifts).set({ lineMeasurements: null }).where(eq(confirmedRedshifts.spectrumId, id)).run();
+    const page = (await lead.get('/api/campaigns/1/confirmed')).body;
+    const row = page.rows.find((r: { spectrumId: number }) => r.spectrumId === id);
+    expect(row).toMatchObject({ lines: ['H-alpha'], lineMeasurements: [], lineFluxUnit: null, zErrFloor: null });
+    for (const format of ['csv', 'ecsv', 'votable', 'fits']) expect((await lead.get(`/api/campaigns/1/confirmed?format=${format}`)).status, format).toBe(200);
+    const csv = Papa.parse<Record<string, string>>((await lead.get('/api/campaigns/1/confirmed?format=csv')).text, { header: true, comments: '#', skipEmptyLines: true });
+    const old = csv.data.find((r) => r.spectrum_id === String(id))!;
+    expect(old).toMatchObject({ lines: 'H-alpha', lines_measured: '', z_err_floor: '' });
   });
 });

@@ -39,6 +39,7 @@ export function measureSpectrumLines(ctx: ServiceContext, spectrumId: number, z:
     throw err;
   }
   const wavelength = spectrum.meta.medium === 'air' ? toVacuumArray(spectrum.wavelength) : spectrum.wavelength;
+  if (wavelength.length < 2) throw new AppError(422, 'spectrum_unreadable', `${row.fileName} has fewer than two pixels: there is no line to measure.`);
   const resolution = resolutionElement(wavelength);
   const lines = measureCombLines(
     { wavelength, flux: spectrum.flux, ivar: spectrum.ivar, mask: spectrum.mask },

@@ -1,4 +1,4 @@
-import type { CombLines, LineMeasurementView } from '@contracts/line-measurements';
+import type { CombLines } from '@contracts/line-measurements';
 import { LYA_CAVEAT } from '@contracts/line-measurements';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -7,6 +7,7 @@ import { formatRedshiftError } from '@/lib/format';
 import { measuredZ, useCombLines } from '../api/get-comb-lines';
 import type { Solution } from '../api/schemas';
 import { linesUsed, type ReadingDraft } from '../hooks/use-reading-draft';
+import { measurementText } from '../utils/measurement-text';
 import { useTrialZDerived, useTrialZSettled } from '../hooks/use-trial-z';
 
 interface Props {
@@ -15,18 +16,6 @@ interface Props {
   solutions: Solution[];
   draft: ReadingDraft;
   onDraft: (update: (d: ReadingDraft) => ReadingDraft) => void;
-}
-
-/** Three significant digits, exponent form for small fluxes. */
-const sig = (v: number) => (v !== 0 && (Math.abs(v) < 0.01 || Math.abs(v) >= 1e5) ? v.toExponential(2) : String(Number(v.toPrecision(3))));
-
-/** The measured quantity of a line as "value ± error unit", or why it has none. */
-export function measurementText(m: LineMeasurementView, fluxUnit: string): string {
-  if (!m.measured) return m.note ?? 'not measured';
-  if (m.measure === 'flux' && m.flux !== null && m.fluxErr !== null) return `${sig(m.flux)} ± ${sig(m.fluxErr)} ${fluxUnit}`;
-  if (m.measure === 'ew' && m.ewRest !== null && m.ewRestErr !== null) return `EW ${sig(m.ewRest)} ± ${sig(m.ewRestErr)} Å`;
-  if (m.breakRatio !== null && m.breakRatioErr !== null) return `ratio ${sig(m.breakRatio)} ± ${sig(m.breakRatioErr)}`;
-  return m.measure === 'break' ? 'break into noise' : 'no continuum for an EW';
 }
 
 /**
