@@ -160,3 +160,25 @@ it('taking the top solution ticks only the lines measured in the data; the confi
   expect(ecsvText).toMatch(/lya_caveat: .*Shapley et al\. 2003, from memory/);
   expect(pageErrors).toEqual([]);
 }, 120_000);
+
+it('a Lyman-break reading shows the Lyα caveat beside its error', async () => {
+  const page = await browser.newPage({ viewport: { width: 1400, height: 1100 } });
+  const pageErrors: string[] = [];
+  page.on('pageerror', (err) => pageErrors.push(err.message));
+  await signInThroughPage(page, server.url, 'reader2@demo.test');
+  // LNT-A1.1: the demo's triply imaged Lyman-break source with Lyα emission at z = 6.143.
+  const list = await fetchJson(page, '/api/campaigns/1/spectra?q=LNT-A1.1&pageSize=10');
+  const spectrumId: number = list.rows[0].id;
+  const top = (await fetchJson(page, `/api/spectra/${spectrumId}`)).scan.solutions[0];
+  expect(top.class).toBe('lyman-break');
+  await page.goto(`${server.url}/campaigns/1/inspect?spectrum=${spectrumId}`);
+  await page.getByRole('group', { name: 'Spectrum plot' }).waitFor({ timeout: 30_000 });
+  await page.getByRole('button', { name: /^Solution\s*1\s*:/ }).click();
+  const lya = page.getByRole('list', { name: 'Lines measured' }).locator('li[data-line="Ly-alpha"]');
+  await expect.poll(() => lya.getAttribute('data-detected'), { timeout: 15_000 }).toBe('true');
+  expect(await lya.locator('input[type=checkbox]').isChecked()).toBe(true);
+  await expect.poll(() => page.getByRole('status').allTextContents()).toContainEqual(expect.stringMatching(/z rests on Lya alone: .*Shapley et al\. 2003, from memory/));
+  expect(await page.locator('[data-role=reading-error]').textContent()).toMatch(/engine 0\.\d{5} ⊕ resolution floor 0\.\d{5}/);
+  await page.getByRole('form', { name: 'Reading' }).screenshot({ path: 'test-results/reading-form-lyman-break.png' });
+  expect(pageErrors).toEqual([]);
+}, 60_000);
