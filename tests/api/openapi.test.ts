@@ -14,6 +14,7 @@ const NOT_JSON = new Map([
   // Binary: packed float arrays the inspection screen reads directly.
   ['get /api/spectra/{spectrumId}/data', 'octet stream: the spectrum arrays'],
   ['get /api/spectra/{spectrumId}/solutions/{rank}/model', 'octet stream: float32 model on the pixels'],
+  ['get /api/spectra/{spectrumId}/scan-curves', 'octet stream: χ²(z) curves as stored (contracts/scan-curves-binary.ts)'],
   // Server-sent events.
   ['get /api/jobs/{jobId}/events', 'text/event-stream: job progress'],
   // HTML for people.

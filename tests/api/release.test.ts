@@ -24,13 +24,22 @@ describe('agreement', () => {
     const first = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.0, zErr: 0.001, grade: 'sure', class: 'galaxy', lines: ['H-beta'] });
     expect(first.body).not.toHaveProperty('outcome');
     expect((await lead.get(`/api/spectra/${id}/confirmed`)).body.history).toEqual([]);
-    await reader2.post(`/api/spectra/${id}/readings`).send({ z: 1.002, zErr: 0.002, grade: 'likely', class: 'galaxy', lines: ['[O III] 5008'] });
+    const second = await reader2.post(`/api/spectra/${id}/readings`).send({ z: 1.002, zErr: 0.002, grade: 'likely', class: 'galaxy', lines: ['[O III] 5008'] });
     const history = (await observer.get(`/api/spectra/${id}/confirmed`)).body.history;
     expect(history).toHaveLength(1);
-    // w = 1e6 and 2.5e5: z = (1e6·1.000 + 2.5e5·1.002)/1.25e6 = 1.0004; σ = 1/√1.25e6 = 8.944e-4
+    // Each reading's error is the one sent widened by the resolution floor, (1 + z)·300.45 km/s / (2.355 c)
+    // on these 150.2 km/s pixels: 8.512e-4 at z = 1, so σ₁ = √(0.001² + floor²) = 1.3132e-3.
+    const e1 = first.body.reading.zErr;
+    const e2 = second.body.reading.zErr;
+    expect(first.body.reading.lineMeasurements.zErrFloor).toBeCloseTo(8.512e-4, 7);
+    expect(e1).toBeCloseTo(1.3132e-3, 7);
+    // The confirmed value is their inverse-variance mean (1.00053), σ = 1/√Σw (1.124e-3, above the floor).
+    const [w1, w2] = [1 / e1 ** 2, 1 / e2 ** 2];
     expect(history[0]).toMatchObject({ method: 'agreement', grade: 'likely', class: 'galaxy', isCurrent: true, lines: ['H-beta', '[O III] 5008'] });
-    expect(history[0].z).toBeCloseTo(1.0004, 10);
-    expect(history[0].zErr).toBeCloseTo(8.94427e-4, 8);
+    expect(history[0].z).toBeCloseTo((w1 * 1.0 + w2 * 1.002) / (w1 + w2), 10);
+    expect(history[0].z).toBeCloseTo(1.000535, 6);
+    expect(history[0].zErr).toBeCloseTo(1 / Math.sqrt(w1 + w2), 10);
+    expect(history[0].zErr).toBeCloseTo(1.12404e-3, 8);
     const locked = await reader1.post(`/api/spectra/${id}/readings`).send({ z: 1.1, grade: 'sure', class: 'galaxy' });
     expect(locked.status).toBe(409);
     expect(locked.body.error.code).toBe('reading_locked');

@@ -74,6 +74,7 @@ const CASES: Case[] = [
   { method: 'get', route: '/spectra/:spectrumId', url: '/api/spectra/999', expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/data', url: '/api/spectra/999/data', expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/scan-curves', url: '/api/spectra/999/scan-curves', expect: { ...all(404), anonymous: 401 } },
+  { method: 'get', route: '/spectra/:spectrumId/lines', url: '/api/spectra/999/lines?z=1', expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/spectra/:spectrumId/solutions/:rank/model', url: '/api/spectra/999/solutions/1/model', expect: { ...all(404), anonymous: 401 } },
   { method: 'post', route: '/spectra/:spectrumId/readings', url: '/api/spectra/999/readings', body: () => ({ z: 1, grade: 'sure', class: 'galaxy' }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/campaigns/:id/disagreements', url: '/api/campaigns/1/disagreements', expect: { anonymous: 401, observer: 403, reader: 200, lead: 200, admin: 403 } },

@@ -4,7 +4,7 @@ import { parse as parseYaml } from 'yaml';
 import { cosmicColumns } from '../../backend/src/exports/cosmicColumns';
 import { toCsv } from '../../backend/src/exports/toCsv';
 import { toEcsv } from '../../backend/src/exports/toEcsv';
-import { ASSUMPTIONS, ROWS } from '../unit/exports/sample';
+import { ASSUMPTIONS, EXPECTED, ROWS } from '../unit/exports/sample';
 
 type Record_ = Record<string, string>;
 
@@ -22,8 +22,12 @@ const expectedCells = (i: number) => {
   return {
     record_id: String(r.id),
     target_id: r.targetId ?? '',
-    z: String(r.z),
-    z_err: r.zErr === null ? '' : String(r.zErr),
+    z: String(EXPECTED[i]!.z),
+    z_err: EXPECTED[i]!.zErr === null ? '' : String(EXPECTED[i]!.zErr),
+    z_err_floor: r.zErrFloor === null ? '' : String(r.zErrFloor),
+    lines_measured: EXPECTED[i]!.linesMeasured ?? '',
+    line_flux_unit: EXPECTED[i]!.lineFluxUnit ?? '',
+    z_caveat: EXPECTED[i]!.caveat ?? '',
     ra: r.ra === null ? '' : String(r.ra),
     file_name: r.fileName,
     lines: r.lines.join(';'),

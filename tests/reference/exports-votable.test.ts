@@ -2,7 +2,7 @@ import { XMLParser } from 'fast-xml-parser';
 import { describe, expect, it } from 'vitest';
 import { CONFIRMED_COLUMNS } from '../../backend/src/exports/confirmedColumns';
 import { toVotable } from '../../backend/src/exports/toVotable';
-import { ASSUMPTIONS, ROWS } from '../unit/exports/sample';
+import { ASSUMPTIONS, EXPECTED, ROWS } from '../unit/exports/sample';
 
 const parser = new XMLParser({
   ignoreAttributes: false,
@@ -23,6 +23,8 @@ const UCD_WORDS: Record<string, string> = {
   'src.redshift': 'Q', 'src.redshift.phot': 'Q', 'stat.error': 'P', 'stat.min': 'S', 'stat.max': 'S',
   'src.class': 'Q', 'spect.line': 'S', 'time.creation': 'Q', 'time.interval': 'Q', 'pos.distance': 'V',
   'phys.cosmology': 'S', 'stat.fit.chi2': 'P', 'stat.fit.param': 'Q',
+  // Same file, commit 0940a341 (read): meta.note "Note or remark", meta.unit "Unit", both P.
+  'meta.note': 'P', 'meta.unit': 'P',
 };
 
 type Node = Record<string, unknown>;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { gradeCodeSchema } from './grades';
+import { storedLineMeasurementsSchema } from './line-measurements';
 
 export const SPECTRUM_CLASSES = ['galaxy', 'quasar', 'star', 'lyman-break', 'unknown'] as const;
 export const spectrumClassSchema = z.enum(SPECTRUM_CLASSES);
@@ -9,6 +10,7 @@ export type SpectrumClass = z.infer<typeof spectrumClassSchema>;
 export const submitReadingRequestSchema = z
   .object({
     z: z.number().finite().min(-0.01, 'A redshift below −0.01 is not physical here.').max(12),
+    /** The engine's error of the solution taken; the server widens it by the resolution floor (and uses the floor alone when absent). */
     zErr: z.number().finite().positive().max(1).optional(),
     /** A code of the campaign's grade scheme. */
     grade: gradeCodeSchema,
@@ -34,6 +36,8 @@ export const readingSchema = z.object({
   grade: z.string(),
   class: spectrumClassSchema,
   lines: z.array(z.string()),
+  /** The lines used, measured by the server at the reading's z; null for readings saved before lines were measured. */
+  lineMeasurements: storedLineMeasurementsSchema.nullable(),
   note: z.string(),
   timeSpentMs: z.number().int(),
   revision: z.number().int(),

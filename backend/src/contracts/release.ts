@@ -101,6 +101,21 @@ export const confirmedRowSchema = z.object({
   gradeLabel: z.string(),
   spectrumClass: spectrumClassSchema,
   lines: z.array(z.string()),
+  /** The lines' measurements (exports/types.ts ExportLine); empty for records confirmed before lines were measured. */
+  lineMeasurements: z.array(
+    z.object({
+      name: z.string(),
+      measure: z.enum(['flux', 'ew', 'break']),
+      value: z.number().nullable(),
+      error: z.number().nullable(),
+      snr: z.number().nullable(),
+      offsetKms: z.number().nullable(),
+      detected: z.boolean(),
+      blendedWith: z.array(z.string()),
+    }),
+  ),
+  lineFluxUnit: z.string().nullable(),
+  zErrFloor: z.number().nullable(),
   photoZ: z.number().nullable(),
   photoZLow: z.number().nullable(),
   photoZHigh: z.number().nullable(),

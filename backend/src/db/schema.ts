@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import { blob, customType, index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-orm/sqlite-core';
 import { readStoredGradeScheme, type GradeScheme } from '../contracts/grades';
 import type { FluxUnit } from '../spectra/types';
+import type { StoredLineMeasurements } from '../contracts/line-measurements';
 
 // Timestamps are ISO-8601 UTC strings: readable in the SQLite shell and sortable as text.
 const now = sql`(strftime('%Y-%m-%dT%H:%M:%fZ', 'now'))`;
@@ -311,6 +312,11 @@ export const readings = sqliteTable(
     grade: text('grade').notNull(),
     spectrumClass: text('spectrum_class', { enum: SPECTRUM_CLASSES }).notNull(),
     lines: text('lines', { mode: 'json' }).$type<string[]>().notNull(),
+    /**
+     * The lines used, measured in the data at the reading's z when it was saved, with the flux
+     * unit and the resolution floor of its error. Null for readings saved before lines were measured.
+     */
+    lineMeasurements: text('line_measurements', { mode: 'json' }).$type<StoredLineMeasurements>(),
     note: text('note').notNull().default(''),
     /** Time the reader spent on the spectrum, summed over revisions, milliseconds. */
     timeSpentMs: integer('time_spent_ms').notNull().default(0),
@@ -341,6 +347,8 @@ export const confirmedRedshifts = sqliteTable(
     grade: text('grade').notNull(),
     spectrumClass: text('spectrum_class', { enum: SPECTRUM_CLASSES }).notNull(),
     lines: text('lines', { mode: 'json' }).$type<string[]>().notNull(),
+    /** The measurements of `lines` taken from the readings behind this value; null before lines were measured. */
+    lineMeasurements: text('line_measurements', { mode: 'json' }).$type<StoredLineMeasurements>(),
     method: text('method', { enum: ['agreement', 'settlement', 'correction'] }).notNull(),
     firstReadingId: integer('first_reading_id').references(() => readings.id),
     secondReadingId: integer('second_reading_id').references(() => readings.id),

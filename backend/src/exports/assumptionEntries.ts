@@ -8,6 +8,12 @@ export const DERIVED_NOTE =
   'lookback_time and luminosity_distance: flat LCDM without radiation (Hogg 1999, astro-ph/9905116); for z <= 0 lookback_time is 0 and luminosity_distance is null';
 export const INTERLOPER_NOTE =
   "interloper_z, interloper_dchi2, star_dchi2: the engine's interloper check of a Lyman-break solution within 0.01 in |dz|/(1+z) of z (4000 A/Balmer-break galaxy at (1+z)*1215.67/3934.78 ... (1+z)*1215.67/3646 - 1; stars at z = 0); chi2 includes the continuum-shape check; null for other classes or when no such solution was scanned";
+export const ROUNDING_NOTE =
+  'z is rounded to the decimal place of the second significant digit of z_err, and z_err to two significant digits rounded up; z_err is the engine error widened in quadrature by z_err_floor, the sigma of the resolution element (2 pixels FWHM from the pixel scale of the data), and never below it';
+export const LINES_NOTE =
+  "lines_measured: each line used, measured by Redward in the data at the reading's z: emission flux above a sideband continuum (detected at flux/sigma >= 3), absorption rest-frame EW in A, negative for absorption (detected at EW/sigma >= 3), breaks as mean f_nu red/blue (detected when the step is >= 3 sigma); dv is the centroid offset from z in km/s; blends are written once joined by '+'; records confirmed before lines were measured have none";
+export const LYA_NOTE =
+  'z_caveat: set where z rests on Lya alone (a Lyman-break source, or Lya the only detected line): Lya emission is typically offset redward of systemic by a few hundred km/s (Shapley et al. 2003, from memory)';
 export const NULL_NOTE = 'an empty field is null (no value); empty text and empty lists are exported as null';
 
 /**
@@ -29,6 +35,9 @@ export function assumptionEntries(a: ExportAssumptions): Entry[] {
     ['software', a.software],
     ['derived_columns', DERIVED_NOTE],
     ['interloper_columns', INTERLOPER_NOTE],
+    ['z_rounding', ROUNDING_NOTE],
+    ['lines_measured', LINES_NOTE],
+    ['lya_caveat', LYA_NOTE],
     ['nulls', NULL_NOTE],
   ];
 }

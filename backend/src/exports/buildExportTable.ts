@@ -2,6 +2,8 @@ import { checkExportInput } from './checkExportInput';
 import { CONFIRMED_COLUMNS, type ExportColumn } from './confirmedColumns';
 import { cosmicColumns } from './cosmicColumns';
 import type { ConfirmedRow, ExportAssumptions } from './types';
+import { asciiUnit, formatLinesMeasured, lyaCaveat } from './lineEvidence';
+import { roundToError } from '../spectra/roundToError';
 
 /** A cell: numbers for int/long/double columns, strings for string columns, null when absent. */
 export type Cell = number | string | null;
@@ -17,13 +19,16 @@ const text = (s: string | null): string | null => (s === null || s === '' ? null
 
 /**
  * Checks the input and lays the rows out as the columns of CONFIRMED_COLUMNS, with the derived
- * lookback time and luminosity distance. Convention shared by all formats: an empty string or an
+ * lookback time and luminosity distance, z rounded to its error (roundToError) and the lines with
+ * their measurements in one field. Convention shared by all formats: an empty string or an
  * empty list is written as null.
  */
 export function buildExportTable(rows: readonly ConfirmedRow[], assumptions: ExportAssumptions): ExportTable {
   checkExportInput(rows, assumptions);
   const cells = rows.map((r): Cell[] => {
     const derived = cosmicColumns(r.z, assumptions.cosmology);
+    // z to the digits its error supports; the error rounded up, so it never falls below its floor.
+    const rounded = r.zErr !== null && r.zErr > 0 ? roundToError(r.z, r.zErr) : null;
     return [
       r.id,
       text(r.targetId),
@@ -31,12 +36,16 @@ export function buildExportTable(rows: readonly ConfirmedRow[], assumptions: Exp
       text(r.fileName),
       r.ra,
       r.dec,
-      r.z,
-      r.zErr,
+      rounded ? rounded.value : r.z,
+      rounded ? rounded.error : r.zErr,
+      r.zErrFloor,
       r.gradeCode,
       text(r.gradeLabel),
       r.spectrumClass,
       text(r.lines.join(';')),
+      formatLinesMeasured(r.lineMeasurements),
+      r.lineFluxUnit === null || r.lineMeasurements.length === 0 ? null : asciiUnit(r.lineFluxUnit),
+      lyaCaveat(r.spectrumClass, r.lines, r.lineMeasurements),
       r.photoZ,
       r.photoZLow,
       r.photoZHigh,

@@ -1,4 +1,4 @@
-import { DERIVED_NOTE, NULL_NOTE } from './assumptionEntries';
+import { DERIVED_NOTE, LINES_NOTE, LYA_NOTE, NULL_NOTE, ROUNDING_NOTE } from './assumptionEntries';
 import { buildExportTable } from './buildExportTable';
 import type { ColumnKind } from './confirmedColumns';
 import { csvRecord } from './csvField';
@@ -39,6 +39,9 @@ export function toEcsv(rows: readonly ConfirmedRow[], assumptions: ExportAssumpt
     `  exported_at: ${yamlString(a.exportedAt)}`,
     `  software: ${yamlString(a.software)}`,
     `  derived_columns: ${yamlString(DERIVED_NOTE)}`,
+    `  z_rounding: ${yamlString(ROUNDING_NOTE)}`,
+    `  lines_measured: ${yamlString(LINES_NOTE)}`,
+    `  lya_caveat: ${yamlString(LYA_NOTE)}`,
     `  nulls: ${yamlString(NULL_NOTE)}`,
     'schema: astropy-2.0',
   ];

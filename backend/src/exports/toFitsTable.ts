@@ -1,4 +1,4 @@
-import { DERIVED_NOTE, NULL_NOTE } from './assumptionEntries';
+import { DERIVED_NOTE, LINES_NOTE, LYA_NOTE, NULL_NOTE, ROUNDING_NOTE } from './assumptionEntries';
 import { buildExportTable, type Cell } from './buildExportTable';
 import type { ColumnKind, ExportColumn } from './confirmedColumns';
 import { fitsAscii } from './fitsAscii';
@@ -77,6 +77,9 @@ function tableHeader(layouts: Layout[], rowWidth: number, rows: number, a: Expor
   for (const g of a.gradeScheme) cards.push(...commentaryCards('COMMENT', `Grade ${g.code} = ${g.label}: ${g.meaning}`));
   cards.push(
     ...commentaryCards('COMMENT', `Derived columns: ${DERIVED_NOTE}.`),
+    ...commentaryCards('COMMENT', `Rounding: ${ROUNDING_NOTE}.`),
+    ...commentaryCards('COMMENT', `Lines: ${LINES_NOTE}.`),
+    ...commentaryCards('COMMENT', `Caveat: ${LYA_NOTE}.`),
     ...commentaryCards('COMMENT', `Nulls: NaN in D columns, TNULLn in K and J columns, a leading NUL in A columns; ${NULL_NOTE}.`),
     ...commentaryCards('COMMENT', "Text is ASCII: accents dropped (NFKD), tabs and line breaks become spaces, other characters '?'."),
   );

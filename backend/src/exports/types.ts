@@ -1,6 +1,21 @@
 /** Classes a confirmed redshift can carry (PRODUCT.md vocabulary). */
 export type SpectrumClass = 'galaxy' | 'quasar' | 'star' | 'lyman-break' | 'unknown';
 
+/** One line of a confirmed value with its measurement (the quantity that decides detection). */
+export interface ExportLine {
+  name: string;
+  measure: 'flux' | 'ew' | 'break';
+  /** flux (line_flux_unit), rest-frame EW (Å; negative = absorption) or break ratio; null when not measured. */
+  value: number | null;
+  error: number | null;
+  snr: number | null;
+  /** Centroid minus the comb's position, km/s (detected emission lines only). */
+  offsetKms: number | null;
+  detected: boolean;
+  /** Other lines measured together with this one (unresolved). */
+  blendedWith: string[];
+}
+
 /** One released redshift, as the export writers receive it (the lead maps database rows onto this). */
 export interface ConfirmedRow {
   /** Catalogue id of the target, if the spectrum is linked to one. */
@@ -17,6 +32,12 @@ export interface ConfirmedRow {
   spectrumClass: SpectrumClass;
   /** Names of the features that support the redshift. */
   lines: string[];
+  /** The measurements of those lines that fall on the data (empty for records saved before lines were measured). */
+  lineMeasurements: ExportLine[];
+  /** Unit of the line fluxes, e.g. "erg s⁻¹ cm⁻²" or "arbitrary × Å"; null when nothing was measured. */
+  lineFluxUnit: string | null;
+  /** The smallest error the data allow: the σ of the resolution element at z; null when not known. */
+  zErrFloor: number | null;
   photoZ: number | null;
   /** Lower and upper ends of the photometric redshift's 68 % range. */
   photoZLow: number | null;

@@ -14,6 +14,8 @@ import { findCampaignRole } from '../services/find-campaign-role';
 import { forbidden, notFound } from '../http/errors';
 import { appUrl } from '../http/app-url';
 import { notifyDisagreement } from '../services/notify-disagreement';
+import { combLinesQuerySchema, combLinesResponseSchema } from '../contracts/line-measurements';
+import { measureSpectrumLines } from '../services/measure-lines';
 
 const spectrumId = (req: Request) => Number(req.params.spectrumId);
 const ofSpectrum = (ctx: ServiceContext, req: Request) => spectrumCampaignId(ctx, spectrumId(req));
@@ -70,6 +72,16 @@ export function readingRoutes(ctx: ServiceContext): Router {
       if (req.get('if-none-match') === etag) return void res.status(304).end();
       res.type('application/octet-stream').send(packed);
     },
+  });
+
+  // Measured on demand at the comb's z: nothing is cached, so it can never describe another z or file.
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/spectra/:spectrumId/lines',
+    access: viewer,
+    query: combLinesQuerySchema,
+    response: combLinesResponseSchema,
+    handle: ({ req, query }) => measureSpectrumLines(ctx, spectrumId(req), query.z, query.class),
   });
 
   // float32[n] on the spectrum's pixels, the same n as /data.

@@ -1,6 +1,7 @@
 import { and, eq, inArray } from 'drizzle-orm';
 import { campaigns, confirmedRedshifts, disagreements, readings, spectra } from '../db/schema';
 import { combineReadings, compareReadings } from '../release/compare-readings';
+import { atLeastFloor, mergeLineEvidence } from '../release/merge-line-evidence';
 import type { ServiceContext } from './context';
 import { recordAudit } from './record-audit';
 
@@ -32,10 +33,12 @@ export function checkAgreement(ctx: ServiceContext, tx: Tx, spectrumId: number, 
   const now = ctx.now().toISOString();
 
   if (verdict.agree) {
-    const value = combineReadings(first, second, campaign.gradeScheme);
+    const combined = combineReadings(first, second, campaign.gradeScheme);
+    const lineMeasurements = mergeLineEvidence(combined.lines, first.lineMeasurements, second.lineMeasurements);
+    const value = { ...combined, zErr: atLeastFloor(combined.zErr, lineMeasurements) };
     const confirmed = tx
       .insert(confirmedRedshifts)
-      .values({ spectrumId, z: value.z, zErr: value.zErr, grade: value.grade, spectrumClass: first.spectrumClass, lines: value.lines, method: 'agreement', firstReadingId: first.id, secondReadingId: second.id, createdAt: now })
+      .values({ spectrumId, z: value.z, zErr: value.zErr, grade: value.grade, spectrumClass: first.spectrumClass, lines: value.lines, lineMeasurements, method: 'agreement', firstReadingId: first.id, secondReadingId: second.id, createdAt: now })
       .returning({ id: confirmedRedshifts.id })
       .get();
     tx.update(readings).set({ lockedAt: now }).where(inArray(readings.id, [first.id, second.id])).run();

@@ -7,6 +7,7 @@ import type { Solution } from '../contracts/spectra';
 import type { ConfirmedRow, ExportAssumptions } from '../exports';
 import { PLANCK18 } from '../spectra/flatLcdm';
 import { ENGINE_VERSION } from '../spectra/version';
+import type { StoredLineMeasurements } from '../contracts/line-measurements';
 import type { ServiceContext } from './context';
 
 type Query = z.output<typeof confirmedQuerySchema>;
@@ -76,6 +77,7 @@ export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Fi
       gradeLabel: label.get(c.grade) ?? `grade ${c.grade}`,
       spectrumClass: c.spectrumClass,
       lines: c.lines,
+      ...lineColumns(c.lineMeasurements ?? null),
       photoZ: t?.photoZ ?? null,
       photoZLow: t?.photoZLow ?? null,
       photoZHigh: t?.photoZHigh ?? null,
@@ -86,6 +88,19 @@ export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Fi
       supersedes: c.supersedesId,
       ...interloperColumns(c.spectrumClass, c.z, solutionsOf.get(s.id) ?? []),
     })),
+  };
+}
+
+/** A confirmed record's stored line measurements as the export carries them: the deciding quantity with its error. */
+function lineColumns(stored: StoredLineMeasurements | null): Pick<ConfirmedRow, 'lineMeasurements' | 'lineFluxUnit' | 'zErrFloor'> {
+  if (!stored) return { lineMeasurements: [], lineFluxUnit: null, zErrFloor: null };
+  return {
+    lineMeasurements: stored.lines.map((m) => {
+      const [value, error] = m.measure === 'flux' ? [m.flux, m.fluxErr] : m.measure === 'ew' ? [m.ewRest, m.ewRestErr] : [m.breakRatio, m.breakRatioErr];
+      return { name: m.name, measure: m.measure, value, error, snr: m.snr, offsetKms: m.offsetKms, detected: m.detected, blendedWith: m.blendedWith };
+    }),
+    lineFluxUnit: stored.fluxUnit,
+    zErrFloor: stored.zErrFloor,
   };
 }
 

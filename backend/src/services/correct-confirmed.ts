@@ -4,6 +4,7 @@ import { campaigns, confirmedRedshifts, spectra, users } from '../db/schema';
 import { badRequest, conflict } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
+import { lineEvidence } from './line-evidence';
 
 /**
  * Corrects a released redshift without touching it: the current record is marked superseded
@@ -16,6 +17,7 @@ export function correctConfirmed(ctx: ServiceContext, actor: Actor, spectrumId: 
     const spectrum = tx.select({ campaignId: spectra.campaignId }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
     const campaign = tx.select().from(campaigns).where(eq(campaigns.id, spectrum.campaignId)).get()!;
     if (!campaign.gradeScheme.some((g) => g.code === input.grade)) throw badRequest(`Grade ${input.grade} is not in this campaign's scheme.`, 'unknown_grade');
+    const evidence = lineEvidence(ctx, spectrumId, { z: input.z, zErr: input.zErr ?? null, spectrumClass: input.class, lines: input.lines ?? [] });
     const now = ctx.now().toISOString();
     tx.update(confirmedRedshifts).set({ isCurrent: false, supersededAt: now }).where(eq(confirmedRedshifts.id, current.id)).run();
     const next = tx
@@ -23,10 +25,11 @@ export function correctConfirmed(ctx: ServiceContext, actor: Actor, spectrumId: 
       .values({
         spectrumId,
         z: input.z,
-        zErr: input.zErr ?? null,
+        zErr: evidence.zErr,
         grade: input.grade,
         spectrumClass: input.class,
         lines: input.lines ?? [],
+        lineMeasurements: evidence.lineMeasurements,
         method: 'correction',
         firstReadingId: current.firstReadingId,
         secondReadingId: current.secondReadingId,
@@ -44,7 +47,7 @@ export function correctConfirmed(ctx: ServiceContext, actor: Actor, spectrumId: 
       subjectId: next.id,
       campaignId: spectrum.campaignId,
       before: { id: current.id, z: current.z, zErr: current.zErr, grade: current.grade, class: current.spectrumClass },
-      after: { id: next.id, z: input.z, zErr: input.zErr ?? null, grade: input.grade, class: input.class, reason: input.reason },
+      after: { id: next.id, z: input.z, zErr: evidence.zErr, grade: input.grade, class: input.class, reason: input.reason },
     });
     return { confirmedId: next.id };
   });

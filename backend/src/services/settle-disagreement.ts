@@ -6,6 +6,8 @@ import { badRequest, conflict, forbidden, notFound } from '../http/errors';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
 import { toReadingView } from './submit-reading';
+import { lineEvidence } from './line-evidence';
+import type { StoredLineMeasurements } from '../contracts/line-measurements';
 
 export function disagreementCampaignId(ctx: ServiceContext, id: number): number {
   const row = Number.isSafeInteger(id) ? ctx.db.select({ campaignId: disagreements.campaignId }).from(disagreements).where(eq(disagreements.id, id)).get() : undefined;
@@ -55,18 +57,23 @@ export function settleDisagreement(ctx: ServiceContext, actor: Actor, role: Camp
     if (role !== 'lead' && d.delegatedTo !== actor.id) throw forbidden('Only a lead, or the third reader the lead chose, can settle this disagreement.');
     if (d.state !== 'open') throw conflict('This disagreement has already been settled.', 'disagreement_closed');
     const campaign = tx.select().from(campaigns).where(eq(campaigns.id, d.campaignId)).get()!;
+    let lineMeasurements: StoredLineMeasurements | null;
     let value: { z: number; zErr: number | null; grade: string; spectrumClass: (typeof confirmedRedshifts.$inferInsert)['spectrumClass']; lines: string[] };
     if (input.choice === 'new') {
       if (!campaign.gradeScheme.some((g) => g.code === input.grade)) throw badRequest(`Grade ${input.grade} is not in this campaign's scheme.`, 'unknown_grade');
-      value = { z: input.z, zErr: input.zErr ?? null, grade: input.grade, spectrumClass: input.class, lines: input.lines ?? [] };
+      const entered = { z: input.z, zErr: input.zErr ?? null, grade: input.grade, spectrumClass: input.class, lines: input.lines ?? [] };
+      const evidence = lineEvidence(ctx, d.spectrumId, entered);
+      value = { ...entered, zErr: evidence.zErr };
+      lineMeasurements = evidence.lineMeasurements;
     } else {
       const chosen = tx.select().from(readings).where(eq(readings.id, input.choice === 'first' ? d.firstReadingId : d.secondReadingId)).get()!;
       value = { z: chosen.z, zErr: chosen.zErr, grade: chosen.grade, spectrumClass: chosen.spectrumClass, lines: chosen.lines };
+      lineMeasurements = chosen.lineMeasurements ?? null;
     }
     const now = ctx.now().toISOString();
     const confirmed = tx
       .insert(confirmedRedshifts)
-      .values({ spectrumId: d.spectrumId, ...value, method: 'settlement', firstReadingId: d.firstReadingId, secondReadingId: d.secondReadingId, decidedBy: actor.id, reason: input.reason, createdAt: now })
+      .values({ spectrumId: d.spectrumId, ...value, lineMeasurements, method: 'settlement', firstReadingId: d.firstReadingId, secondReadingId: d.secondReadingId, decidedBy: actor.id, reason: input.reason, createdAt: now })
       .returning({ id: confirmedRedshifts.id })
       .get();
     tx.update(readings).set({ lockedAt: now }).where(inArray(readings.id, [d.firstReadingId, d.secondReadingId])).run();

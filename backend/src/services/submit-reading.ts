@@ -6,6 +6,7 @@ import { LINES } from '../spectra/lineList';
 import type { Actor, ServiceContext } from './context';
 import { checkAgreement, type AgreementOutcome } from './check-agreement';
 import { recordAudit } from './record-audit';
+import { lineEvidence } from './line-evidence';
 
 const KNOWN_LINES = new Set(LINES.map((l) => l.name));
 
@@ -22,6 +23,7 @@ export function toReadingView(row: ReadingRow, readerName: string): Reading {
     grade: row.grade,
     class: row.spectrumClass,
     lines: row.lines,
+    lineMeasurements: row.lineMeasurements ?? null,
     note: row.note,
     timeSpentMs: row.timeSpentMs,
     revision: row.revision,
@@ -63,12 +65,15 @@ export function submitReading(
     const unknown = input.lines.filter((name) => !KNOWN_LINES.has(name));
     if (unknown.length > 0) throw badRequest(`Not in the line list: ${unknown.join(', ')}.`, 'unknown_line');
 
+    const lines = [...new Set(input.lines)];
+    // Measured here, from the stored file: what the reading records of its lines is the server's measurement.
+    const evidence = lineEvidence(ctx, spectrumId, { z: input.z, zErr: input.zErr ?? null, spectrumClass: input.class, lines });
     const values = {
       z: input.z,
-      zErr: input.zErr ?? null,
+      zErr: evidence.zErr,
       grade: input.grade,
       spectrumClass: input.class,
-      lines: [...new Set(input.lines)],
+      lines,
       note: input.note ?? '',
     };
     const existing = tx.select().from(readings).where(and(eq(readings.spectrumId, spectrumId), eq(readings.readerId, actor.id))).get();
@@ -78,7 +83,7 @@ export function submitReading(
     if (!existing) {
       row = tx
         .insert(readings)
-        .values({ ...values, spectrumId, readerId: actor.id, readingOrder: assignment.readingOrder, timeSpentMs: input.timeSpentMs ?? 0, createdAt: now, updatedAt: now })
+        .values({ ...values, lineMeasurements: evidence.lineMeasurements, spectrumId, readerId: actor.id, readingOrder: assignment.readingOrder, timeSpentMs: input.timeSpentMs ?? 0, createdAt: now, updatedAt: now })
         .returning()
         .get();
       recordAudit(tx, { actorId: actor.id, action: 'reading.created', subjectType: 'reading', subjectId: row.id, campaignId: spectrum.campaignId, after: values });
@@ -89,7 +94,7 @@ export function submitReading(
       if (existing.lockedAt) throw conflict('This reading is part of a confirmed redshift and can no longer be changed.', 'reading_locked');
       row = tx
         .update(readings)
-        .set({ ...values, revision: existing.revision + 1, timeSpentMs: existing.timeSpentMs + (input.timeSpentMs ?? 0), updatedAt: now })
+        .set({ ...values, lineMeasurements: evidence.lineMeasurements, revision: existing.revision + 1, timeSpentMs: existing.timeSpentMs + (input.timeSpentMs ?? 0), updatedAt: now })
         .where(eq(readings.id, existing.id))
         .returning()
         .get();

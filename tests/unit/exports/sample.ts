@@ -20,12 +20,19 @@ export function row(overrides: Partial<ConfirmedRow> = {}): ConfirmedRow {
     fileName: 'mask3_slit12.fits',
     ra: 3.5878125,
     dec: -30.3972778,
-    z: 6.2,
+    // More digits than its error supports: the exports write 6.2 (z_err 0.00040 → 5 decimals).
+    z: 6.200001234567,
     zErr: 0.0004,
     gradeCode: 'sure',
     gradeLabel: 'sure',
     spectrumClass: 'lyman-break',
-    lines: ['Lya', 'NV'],
+    lines: ['Ly-alpha', 'N V 1239'],
+    lineMeasurements: [
+      { name: 'Ly-alpha', measure: 'flux', value: 3.21e-17, error: 2.4e-18, snr: 13.4, offsetKms: 212.4, detected: true, blendedWith: [] },
+      { name: 'N V 1239', measure: 'flux', value: 2.1e-18, error: 1.5e-18, snr: 1.4, offsetKms: null, detected: false, blendedWith: [] },
+    ],
+    lineFluxUnit: 'erg s⁻¹ cm⁻²',
+    zErrFloor: 0.00039,
     photoZ: 6.05,
     photoZLow: 5.8,
     photoZHigh: 6.3,
@@ -58,6 +65,9 @@ export const ROWS: ConfirmedRow[] = [
     gradeLabel: 'no redshift',
     spectrumClass: 'star',
     lines: [],
+    lineMeasurements: [],
+    lineFluxUnit: null,
+    zErrFloor: null,
     photoZ: null,
     photoZLow: null,
     photoZHigh: null,
@@ -68,5 +78,47 @@ export const ROWS: ConfirmedRow[] = [
     interloperDeltaChi2: null,
     starDeltaChi2: null,
   }),
-  row({ id: 103, targetId: '#7 & <b>', spectrumId: 19, z: 1, zErr: 0.001, spectrumClass: 'galaxy', lines: ['[OII]3727', 'Hb', '[OIII]5007'], confirmedBy: 'correction', supersedes: 99, imageFamily: '5', interloperZ: null, interloperDeltaChi2: null, starDeltaChi2: null }),
+  row({
+    id: 103,
+    targetId: '#7 & <b>',
+    spectrumId: 19,
+    z: 1,
+    zErr: 0.001,
+    spectrumClass: 'galaxy',
+    lines: ['[O II] 3727', '[O II] 3730', 'H-beta', '4000 Å break'],
+    lineMeasurements: [
+      { name: '[O II] 3727', measure: 'flux', value: 4.5e-17, error: 5e-18, snr: 9, offsetKms: -20.4, detected: true, blendedWith: ['[O II] 3730'] },
+      { name: '[O II] 3730', measure: 'flux', value: 4.5e-17, error: 5e-18, snr: 9, offsetKms: -20.4, detected: true, blendedWith: ['[O II] 3727'] },
+      { name: '4000 Å break', measure: 'break', value: 1.42, error: 0.05, snr: 8.1, offsetKms: null, detected: true, blendedWith: [] },
+    ],
+    zErrFloor: 0.00085,
+    confirmedBy: 'correction',
+    supersedes: 99,
+    imageFamily: '5',
+    interloperZ: null,
+    interloperDeltaChi2: null,
+    starDeltaChi2: null,
+  }),
 ];
+
+/**
+ * What the exports must write for ROWS, worked out by hand: z to the decimal of the second
+ * significant digit of z_err (z_err rounded up), the lines with their measurements, the Lyα caveat.
+ */
+export const EXPECTED = [
+  {
+    z: 6.2,
+    zErr: 0.0004,
+    linesMeasured: 'Ly-alpha:flux=3.21e-17+/-2.4e-18:sn=13.4:dv=212;N V 1239:flux=2.1e-18+/-1.5e-18:sn=1.4:below-3sigma',
+    lineFluxUnit: 'erg s-1 cm-2',
+    caveat: 'z rests on Lya alone: Lya emission is typically offset redward of systemic by a few hundred km/s (Shapley et al. 2003, from memory)',
+  },
+  { z: -0.0002, zErr: null, linesMeasured: null, lineFluxUnit: null, caveat: null },
+  {
+    z: 1,
+    zErr: 0.001,
+    linesMeasured: '[O II] 3727+[O II] 3730:flux=4.5e-17+/-5e-18:sn=9.0:dv=-20;4000 Å break:ratio=1.42+/-0.05:sn=8.1',
+    lineFluxUnit: 'erg s-1 cm-2',
+    caveat: null,
+  },
+] as const;

@@ -5,5 +5,6 @@ export const inspectKeys = {
   spectrum: (spectrumId: number) => [...inspectKeys.all(), 'spectrum', spectrumId] as const,
   detail: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'detail'] as const,
   curves: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'curves'] as const,
+  lines: (spectrumId: number, z: number, cls: string) => [...inspectKeys.spectrum(spectrumId), 'lines', z, cls] as const,
   model: (spectrumId: number, scanId: number, rank: number) => [...inspectKeys.spectrum(spectrumId), 'model', scanId, rank] as const,
 };

@@ -1,4 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
+import { getCombLinesQueryOptions, measuredZ } from '../api/get-comb-lines';
+import { asSpectrumClass } from '@/lib/spectrum-class';
 import { useEffect } from 'react';
 import type { ReactNode } from 'react';
 import { Loading } from '@/components/ui/loading';
@@ -57,8 +59,16 @@ function usePrefetchSpectrum(spectrumId: number | null) {
     void queryClient.prefetchQuery(getScanCurvesQueryOptions(spectrumId));
     // The comb opens on the top solution, whose template is drawn: fetch it ahead too, once the
     // detail has said which scan it belongs to.
+    // The lines measured at that z are fetched ahead as well: "take the top solution" then ticks them at once.
     void queryClient.fetchQuery(getSpectrumDetailQueryOptions(spectrumId)).then(
-      (detail) => (detail.scan ? queryClient.prefetchQuery(getSolutionModelQueryOptions(spectrumId, detail.scan.id, 1)) : undefined),
+      (detail) => {
+        const top = detail.scan?.solutions[0];
+        const mine = detail.readings[0];
+        const z = mine?.z ?? top?.z;
+        const cls = mine?.class ?? top?.class;
+        if (z !== undefined && cls !== undefined) void queryClient.prefetchQuery(getCombLinesQueryOptions(spectrumId, measuredZ(z, detail.scan?.solutions ?? []), asSpectrumClass(cls)));
+        return detail.scan ? queryClient.prefetchQuery(getSolutionModelQueryOptions(spectrumId, detail.scan.id, 1)) : undefined;
+      },
       () => undefined,
     );
   }, [queryClient, spectrumId]);

@@ -6,7 +6,8 @@ import { Panel } from '@/components/ui/panel';
 import type { CombLine, SpectrumDetail } from '../api/schemas';
 import { PLOT } from '@/components/spectrum/plot-palette';
 import { displayArraysOf, useDisplayArrays } from '@/components/spectrum/use-display-arrays';
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { getCombLinesQueryOptions, measuredZ } from '../api/get-comb-lines';
 import { getSpectrumDataQueryOptions } from '@/lib/spectrum-data';
 import { getSolutionModelQueryOptions, useSolutionModel } from '../api/get-solution-model';
 import { getSpectrumDetailQueryOptions } from '../api/get-spectrum-detail';
@@ -15,7 +16,7 @@ import { linesUsed, useReadingDraft } from '../hooks/use-reading-draft';
 import { useSaveReading } from '../hooks/use-save-reading';
 import { usePerSpectrum } from '../hooks/use-per-spectrum';
 import type { Chi2StripData } from '../utils/chi2-strip-data';
-import { linesOnData, nudgeZ, pixelStepFactor } from '@/components/spectrum/comb';
+import { nudgeZ, pixelStepFactor } from '@/components/spectrum/comb';
 import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import type { Smoothing } from '@/components/spectrum/smooth';
 import { combLinesFor } from '@/components/spectrum/comb-lines';
@@ -110,6 +111,7 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   );
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
+  const queryClient = useQueryClient();
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
 
   const { save, pending, error } = useSaveReading({
@@ -117,7 +119,11 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
     campaignId: campaign.id,
     store,
     solutions,
-    lines: () => linesUsed(linesOnData(lines, store.get(), arrays.wavelength, arrays.mask, arrays.flux), draft),
+    // The detected lines at the comb's z, from the query cache when the form has shown them (the usual case).
+    lines: async () => {
+      const measured = await queryClient.fetchQuery(getCombLinesQueryOptions(spectrumId, measuredZ(store.get(), solutions), draft.cls));
+      return linesUsed(measured.lines.filter((m) => m.detected).map((m) => m.name), draft);
+    },
     onSaved: (reading) => nav.onSaved(reading, detail),
   });
 
@@ -244,8 +250,9 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
           <Panel title="Reading" className={OWN_PAINT}>
             {canRead ? (
               <ReadingForm
+                spectrumId={spectrumId}
                 store={store}
-                onDataAt={(z) => linesOnData(lines, z, arrays.wavelength, arrays.mask, arrays.flux)}
+                solutions={solutions}
                 scheme={campaign.gradeScheme}
                 draft={draft}
                 onDraft={setDraft}

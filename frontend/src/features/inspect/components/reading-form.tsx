@@ -7,14 +7,17 @@ import { LiveNumber } from '@/components/ui/live-number';
 import { ErrorNotice, Notice } from '@/components/ui/notice';
 import { formatDateTime, formatRedshift } from '@/lib/format';
 import type { ReadingDraft } from '../hooks/use-reading-draft';
-import { useTrialZSettled, useTrialZText } from '../hooks/use-trial-z';
+import { useTrialZText } from '../hooks/use-trial-z';
+import type { Solution } from '../api/schemas';
+import { LinesMeasuredField } from './lines-measured-field';
 import type { TrialZStore } from '@/components/spectrum/trial-z-store';
 import { CLASS_NAMES, CLASS_ORDER } from '@/lib/spectrum-class';
 
 interface Props {
+  spectrumId: number;
   store: TrialZStore;
-  /** The comb's lines on usable data at a redshift. */
-  onDataAt: (z: number) => string[];
+  /** The scan's solutions: a comb snapped to one carries its error. */
+  solutions: Solution[];
   scheme: Grade[];
   draft: ReadingDraft;
   onDraft: (update: (d: ReadingDraft) => ReadingDraft) => void;
@@ -27,8 +30,8 @@ interface Props {
 
 const kbd = 'num rounded-control border border-paper-400 bg-paper-100 px-1 text-xs';
 
-/** The reader's verdict: z from the comb, grade from the campaign's scheme, class, lines, note. */
-export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pending, error, onSave, noteRef }: Props) {
+/** The reader's verdict: z from the comb, grade from the campaign's scheme, class, the lines measured, note. */
+export function ReadingForm({ spectrumId, store, solutions, scheme, draft, onDraft, mine, pending, error, onSave, noteRef }: Props) {
   return (
     <form
       aria-label="Reading"
@@ -78,7 +81,7 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
           ))}
         </select>
       </div>
-      <LinesUsedField store={store} onDataAt={onDataAt} draft={draft} onDraft={onDraft} />
+      <LinesMeasuredField spectrumId={spectrumId} store={store} solutions={solutions} draft={draft} onDraft={onDraft} />
       <div className="flex flex-col gap-1">
         <label htmlFor="reading-note" className="text-sm font-medium text-ink-800">
           Note
@@ -110,55 +113,4 @@ export function ReadingForm({ store, onDataAt, scheme, draft, onDraft, mine, pen
 /** Follows the comb on every frame of a drag without a React render (useTrialZText). */
 function CombZ({ store }: { store: TrialZStore }) {
   return <LiveNumber ref={useTrialZText<HTMLSpanElement>(store, formatRedshift)} chars={8} className="text-md font-semibold text-ink-900" />;
-}
-
-/**
- * The lines list follows the comb once it rests: during a drag the set of lines on unmasked data
- * changes on almost every frame, and re-laying out the list each time would cost more than the
- * frame. A save always reads the lines at the comb's position of that moment.
- */
-function LinesUsedField({ store, onDataAt, draft, onDraft }: Pick<Props, 'store' | 'onDataAt' | 'draft' | 'onDraft'>) {
-  const joined = useTrialZSettled(store, (z) => onDataAt(z).join('\n'));
-  const onData = joined ? joined.split('\n') : [];
-  const shown = [...new Set([...onData, ...draft.added])];
-  const checked = (name: string) => (onData.includes(name) ? !draft.excluded.has(name) : draft.added.has(name));
-  const toggle = (name: string, on: boolean) =>
-    onDraft((d) => {
-      const excluded = new Set(d.excluded);
-      const added = new Set(d.added);
-      if (onData.includes(name)) {
-        if (on) excluded.delete(name);
-        else excluded.add(name);
-      } else if (on) added.add(name);
-      else added.delete(name);
-      return { ...d, excluded, added };
-    });
-  return (
-    <fieldset>
-      <legend className="mb-1 flex w-full items-baseline justify-between text-sm font-medium text-ink-800">
-        <span>Lines used</span>
-        <span className="text-xs font-normal text-ink-500">comb markers on data at this z</span>
-      </legend>
-      {shown.length === 0 ? (
-        <p className="text-sm text-ink-500">No comb marker falls on usable data here.</p>
-      ) : (
-        <div className="flex max-h-40 flex-wrap gap-x-3 gap-y-0.5 overflow-y-auto rounded-control border border-paper-200 p-1.5">
-          {shown.map((name) => (
-            <label key={name} className="flex items-center gap-1 text-sm">
-              <input type="checkbox" checked={checked(name)} onChange={(e) => toggle(name, e.target.checked)} className="accent-ink-900" />
-              {name}
-            </label>
-          ))}
-        </div>
-      )}
-      <div className="mt-1 flex gap-2">
-        <Button variant="quiet" size="sm" onClick={() => onDraft((d) => ({ ...d, excluded: new Set(onData), added: new Set() }))}>
-          Untick all
-        </Button>
-        <Button variant="quiet" size="sm" onClick={() => onDraft((d) => ({ ...d, excluded: new Set() }))}>
-          Tick all on data
-        </Button>
-      </div>
-    </fieldset>
-  );
 }

@@ -5,9 +5,9 @@ import { usePerSpectrum } from './use-per-spectrum';
 export interface ReadingDraft {
   grade: string | null;
   cls: SpectrumClass;
-  /** Comb lines on data the reader unticked; everything else on data counts as used. */
+  /** Lines detected in the data (≥ 3σ, measured by the server) that the reader unticked; the other detected lines count as used. */
   excluded: ReadonlySet<string>;
-  /** Lines ticked by hand that the comb does not put on data (kept so a tick is never lost). */
+  /** Lines ticked by hand that are not detected at this z (kept so a tick is never lost). */
   added: ReadonlySet<string>;
   note: string;
 }
@@ -23,5 +23,5 @@ export function useReadingDraft(spectrumId: number, mine: Reading | undefined, t
   }));
 }
 
-/** The lines a save sends: the comb's lines on data minus the unticked, plus the hand-ticked. */
-export const linesUsed = (onData: string[], d: ReadingDraft) => [...new Set([...onData.filter((n) => !d.excluded.has(n)), ...d.added])];
+/** The lines a save sends: the detected lines minus the unticked, plus the hand-ticked. */
+export const linesUsed = (detected: string[], d: ReadingDraft) => [...new Set([...detected.filter((n) => !d.excluded.has(n)), ...d.added])];
