@@ -136,6 +136,8 @@ export const targetPhotometrySchema = z.object({
   models: z.array(sedModelSchema),
   /** What the fit assumed, in words (filters, templates, IGM, error floor, prior). */
   assumptions: z.array(z.string()),
+  /** The target's spectra, to open from its SED. */
+  spectra: z.array(z.object({ id: z.number().int(), fileName: z.string() })),
 });
 export type TargetPhotometry = z.infer<typeof targetPhotometrySchema>;
 

@@ -1,6 +1,6 @@
 import { and, eq } from 'drizzle-orm';
 import type { TargetPhotometry } from '../contracts/targets';
-import { targetPhotometry, targets } from '../db/schema';
+import { spectra, targetPhotometry, targets } from '../db/schema';
 import { notFound } from '../http/errors';
 import { photoZTemplates } from '../photoz/analyticTemplates';
 import { bandModel, observedTemplate } from '../photoz/bestFitModel';
@@ -24,7 +24,8 @@ export function getTargetPhotometry(ctx: ServiceContext, campaignId: number, tar
   if (!target) throw notFound('No such target in this campaign.', 'target_not_found');
   const rows = ctx.db.select().from(targetPhotometry).where(eq(targetPhotometry.targetId, targetId)).all();
   const fit = fitsOf(ctx.db, [targetId]).get(targetId) ?? null;
-  if (rows.length === 0) return { targetId, catalogueId: target.catalogueId, bands: [], fit: null, posterior: null, models: [], assumptions: [] };
+  const linked = ctx.db.select({ id: spectra.id, fileName: spectra.fileName }).from(spectra).where(eq(spectra.targetId, targetId)).orderBy(spectra.id).all();
+  if (rows.length === 0) return { targetId, catalogueId: target.catalogueId, bands: [], fit: null, posterior: null, models: [], assumptions: [], spectra: linked };
 
   const curves = filterCurves(ctx.db, campaignId, rows.map((r) => r.filter));
   const order = rows.map((r, i) => ({ r, curve: curves[i]!, lam: effectiveWavelength(curves[i]!) })).sort((a, b) => a.lam - b.lam);
@@ -65,5 +66,6 @@ export function getTargetPhotometry(ctx: ServiceContext, campaignId: number, tar
     posterior: fit ? posteriorOf(fit) : null,
     models,
     assumptions: fit ? [`filters: ${fit.filters.join(', ')}`, ...photoZAssumptions()] : [],
+    spectra: linked,
   };
 }
