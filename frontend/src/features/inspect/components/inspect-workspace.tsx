@@ -20,6 +20,9 @@ import type { SpectrumArrays } from '@/lib/decode-spectrum-data';
 import type { Smoothing } from '@/components/spectrum/smooth';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { Chi2Strip } from './chi2-strip';
+import { usePhotoZPosterior } from '../api/get-photo-z-posterior';
+import { usePhotoZLayer } from './photo-z-layer';
+import { PhotoZNotice } from './photo-z-notice';
 import { asSpectrumClass } from '@/lib/spectrum-class';
 import { ContextPanel } from './context-panel';
 import { FeaturePanels } from './feature-panels';
@@ -90,6 +93,9 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
   const model = useSolutionModel(spectrumId, scan?.id ?? null, showModel ? modelRank : null);
   const display = useDisplayArrays(arrays, smoothing, showModel ? (model.data ?? null) : null);
   const upcoming = useUpcomingDisplay(nextId, smoothing, showModel);
+  const photoZFit = detail.target?.photoZFit ?? null;
+  const posterior = usePhotoZPosterior(campaign.id, detail.target?.id ?? null, photoZFit !== null);
+  const drawPhotoZ = usePhotoZLayer(photoZFit ? posterior.data : null, photoZFit?.z95 ?? null);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
   const stepFactor = pixelStepFactor(scan?.meta.step ?? null, arrays.wavelength);
@@ -193,7 +199,8 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
               describedBy="plot-help"
             />
             <Legend hasSky={arrays.sky !== null} hasModel={display.model !== null} />
-            {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
+            {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} onDraw={drawPhotoZ} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
+            {photoZFit ? <PhotoZNotice store={store} z95={photoZFit.z95} /> : null}
           </section>
           <Panel className={OWN_PAINT}>
             <FeaturePanels display={display} store={store} />
