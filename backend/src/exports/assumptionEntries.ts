@@ -30,6 +30,7 @@ export function assumptionEntries(a: ExportAssumptions): Entry[] {
     ['derived_columns', DERIVED_NOTE],
     ['interloper_columns', INTERLOPER_NOTE],
     ['nulls', NULL_NOTE],
+    ...photometricRedshiftEntries(a),
   ];
 }
 
@@ -41,4 +42,15 @@ export function gradeEntries(a: ExportAssumptions): Entry[] {
 /** One statement per column: its meaning and unit. */
 export function columnEntries(columns: readonly ExportColumn[]): Entry[] {
   return columns.map((col) => [`column.${col.name}`, col.unit ? `${col.description} [${col.unit}]` : col.description]);
+}
+
+/** What the z_phot columns assumed, when the export carries computed photometric redshifts. */
+function photometricRedshiftEntries(a: ExportAssumptions): Entry[] {
+  const p = a.photometricRedshift;
+  if (!p) return [];
+  return [
+    ['photometric_redshift_filters', p.filters],
+    ['photometric_redshift_templates', p.templates],
+    ['photometric_redshift_method', p.method],
+  ];
 }

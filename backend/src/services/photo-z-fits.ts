@@ -1,7 +1,7 @@
-import { inArray } from 'drizzle-orm';
+import { eq, inArray } from 'drizzle-orm';
 import type { PhotoZSummary } from '../contracts/targets';
 import type { Db } from '../db/client';
-import { photoZFits, targetPhotometry } from '../db/schema';
+import { photoZFits, targetPhotometry, targets } from '../db/schema';
 import { photoZTemplates } from '../photoz/analyticTemplates';
 import type { FilterCurve } from '../photoz/filterCurve';
 import { DEFAULT_FIT_OPTIONS, fitPhotoZ, fitScratch } from '../photoz/fitPhotoZ';
@@ -155,4 +155,25 @@ export function fitsOf(db: Pick<Db, 'select'>, targetIds: readonly number[]): Ma
     for (const r of db.select().from(photoZFits).where(inArray(photoZFits.targetId, targetIds.slice(i, i + 500))).all()) out.set(r.targetId, r);
   }
   return out;
+}
+
+/**
+ * What a campaign's computed photo-z assumed, for export headers: the filters its fits used (with
+ * how many fits used each set when they differ), the template set and the method. Empty when no
+ * target of the campaign has a fit.
+ */
+export function campaignPhotoZProvenance(db: Pick<Db, 'select'>, campaignId: number): { photometricRedshift?: { filters: string; templates: string; method: string } } {
+  const rows = db
+    .select({ filters: photoZFits.filters, templateSet: photoZFits.templateSet })
+    .from(photoZFits)
+    .innerJoin(targets, eq(targets.id, photoZFits.targetId))
+    .where(eq(targets.campaignId, campaignId))
+    .all();
+  if (rows.length === 0) return {};
+  const sets = new Map<string, number>();
+  for (const r of rows) sets.set(r.filters.join(' '), (sets.get(r.filters.join(' ')) ?? 0) + 1);
+  const filters = sets.size === 1 ? [...sets.keys()][0]! : [...sets].map(([f, n]) => `${f} (${n} targets)`).join('; ');
+  const templates = [...new Set(rows.map((r) => r.templateSet))].join('; ');
+  const method = `chi2 fit of each template with one non-negative amplitude on 0 <= z <= ${PHOTOZ_Z_MAX} (step ${PHOTOZ_STEP} in ln(1+z)), flat prior, errors floored at ${Math.round(DEFAULT_FIT_OPTIONS.errorFloor * 100)} % of the flux; z_phot is the chi2 minimum, z_phot_low/high the equal-tail 68 % interval, z_phot_p_low_z = P(z < ${DEFAULT_FIT_OPTIONS.lowZ})`;
+  return { photometricRedshift: { filters, templates, method } };
 }
