@@ -60,12 +60,14 @@ export function SedPlot({ photometry, synthetic, label }: { photometry: TargetPh
         const cx = x(b.wavelengthEff);
         if (!b.detected) {
           const top = y(Math.max(b.fluxNjy, 0) + LIMIT_SIGMA * b.errNjy);
+          // The arrow points down from the limit, kept inside the plotting area.
+          const tip = Math.min(top + 17, H - PAD.bottom - 1);
           return (
             <g key={b.filter} data-band={b.filter} data-limit="true" className="stroke-ink-900">
               <title>{`${b.filter}: ${b.fluxNjy.toFixed(1)} ± ${b.errNjy.toFixed(1)} nJy (below ${LIMIT_SIGMA}σ: upper limit)`}</title>
               <line x1={cx - 5} x2={cx + 5} y1={top} y2={top} strokeWidth="1.5" />
-              <line x1={cx} x2={cx} y1={top} y2={top + 16} strokeWidth="1.2" />
-              <path d={`M${cx - 3},${top + 12}L${cx},${top + 17}L${cx + 3},${top + 12}`} className="fill-none" strokeWidth="1.2" />
+              <line x1={cx} x2={cx} y1={top} y2={tip} strokeWidth="1.2" />
+              <path d={`M${cx - 3},${tip - 5}L${cx},${tip}L${cx + 3},${tip - 5}`} className="fill-none" strokeWidth="1.2" />
             </g>
           );
         }

@@ -43,6 +43,9 @@ export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campa
               </dd>
             </dl>
           ) : null}
+          {fit?.class === 'star' ? (
+            <p className="text-sm text-warning-700">A star fits these fluxes better than any galaxy template: treat this target as a likely Milky Way dwarf; P(z) below is that of the galaxy templates alone.</p>
+          ) : null}
           <div className="grid grid-cols-1 gap-3 lg:grid-cols-2">
             {fit && p.posterior ? (
               <figure>
