@@ -53,3 +53,25 @@ it('exports the computed photo-z with its 68 % interval and P(z < 2), stating th
   const stats = await observer.get('/api/campaigns/1/statistics');
   expect(stats.body.photoZ.points).toEqual([expect.objectContaining({ zPhot: expect.closeTo(row.zPhot, 3), source: 'computed' })]);
 });
+
+it("checks the spectrum's own synthetic photometry against the catalogue in the bands it covers", async () => {
+  const observer = await t.signIn('observer@demo.test');
+  const list = await observer.get('/api/campaigns/1/targets');
+  const target = list.body.targets.find((x: { catalogueId: string }) => x.catalogueId === 'PHX-0001');
+  const res = await observer.get(`/api/campaigns/1/targets/${target.id}/photometry`);
+  expect(res.status, JSON.stringify(res.body)).toBe(200);
+  expect(res.body.spectra).toEqual([{ id: ids[0], fileName: 'night1/PHX-0001.csv' }]);
+  const [check] = res.body.spectrumPhotometry;
+  // The synthetic file states no flux unit: ratios are relative, fluxes scaled to the catalogue.
+  expect(check).toMatchObject({ spectrumId: ids[0], calibrated: false });
+  const filters = check.bands.map((b: { filter: string }) => b.filter);
+  // 3600–9800 Å covers the ACS bands; nothing redward of 1 µm.
+  expect(filters).toContain('acs_wfc_f606w');
+  expect(filters.some((f: string) => f.startsWith('jwst') || f.startsWith('wfc3_ir'))).toBe(false);
+  for (const b of check.bands) {
+    expect(Number.isFinite(b.ratio)).toBe(true);
+    expect(b.ratioErr).toBeGreaterThan(0);
+  }
+  const scaled = check.bands.map((b: { ratio: number }) => b.ratio / check.medianRatio).sort((a: number, b: number) => a - b);
+  expect(scaled[Math.floor(scaled.length / 2)]).toBeCloseTo(1, 6);
+});

@@ -138,6 +138,21 @@ export const targetPhotometrySchema = z.object({
   assumptions: z.array(z.string()),
   /** The target's spectra, to open from its SED. */
   spectra: z.array(z.object({ id: z.number().int(), fileName: z.string() })),
+  /**
+   * Each spectrum's own synthetic photometry in the catalogue's bands it covers (flux-calibration
+   * and slit-loss check). `calibrated`: the spectrum states a flux unit, so fluxes are nJy and the
+   * ratio is absolute; otherwise fluxes are scaled to the catalogue by the median ratio and only
+   * the ratios between bands mean something.
+   */
+  spectrumPhotometry: z.array(
+    z.object({
+      spectrumId: z.number().int(),
+      fileName: z.string(),
+      calibrated: z.boolean(),
+      medianRatio: z.number().nullable(),
+      bands: z.array(z.object({ filter: z.string(), wavelengthEff: z.number(), fluxNjy: z.number(), errNjy: z.number(), ratio: z.number(), ratioErr: z.number() })),
+    }),
+  ),
 });
 export type TargetPhotometry = z.infer<typeof targetPhotometrySchema>;
 

@@ -5,6 +5,7 @@ import { useTargetPhotometry } from '../api/get-target-photometry';
 import { formatInterval, formatPercent } from './photo-z-words';
 import { PosteriorPlot } from './posterior-plot';
 import { SedPlot } from './sed-plot';
+import { SpectrumPhotometryTable } from './spectrum-photometry-table';
 
 /** One target's computed photometric redshift: summary, P(z), SED with the best templates, assumptions, its spectra. */
 export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campaignId: number; targetId: number; onClose: () => void }) {
@@ -15,6 +16,7 @@ export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campa
   const fit = p.fit;
   const galaxy = p.models.find((m) => m.kind === 'galaxy');
   const star = p.models.find((m) => m.kind === 'star');
+  const check = p.spectrumPhotometry[0];
   return (
     <section aria-label={`Photometry of ${p.catalogueId}`} className="flex flex-col gap-3 rounded-panel border border-paper-300 bg-paper-100 p-3">
       <div className="flex items-baseline justify-between gap-3">
@@ -54,7 +56,7 @@ export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campa
               </figure>
             ) : null}
             <figure>
-              <SedPlot photometry={p} label={`Spectral energy distribution of ${p.catalogueId}: ${p.bands.length} bands, ${p.bands.filter((b) => !b.detected).length} upper limits`} />
+              <SedPlot photometry={p} {...(check ? { synthetic: check.bands } : {})} label={`Spectral energy distribution of ${p.catalogueId}: ${p.bands.length} bands, ${p.bands.filter((b) => !b.detected).length} upper limits`} />
               <figcaption className="text-xs text-ink-600">
                 Points: fluxes ± 1σ; arrows: 2σ upper limits (below 2σ).{' '}
                 {galaxy ? (
@@ -64,12 +66,16 @@ export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campa
                 ) : null}
                 {star ? (
                   <>
-                    Dashed: best star <span className="num">{star.template}</span> (χ² {star.chi2.toFixed(1)}).
+                    Dashed: best star <span className="num">{star.template}</span> (χ² {star.chi2.toFixed(1)}).{' '}
                   </>
                 ) : null}
+                {check ? <>Green diamonds: synthetic photometry of {check.fileName}{check.calibrated ? '' : ' (scaled)'}.</> : null}
               </figcaption>
             </figure>
           </div>
+          {p.spectrumPhotometry.map((c) => (
+            <SpectrumPhotometryTable key={c.spectrumId} check={c} catalogue={p.bands} />
+          ))}
           {p.assumptions.length > 0 ? (
             <details className="text-xs text-ink-700">
               <summary className="cursor-pointer">What the fit assumed</summary>
