@@ -46,9 +46,12 @@ export function getTargetPhotometry(ctx: ServiceContext, campaignId: number, tar
   }));
   const models: TargetPhotometry['models'] = [];
   if (fit) {
-    const grid = modelGridFor(order.map((o) => o.curve));
-    const flux = order.map((o) => o.r.fluxNjy);
-    const err = order.map((o) => o.r.errNjy);
+    // The grid in filter-name order, as the import's fit built it (cached), mapped back to λ order.
+    const byName = [...order].sort((a, b) => (a.r.filter < b.r.filter ? -1 : a.r.filter > b.r.filter ? 1 : 0));
+    const grid = modelGridFor(byName.map((o) => o.curve));
+    const flux = byName.map((o) => o.r.fluxNjy);
+    const err = byName.map((o) => o.r.errNjy);
+    const inLambdaOrder = order.map((o) => byName.indexOf(o));
     const set = photoZTemplates();
     const lo = order[0]!.lam * 0.75;
     const hi = order[order.length - 1]!.lam * 1.3;
@@ -58,7 +61,7 @@ export function getTargetPhotometry(ctx: ServiceContext, campaignId: number, tar
       const curve = observedTemplate(template, set.grid, m.z, m.amplitude, lo, hi);
       models.push({
         kind, template: id, z: Number(m.z.toFixed(4)), chi2: Number(m.chi2.toFixed(3)),
-        bandFluxNjy: Array.from(m.bandFlux, sig),
+        bandFluxNjy: inLambdaOrder.map((k) => sig(m.bandFlux[k]!)),
         curve: { wavelength: Array.from(curve.wavelength, sig), fnuNjy: Array.from(curve.fnu, sig) },
       });
     };
