@@ -1,3 +1,4 @@
+import { useEffect, useRef } from 'react';
 import { Link } from 'react-router-dom';
 import { Loading } from '@/components/ui/loading';
 import { ErrorNotice } from '@/components/ui/notice';
@@ -10,6 +11,12 @@ import { SpectrumPhotometryTable } from './spectrum-photometry-table';
 /** One target's computed photometric redshift: summary, P(z), SED with the best templates, assumptions, its spectra. */
 export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campaignId: number; targetId: number; onClose: () => void }) {
   const photometry = useTargetPhotometry(campaignId, targetId);
+  const section = useRef<HTMLElement>(null);
+  const loaded = photometry.isSuccess;
+  // The panel sits above the table: bring it into view when a target far down the list opens it.
+  useEffect(() => {
+    if (loaded) section.current?.scrollIntoView?.({ block: 'nearest' });
+  }, [loaded, targetId]);
   if (photometry.isPending) return <Loading label="Loading the photometry…" />;
   if (photometry.isError) return <ErrorNotice error={photometry.error} title="The photometry could not be loaded" />;
   const p = photometry.data;
@@ -18,7 +25,7 @@ export function TargetPhotometryPanel({ campaignId, targetId, onClose }: { campa
   const star = p.models.find((m) => m.kind === 'star');
   const check = p.spectrumPhotometry[0];
   return (
-    <section aria-label={`Photometry of ${p.catalogueId}`} className="flex flex-col gap-3 rounded-panel border border-paper-300 bg-paper-100 p-3">
+    <section ref={section} aria-label={`Photometry of ${p.catalogueId}`} className="flex flex-col gap-3 rounded-panel border border-paper-300 bg-paper-100 p-3">
       <div className="flex items-baseline justify-between gap-3">
         <h3 className="text-md font-semibold text-ink-900">Photometry of {p.catalogueId}</h3>
         <button type="button" onClick={onClose} className="text-sm text-ink-600 underline hover:text-ink-900">

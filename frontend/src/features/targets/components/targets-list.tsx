@@ -23,8 +23,8 @@ export function TargetsList({ campaignId }: { campaignId: number }) {
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div className="flex flex-wrap items-end gap-3">
-          <TextField label="Search targets" type="search" value={search} onChange={(e) => setSearch(e.target.value)} fieldClassName="w-full max-w-xs" />
-          <SelectField label="Photometric redshift" value={kind} onChange={(e) => setKind(e.target.value as PhotoZKind)} fieldClassName="w-full max-w-xs">
+          <TextField label="Search targets" type="search" value={search} onChange={(e) => setSearch(e.target.value)} fieldClassName="w-72 max-w-full" />
+          <SelectField label="Photometric redshift" value={kind} onChange={(e) => setKind(e.target.value as PhotoZKind)} fieldClassName="w-96 max-w-full">
             {Object.entries(PHOTO_Z_KINDS).map(([k, label]) => (
               <option key={k} value={k}>
                 {label}
