@@ -23,6 +23,7 @@ import { readingRoutes } from './routes/readings';
 import { releaseRoutes } from './routes/release';
 import { spectrumRoutes } from './routes/spectra';
 import { targetRoutes } from './routes/targets';
+import { filterRoutes } from './routes/filters';
 import { uploadRoutes } from './routes/uploads';
 import type { ServiceContext } from './services/context';
 
@@ -57,6 +58,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     jobRoutes,
     spectrumRoutes,
     targetRoutes,
+    filterRoutes,
     readingRoutes,
     lineListRoutes,
     releaseRoutes,

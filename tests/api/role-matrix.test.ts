@@ -58,6 +58,11 @@ const CASES: Case[] = [
   { method: 'post', route: '/campaigns/:id/targets', url: '/api/campaigns/1/targets', body: () => ({}), expect: leadOnly(400) },
   { method: 'get', route: '/campaigns/:id/spectra', url: '/api/campaigns/1/spectra', expect: signedIn(200) },
   { method: 'get', route: '/campaigns/:id/targets', url: '/api/campaigns/1/targets', expect: signedIn(200) },
+  // No targets in the matrix's campaign: reachable for every viewer, answered with target_not_found.
+  { method: 'get', route: '/campaigns/:id/targets/:targetId/photometry', url: '/api/campaigns/1/targets/1/photometry', expect: signedIn(404) },
+  { method: 'get', route: '/campaigns/:id/filters', url: '/api/campaigns/1/filters', expect: signedIn(200) },
+  // Without a file: reachable for the lead only (400 no_files).
+  { method: 'post', route: '/campaigns/:id/filters', url: '/api/campaigns/1/filters', body: () => ({}), expect: leadOnly(400) },
   { method: 'patch', route: '/spectra/:spectrumId/target', url: '/api/spectra/999/target', body: () => ({ targetId: null }), expect: { ...all(404), anonymous: 401 } },
   { method: 'get', route: '/jobs/:jobId', url: '/api/jobs/1', expect: leadOnly(200) },
   { method: 'get', route: '/jobs/:jobId/files', url: '/api/jobs/1/files', expect: leadOnly(200) },

@@ -22,7 +22,7 @@ const UCD_WORDS: Record<string, string> = {
   'meta.code.qual': 'P', 'meta.code.status': 'P', 'pos.eq.ra': 'Q', 'pos.eq.dec': 'Q',
   'src.redshift': 'Q', 'src.redshift.phot': 'Q', 'stat.error': 'P', 'stat.min': 'S', 'stat.max': 'S',
   'src.class': 'Q', 'spect.line': 'S', 'time.creation': 'Q', 'time.interval': 'Q', 'pos.distance': 'V',
-  'phys.cosmology': 'S', 'stat.fit.chi2': 'P', 'stat.fit.param': 'Q',
+  'phys.cosmology': 'S', 'stat.fit.chi2': 'P', 'stat.fit.param': 'Q', 'stat.probability': 'Q',
   // Same file, commit 0940a341 (read): meta.note "Note or remark", meta.unit "Unit", both P.
   'meta.note': 'P', 'meta.unit': 'P',
 };

@@ -127,6 +127,11 @@ export const confirmedRowSchema = z.object({
   interloperZ: z.number().nullable(),
   interloperDeltaChi2: z.number().nullable(),
   starDeltaChi2: z.number().nullable(),
+  /** Computed from the catalogue fluxes (see the z_phot export columns). */
+  zPhot: z.number().nullable().optional(),
+  zPhotLow: z.number().nullable().optional(),
+  zPhotHigh: z.number().nullable().optional(),
+  zPhotPLowZ: z.number().nullable().optional(),
 });
 export const confirmedPageSchema = z.object({
   rows: z.array(confirmedRowSchema),
@@ -166,7 +171,7 @@ export const campaignStatisticsSchema = z.object({
     n: z.number().int(),
     outlierFraction: z.number().nullable(),
     sigmaNmad: z.number().nullable(),
-    points: z.array(z.object({ spectrumId: z.number().int(), targetId: z.string().nullable(), zSpec: z.number(), zPhot: z.number(), outlier: z.boolean() })),
+    points: z.array(z.object({ spectrumId: z.number().int(), targetId: z.string().nullable(), zSpec: z.number(), zPhot: z.number(), outlier: z.boolean(), source: z.enum(['computed', 'catalogue']).optional() })),
   }),
   gradeDistribution: z.array(z.object({ code: z.string(), label: z.string(), count: z.number().int() })),
   readerPairs: z.array(z.object({ readers: z.tuple([z.string(), z.string()]), n: z.number().int(), agreeFraction: z.number(), kappaOnGrades: z.number().nullable() })),

@@ -405,3 +405,81 @@ export const apiTokens = sqliteTable(
   },
   (t) => [index('api_tokens_user').on(t.userId)],
 );
+
+// ── Photometry: catalogue fluxes and their photometric redshifts ──────────────────────────────
+
+/**
+ * One band of one target as the catalogue gave it, and in nJy for the fit. A non-detection is a
+ * measurement (zero or negative flux with its error; for magnitudes, the limit as given); a band
+ * not observed has no row.
+ */
+export const targetPhotometry = sqliteTable(
+  'target_photometry',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    targetId: integer('target_id').notNull().references(() => targets.id),
+    /** A shipped filter's file stem or the name of one of the campaign's own curves. */
+    filter: text('filter').notNull(),
+    fluxNjy: real('flux_njy').notNull(),
+    errNjy: real('err_njy').notNull(),
+    /** The cells as the catalogue wrote them, and their unit: 'nJy', 'uJy' or 'ABmag'. */
+    givenValue: real('given_value').notNull(),
+    givenError: real('given_error').notNull(),
+    unit: text('unit').notNull(),
+  },
+  (t) => [uniqueIndex('target_photometry_band').on(t.targetId, t.filter)],
+);
+
+/** A campaign's own filter curve (two-column text, validated by parseFilterCurve). Names are never reused. */
+export const campaignFilters = sqliteTable(
+  'campaign_filters',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    campaignId: integer('campaign_id').notNull().references(() => campaigns.id),
+    name: text('name').notNull(),
+    curveText: text('curve_text').notNull(),
+    createdBy: integer('created_by').references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex('campaign_filters_name').on(t.campaignId, t.name)],
+);
+
+/** The column mapping of a campaign's last accepted catalogue import, proposed again next time. */
+export const catalogueMappings = sqliteTable('catalogue_mappings', {
+  campaignId: integer('campaign_id').primaryKey().references(() => campaigns.id),
+  mapping: text('mapping', { mode: 'json' }).$type<Record<string, unknown>>().notNull(),
+  updatedAt: text('updated_at').notNull().default(now),
+});
+
+/**
+ * A target's photometric redshift computed from its catalogue fluxes; recomputed (replaced) when
+ * its photometry changes. P(z) is float32 on the fit's redshift grid (see services/photo-z-fits.ts).
+ */
+export const photoZFits = sqliteTable(
+  'photo_z_fits',
+  {
+    id: integer('id').primaryKey({ autoIncrement: true }),
+    targetId: integer('target_id').notNull().references(() => targets.id),
+    z: real('z').notNull(),
+    z68Low: real('z68_low').notNull(),
+    z68High: real('z68_high').notNull(),
+    z95Low: real('z95_low').notNull(),
+    z95High: real('z95_high').notNull(),
+    pLowZ: real('p_low_z').notNull(),
+    /** 'galaxy' or 'star': whichever of the best galaxy and the best star has the lower χ². */
+    fitClass: text('fit_class').notNull(),
+    starChi2: real('star_chi2').notNull(),
+    galaxyChi2: real('galaxy_chi2').notNull(),
+    galaxyTemplate: text('galaxy_template').notNull(),
+    starTemplate: text('star_template'),
+    /** The bands that carried a measurement, in fit order. */
+    filters: text('filters', { mode: 'json' }).$type<string[]>().notNull(),
+    /** Template set and redshift grid the fit used, so a stored P(z) can be read back and stated in exports. */
+    templateSet: text('template_set').notNull(),
+    gridZMax: real('grid_z_max').notNull(),
+    gridStep: real('grid_step').notNull(),
+    posterior: blob('posterior', { mode: 'buffer' }).notNull(),
+    computedAt: text('computed_at').notNull(),
+  },
+  (t) => [uniqueIndex('photo_z_fits_target').on(t.targetId)],
+);

@@ -18,7 +18,7 @@ export interface DemoTarget {
 }
 
 /** Seeded PRNG (mulberry32) so the demo is the same on every machine. */
-function seeded(seed: number) {
+export function seeded(seed: number) {
   let a = seed >>> 0;
   const next = () => {
     a = (a + 0x6d2b79f5) >>> 0;
@@ -106,12 +106,17 @@ export const TIDEWATER_TARGETS = build({ ra: 214.3021, dec: 8.7142 }, 77, [
   { count: 5, id: (i) => `TDF-${String(i + 401).padStart(4, '0')}`, truth: null, priority: 3, mag: [26.5, 27.5], instrument: 'demo-grism' },
 ]);
 
-/** The catalogue file a lead of each demo campaign would upload. */
-export function demoCatalogueCsv(targets: readonly DemoTarget[]): string {
-  const lines = ['id,ra,dec,mag,zphot,zphot_l68,zphot_u68,family,priority'];
-  for (const t of targets) {
+/**
+ * The catalogue file a lead of each demo campaign would upload; with `photometry`, also each
+ * target's band fluxes as `flux_<filter>` and `err_<filter>` columns in nJy.
+ */
+export function demoCatalogueCsv(targets: readonly DemoTarget[], photometry?: { filters: readonly string[]; fluxes: ReadonlyArray<{ flux: number[]; err: number[] }> }): string {
+  const bandHeader = photometry ? photometry.filters.flatMap((f) => [`flux_${f}`, `err_${f}`]) : [];
+  const lines = [['id,ra,dec,mag,zphot,zphot_l68,zphot_u68,family,priority', ...bandHeader].join(',')];
+  targets.forEach((t, i) => {
     const width = 0.08 * (1 + t.photoZ);
-    lines.push([t.id, t.ra, t.dec, t.mag, t.photoZ, round(Math.max(0, t.photoZ - width), 3), round(t.photoZ + width, 3), t.family ?? '', t.priority].join(','));
-  }
+    const bands = photometry ? photometry.filters.flatMap((_, b) => [photometry.fluxes[i]!.flux[b], photometry.fluxes[i]!.err[b]]) : [];
+    lines.push([t.id, t.ra, t.dec, t.mag, t.photoZ, round(Math.max(0, t.photoZ - width), 3), round(t.photoZ + width, 3), t.family ?? '', t.priority, ...bands].join(','));
+  });
   return lines.join('\n') + '\n';
 }

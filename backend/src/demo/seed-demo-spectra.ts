@@ -2,6 +2,8 @@ import { writeFileSync } from 'node:fs';
 import { generateSyntheticSpectrum } from '../spectra/generateSyntheticSpectrum';
 import type { Actor, ServiceContext } from '../services/context';
 import { importCatalogue } from '../services/import-catalogue';
+import { filterCurves } from '../services/photo-z-filters';
+import { DEMO_BANDS, demoFluxes } from './demo-photometry';
 import { receiveUpload } from '../services/receive-upload';
 import { demoCatalogueCsv, type DemoTarget } from './demo-scenario';
 import { spectrumToCsv } from './spectrum-files';
@@ -9,7 +11,8 @@ import { spectrumToCsv } from './spectrum-files';
 const RANGES: Record<string, [number, number]> = { 'demo-slit': [3600, 9800], 'demo-grism': [5500, 10000] };
 
 /**
- * Gives a demo campaign its catalogue and spectra through the same paths a lead uses: the
+ * Gives a demo campaign its catalogue (with invented HST + JWST fluxes, so photometric
+ * redshifts are computed on import) and spectra through the same paths a lead uses: the
  * catalogue import, then an upload whose ingest job the runner scans in the background and
  * assigns to the two readers.
  */
@@ -21,7 +24,9 @@ export async function seedDemoSpectra(
   seed: number,
   readers: { first: number; second: number },
 ): Promise<number> {
-  importCatalogue(ctx, lead, campaignId, demoCatalogueCsv(targets), undefined, false);
+  const filters = DEMO_BANDS.map((b) => b.filter);
+  const fluxes = demoFluxes(targets, filterCurves(ctx.db, campaignId, filters), seed);
+  importCatalogue(ctx, lead, campaignId, demoCatalogueCsv(targets, { filters, fluxes }), undefined, false);
   const files = targets.map((t, i) => {
     const [wavelengthMin, wavelengthMax] = RANGES[t.instrument] ?? [3600, 9800];
     const truth = t.truth ?? { class: 'galaxy' as const, template: 'galaxy-emission', z: 1, snr: 0.15 };

@@ -39,6 +39,7 @@ export function assumptionEntries(a: ExportAssumptions): Entry[] {
     ['lines_measured', LINES_NOTE],
     ['lya_caveat', LYA_NOTE],
     ['nulls', NULL_NOTE],
+    ...photometricRedshiftEntries(a),
   ];
 }
 
@@ -50,4 +51,15 @@ export function gradeEntries(a: ExportAssumptions): Entry[] {
 /** One statement per column: its meaning and unit. */
 export function columnEntries(columns: readonly ExportColumn[]): Entry[] {
   return columns.map((col) => [`column.${col.name}`, col.unit ? `${col.description} [${col.unit}]` : col.description]);
+}
+
+/** What the z_phot columns assumed, when the export carries computed photometric redshifts. */
+function photometricRedshiftEntries(a: ExportAssumptions): Entry[] {
+  const p = a.photometricRedshift;
+  if (!p) return [];
+  return [
+    ['photometric_redshift_filters', p.filters],
+    ['photometric_redshift_templates', p.templates],
+    ['photometric_redshift_method', p.method],
+  ];
 }

@@ -59,6 +59,10 @@ export function buildExportTable(rows: readonly ConfirmedRow[], assumptions: Exp
       r.interloperZ,
       r.interloperDeltaChi2,
       r.starDeltaChi2,
+      r.zPhot ?? null,
+      r.zPhotLow ?? null,
+      r.zPhotHigh ?? null,
+      r.zPhotPLowZ ?? null,
     ];
   });
   return { columns: CONFIRMED_COLUMNS, cells };

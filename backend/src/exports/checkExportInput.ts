@@ -39,7 +39,7 @@ function checkRow(r: ConfirmedRow): void {
   if (!GRADE_CODE.test(r.gradeCode)) throw new RangeError(`${at}: grade code '${r.gradeCode}' is not a word without spaces.`);
   if (r.supersedes !== null && !Number.isSafeInteger(r.supersedes)) throw new RangeError(`${at}: supersedes must be an integer or null, got ${r.supersedes}.`);
   if (!Number.isFinite(r.z)) throw new RangeError(`${at}: z must be a finite number, got ${r.z}.`);
-  const optional = { ra: r.ra, dec: r.dec, zErr: r.zErr, zErrFloor: r.zErrFloor, photoZ: r.photoZ, photoZLow: r.photoZLow, photoZHigh: r.photoZHigh, interloperZ: r.interloperZ, interloperDeltaChi2: r.interloperDeltaChi2, starDeltaChi2: r.starDeltaChi2 };
+  const optional = { ra: r.ra, dec: r.dec, zErr: r.zErr, zErrFloor: r.zErrFloor, photoZ: r.photoZ, photoZLow: r.photoZLow, photoZHigh: r.photoZHigh, interloperZ: r.interloperZ, interloperDeltaChi2: r.interloperDeltaChi2, starDeltaChi2: r.starDeltaChi2, zPhot: r.zPhot ?? null, zPhotLow: r.zPhotLow ?? null, zPhotHigh: r.zPhotHigh ?? null, zPhotPLowZ: r.zPhotPLowZ ?? null };
   for (const [name, v] of Object.entries(optional)) {
     if (v !== null && !Number.isFinite(v)) throw new RangeError(`${at}: ${name} must be a finite number or null, got ${v}.`);
   }

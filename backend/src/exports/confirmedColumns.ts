@@ -84,4 +84,8 @@ export const CONFIRMED_COLUMNS: readonly ExportColumn[] = [
     ucd: 'stat.fit.chi2',
     description: 'Lyman-break records: smallest chi2 of a cool-star, brown-dwarf or carbon-star template at z = 0 minus chi2 of the Lyman break',
   },
+  { name: 'z_phot', kind: 'double', ucd: 'src.redshift.phot', description: 'Photometric redshift computed by Redward from the catalogue fluxes (best z)' },
+  { name: 'z_phot_low', kind: 'double', ucd: 'src.redshift.phot;stat.min', description: 'Lower end of the 68% interval of the computed P(z)' },
+  { name: 'z_phot_high', kind: 'double', ucd: 'src.redshift.phot;stat.max', description: 'Upper end of the 68% interval of the computed P(z)' },
+  { name: 'z_phot_p_low_z', kind: 'double', ucd: 'stat.probability', description: 'Probability that z < 2 under the computed P(z) (low-redshift interloper odds)' },
 ];

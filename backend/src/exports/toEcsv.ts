@@ -43,6 +43,7 @@ export function toEcsv(rows: readonly ConfirmedRow[], assumptions: ExportAssumpt
     `  lines_measured: ${yamlString(LINES_NOTE)}`,
     `  lya_caveat: ${yamlString(LYA_NOTE)}`,
     `  nulls: ${yamlString(NULL_NOTE)}`,
+    ...(a.photometricRedshift ? [`  photometric_redshift: {filters: ${yamlString(a.photometricRedshift.filters)}, templates: ${yamlString(a.photometricRedshift.templates)}, method: ${yamlString(a.photometricRedshift.method)}}`] : []),
     'schema: astropy-2.0',
   ];
   const header = yaml.map((line) => `# ${line}\n`).join('');

@@ -81,6 +81,7 @@ function tableHeader(layouts: Layout[], rowWidth: number, rows: number, a: Expor
     ...commentaryCards('COMMENT', `Lines: ${LINES_NOTE}.`),
     ...commentaryCards('COMMENT', `Caveat: ${LYA_NOTE}.`),
     ...commentaryCards('COMMENT', `Nulls: NaN in D columns, TNULLn in K and J columns, a leading NUL in A columns; ${NULL_NOTE}.`),
+    ...(a.photometricRedshift ? commentaryCards('COMMENT', `z_phot columns: filters ${a.photometricRedshift.filters}; ${a.photometricRedshift.templates}; ${a.photometricRedshift.method}.`) : []),
     ...commentaryCards('COMMENT', "Text is ASCII: accents dropped (NFKD), tabs and line breaks become spaces, other characters '?'."),
   );
   return cards;

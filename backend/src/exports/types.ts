@@ -58,6 +58,14 @@ export interface ConfirmedRow {
   interloperZ: number | null;
   interloperDeltaChi2: number | null;
   starDeltaChi2: number | null;
+  /**
+   * The target's photometric redshift computed from its catalogue fluxes (not the catalogue's
+   * typed photo_z): best z, 68 % interval, P(z < 2). Absent or null when it has no photometry.
+   */
+  zPhot?: number | null;
+  zPhotLow?: number | null;
+  zPhotHigh?: number | null;
+  zPhotPLowZ?: number | null;
   /** Id of this confirmed record. */
   id: number;
 }
@@ -74,6 +82,8 @@ export interface ExportAssumptions {
   exportedAt: string;
   /** e.g. "Redward 0.1.0 / redward-engine/0.2.0". */
   software: string;
+  /** How the z_phot columns were computed: the filter set(s) and the template set, in words. */
+  photometricRedshift?: { filters: string; templates: string; method: string };
 }
 
 /** A member of an image family that has no confirmed redshift yet. */

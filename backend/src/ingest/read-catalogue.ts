@@ -1,6 +1,7 @@
 import Papa from 'papaparse';
 import type { CatalogueRowError, ColumnMapping, TargetField } from '../contracts/targets';
 import { parseDec, parseRa } from './parse-coordinates';
+import { guessBandMapping, readBandFluxes, type BandFlux } from './read-band-fluxes';
 
 export interface CatalogueTarget {
   catalogueId: string;
@@ -13,6 +14,8 @@ export interface CatalogueTarget {
   imageFamily: string | null;
   priority: number | null;
   extra: Record<string, string>;
+  /** Band fluxes by the mapping's `bands` (empty when it has none). */
+  photometry: BandFlux[];
 }
 
 // Column names catalogues commonly use for each field (lower case, punctuation removed).
@@ -31,9 +34,10 @@ const GUESSES: Record<TargetField, string[]> = {
 const squash = (s: string) => s.toLowerCase().replace(/[^a-z0-9]/g, '');
 
 /** Proposes a mapping from column names; the person confirms or corrects it in the UI. */
-export function guessMapping(columns: string[]): ColumnMapping | null {
-  const mapping: Partial<Record<TargetField, string>> = {};
-  const taken = new Set<string>();
+export function guessMapping(columns: string[], knownFilters: readonly string[] = []): ColumnMapping | null {
+  const mapping: Partial<Record<TargetField, string>> & Pick<ColumnMapping, 'bands'> = {};
+  const bands = guessBandMapping(columns, knownFilters);
+  const taken = new Set<string>(bands.flatMap((b) => [b.flux, b.err]));
   for (const field of Object.keys(GUESSES) as TargetField[]) {
     const column = columns.find((c) => !taken.has(c) && GUESSES[field].includes(squash(c)));
     if (column) {
@@ -46,6 +50,7 @@ export function guessMapping(columns: string[]): ColumnMapping | null {
     delete mapping.ra;
     delete mapping.dec;
   }
+  if (bands.length > 0) mapping.bands = bands;
   return mapping as ColumnMapping;
 }
 
@@ -74,23 +79,37 @@ const MAX_ERRORS = 200;
 
 /**
  * Turns catalogue rows into targets by the mapping, checking each row. Errors name the line as
- * the file shows it (header = line 1). Columns not mapped are kept as extra.
+ * the file shows it (header = line 1). Columns not mapped are kept as extra. Band filters must be
+ * in `knownFilters` when it is given.
  */
-export function readCatalogueRows(parsed: ParsedCatalogue, mapping: ColumnMapping): { targets: CatalogueTarget[]; errors: CatalogueRowError[] } {
+export function readCatalogueRows(
+  parsed: ParsedCatalogue,
+  mapping: ColumnMapping,
+  knownFilters?: ReadonlySet<string>,
+): { targets: CatalogueTarget[]; errors: CatalogueRowError[] } {
   const errors: CatalogueRowError[] = [...parsed.errors];
-  for (const [field, column] of Object.entries(mapping)) {
+  const { bands = [], ...fields } = mapping;
+  for (const [field, column] of Object.entries(fields)) {
     if (!parsed.columns.includes(column)) errors.push({ line: 1, column, message: `The catalogue has no column "${column}" (mapped to ${field}).` });
+  }
+  for (const band of bands) {
+    for (const column of [band.flux, band.err]) {
+      if (!parsed.columns.includes(column)) errors.push({ line: 1, column, message: `The catalogue has no column "${column}" (mapped to the ${band.filter} band).` });
+    }
+    if (knownFilters && !knownFilters.has(band.filter)) {
+      errors.push({ line: 1, column: band.flux, message: `"${band.filter}" is neither a shipped filter nor one of this campaign's own curves.` });
+    }
   }
   if (errors.length > 0) return { targets: [], errors };
 
-  const mapped = new Set(Object.values(mapping));
+  const mapped = new Set([...Object.values(fields), ...bands.flatMap((b) => [b.flux, b.err])]);
   const seen = new Map<string, number>();
   const out: CatalogueTarget[] = [];
   parsed.records.forEach((record, index) => {
     if (errors.length >= MAX_ERRORS) return;
     const line = index + 2;
     const fail = (column: string | undefined, message: string) => errors.push({ line, column: column ?? null, message });
-    const cell = (field: TargetField) => (mapping[field] === undefined ? '' : (record[mapping[field]!] ?? '').trim());
+    const cell = (field: TargetField) => (fields[field] === undefined ? '' : (record[fields[field]!] ?? '').trim());
     const number = (field: TargetField, check?: (v: number) => string | null): number | null => {
       const raw = cell(field);
       if (raw === '' || /^(nan|null|none|-|--|n\/a)$/i.test(raw)) return null;
@@ -145,6 +164,7 @@ export function readCatalogueRows(parsed: ParsedCatalogue, mapping: ColumnMappin
       imageFamily: cell('imageFamily') || null,
       priority,
       extra,
+      photometry: readBandFluxes(record, bands, (column, message) => fail(column, message)),
     });
   });
   return { targets: out, errors };

@@ -1,7 +1,7 @@
 import { readFileSync, rmSync } from 'node:fs';
 import { Router } from 'express';
 import { z } from 'zod';
-import { catalogueImportResultSchema, columnMappingSchema, targetListSchema, targetsQuerySchema } from '../contracts/targets';
+import { catalogueImportResultSchema, columnMappingSchema, targetListSchema, targetPhotometrySchema, targetsQuerySchema } from '../contracts/targets';
 import { access } from '../http/access';
 import { defineRoute } from '../http/define-route';
 import { AppError, badRequest } from '../http/errors';
@@ -9,6 +9,7 @@ import { receiveFiles } from '../http/receive-files';
 import type { ServiceContext } from '../services/context';
 import { importCatalogue } from '../services/import-catalogue';
 import { listTargets } from '../services/list-targets';
+import { getTargetPhotometry } from '../services/target-photometry';
 import { validationError } from '../http/validation-error';
 
 const MAX_CATALOGUE_BYTES = 50 * 1024 * 1024;
@@ -62,6 +63,18 @@ export function targetRoutes(ctx: ServiceContext): Router {
     query: targetsQuerySchema,
     response: targetListSchema,
     handle: ({ campaign, query }) => ({ targets: listTargets(ctx, campaign!.id, query.q) }),
+  });
+
+  defineRoute(ctx, router, {
+    method: 'get',
+    path: '/campaigns/:id/targets/:targetId/photometry',
+    access: access.campaignViewer,
+    response: targetPhotometrySchema,
+    handle: ({ req, campaign }) => {
+      const targetId = Number(req.params.targetId);
+      if (!Number.isSafeInteger(targetId) || targetId <= 0) throw badRequest('The target id must be a positive whole number.', 'invalid_target_id');
+      return getTargetPhotometry(ctx, campaign!.id, targetId);
+    },
   });
 
   return router;

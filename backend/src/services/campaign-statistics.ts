@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import { campaigns, confirmedRedshifts, readings, spectra, targets, users } from '../db/schema';
+import { campaigns, confirmedRedshifts, photoZFits, readings, spectra, targets, users } from '../db/schema';
 import { cohensKappa } from '../release/cohens-kappa';
 import { compareReadings } from '../release/compare-readings';
 import { PHOTO_Z_OUTLIER, photoZQuality } from '../release/photo-z-quality';
@@ -20,14 +20,18 @@ const median = (v: number[]) => {
 export function campaignStatistics(ctx: ServiceContext, campaignId: number) {
   const campaign = ctx.db.select().from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
   const confirmed = ctx.db
-    .select({ spectrumId: spectra.id, targetId: targets.catalogueId, z: confirmedRedshifts.z, grade: confirmedRedshifts.grade, photoZ: targets.photoZ })
+    .select({ spectrumId: spectra.id, targetId: targets.catalogueId, z: confirmedRedshifts.z, grade: confirmedRedshifts.grade, typedPhotoZ: targets.photoZ, computedPhotoZ: photoZFits.z })
     .from(confirmedRedshifts)
     .innerJoin(spectra, eq(spectra.id, confirmedRedshifts.spectrumId))
     .leftJoin(targets, eq(targets.id, spectra.targetId))
+    .leftJoin(photoZFits, eq(photoZFits.targetId, targets.id))
     .where(and(eq(spectra.campaignId, campaignId), eq(confirmedRedshifts.isCurrent, true)))
     .all();
 
-  const withPhotoZ = confirmed.filter((c) => c.photoZ !== null);
+  // The photo-z computed from the catalogue fluxes where there is one, else the catalogue's typed value.
+  const withPhotoZ = confirmed
+    .map((c) => ({ ...c, photoZ: c.computedPhotoZ ?? c.typedPhotoZ, source: c.computedPhotoZ !== null ? ('computed' as const) : ('catalogue' as const) }))
+    .filter((c) => c.photoZ !== null);
   const quality = photoZQuality(withPhotoZ.map((c) => ({ zSpec: c.z, zPhot: c.photoZ! })));
   const outlierSet = new Set(quality.outliers);
 
@@ -65,7 +69,7 @@ export function campaignStatistics(ctx: ServiceContext, campaignId: number) {
       n: quality.n,
       outlierFraction: quality.outlierFraction,
       sigmaNmad: quality.sigmaNmad,
-      points: withPhotoZ.map((c, i) => ({ spectrumId: c.spectrumId, targetId: c.targetId, zSpec: c.z, zPhot: c.photoZ!, outlier: outlierSet.has(i) })),
+      points: withPhotoZ.map((c, i) => ({ spectrumId: c.spectrumId, targetId: c.targetId, zSpec: c.z, zPhot: c.photoZ!, outlier: outlierSet.has(i), source: c.source })),
     },
     gradeDistribution,
     readerPairs: [...pairs.values()].map((p) => ({

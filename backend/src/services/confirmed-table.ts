@@ -2,9 +2,10 @@ import { and, asc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { ConfirmedPage, confirmedQuerySchema } from '../contracts/release';
 import { qualified } from '../db/qualified';
-import { campaigns, confirmedRedshifts, disagreements, readings, scanResults, spectra, targets, users } from '../db/schema';
+import { campaigns, confirmedRedshifts, disagreements, photoZFits, readings, scanResults, spectra, targets, users } from '../db/schema';
 import type { Solution } from '../contracts/spectra';
 import type { ConfirmedRow, ExportAssumptions } from '../exports';
+import { campaignPhotoZProvenance, fitsOf } from './photo-z-fits';
 import { PLANCK18 } from '../spectra/flatLcdm';
 import { ENGINE_VERSION } from '../spectra/version';
 import type { StoredLineMeasurements } from '../contracts/line-measurements';
@@ -61,6 +62,7 @@ export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Fi
           .map((r) => [r.spectrumId, r.solutions as Solution[]])
       : [],
   );
+  const fits = fitsOf(ctx.db, found.flatMap(({ t }) => (t ? [t.id] : [])));
   return {
     total,
     rows: found.map(({ c, s, t }) => ({
@@ -87,6 +89,7 @@ export function confirmedRows(ctx: ServiceContext, campaignId: number, query: Fi
       confirmedAt: c.createdAt,
       supersedes: c.supersedesId,
       ...interloperColumns(c.spectrumClass, c.z, solutionsOf.get(s.id) ?? []),
+      ...computedPhotoZ(t ? fits.get(t.id) : undefined),
     })),
   };
 }
@@ -102,6 +105,13 @@ function lineColumns(stored: StoredLineMeasurements | null): Pick<ConfirmedRow, 
     lineFluxUnit: stored.fluxUnit,
     zErrFloor: stored.zErrFloor,
   };
+}
+
+/** The computed photo-z columns of a target's fit (null without photometry). */
+function computedPhotoZ(fit: typeof photoZFits.$inferSelect | undefined): Pick<ConfirmedRow, 'zPhot' | 'zPhotLow' | 'zPhotHigh' | 'zPhotPLowZ'> {
+  if (!fit) return { zPhot: null, zPhotLow: null, zPhotHigh: null, zPhotPLowZ: null };
+  const r4 = (v: number) => Number(v.toFixed(4));
+  return { zPhot: r4(fit.z), zPhotLow: r4(fit.z68Low), zPhotHigh: r4(fit.z68High), zPhotPLowZ: r4(fit.pLowZ) };
 }
 
 /** Tolerance in |Δz|/(1 + z) within which a scanned Lyman-break solution is the confirmed value's. */
@@ -150,6 +160,7 @@ export function exportAssumptions(ctx: ServiceContext, campaignId: number): Expo
     gradeScheme: c.gradeScheme,
     exportedAt: ctx.now().toISOString(),
     software: `Redward ${ctx.config.version} / ${ENGINE_VERSION}`,
+    ...campaignPhotoZProvenance(ctx.db, campaignId),
   };
 }
 

@@ -1,17 +1,31 @@
-import { and, eq, isNull, sql } from 'drizzle-orm';
-import type { CatalogueImportResult, ColumnMapping } from '../contracts/targets';
-import { spectra, targets } from '../db/schema';
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { columnMappingSchema, type CatalogueImportResult, type ColumnMapping } from '../contracts/targets';
+import { catalogueMappings, spectra, targetPhotometry, targets } from '../db/schema';
 import { AppError } from '../http/errors';
 import { linkTarget } from '../ingest/link-target';
 import { guessMapping, parseCatalogueText, readCatalogueRows } from '../ingest/read-catalogue';
 import type { Actor, ServiceContext } from './context';
+import { knownFilterNames } from './photo-z-filters';
+import { refitPhotoZ } from './photo-z-fits';
 import { recordAudit } from './record-audit';
+
+/** The campaign's remembered mapping, when every column it names is in this catalogue. */
+function rememberedMapping(ctx: ServiceContext, campaignId: number, columns: string[]): ColumnMapping | null {
+  const row = ctx.db.select({ mapping: catalogueMappings.mapping }).from(catalogueMappings).where(eq(catalogueMappings.campaignId, campaignId)).get();
+  const parsed = row ? columnMappingSchema.safeParse(row.mapping) : null;
+  if (!parsed?.success) return null;
+  const { bands = [], ...fields } = parsed.data;
+  const named = [...Object.values(fields), ...bands.flatMap((b) => [b.flux, b.err])];
+  return named.every((c) => columns.includes(c)) ? parsed.data : null;
+}
 
 /**
  * Imports a target catalogue. Without a mapping (or with `dryRun`) it only reports the columns,
  * the proposed mapping and the row errors, for the mapping step. With a valid mapping it
  * creates or updates targets by catalogue id — all rows or none — and links spectra that had no
- * target yet. Targets are updated in place, so readings on their spectra are untouched.
+ * target yet. Targets are updated in place, so readings on their spectra are untouched. Band
+ * fluxes in the mapping replace those targets' photometry and their photometric redshifts are
+ * computed in the same transaction; the mapping is remembered for the campaign's next import.
  */
 export function importCatalogue(
   ctx: ServiceContext,
@@ -25,12 +39,13 @@ export function importCatalogue(
   if (parsed.columns.length === 0) {
     throw new AppError(400, 'catalogue_empty', 'The catalogue has no header line with column names.');
   }
-  const used = mapping ?? guessMapping(parsed.columns);
-  const base = { columns: parsed.columns, mapping: used, rows: parsed.records.length, created: 0, updated: 0, linked: 0 };
+  const known = knownFilterNames(ctx.db, campaignId);
+  const used = mapping ?? rememberedMapping(ctx, campaignId, parsed.columns) ?? guessMapping(parsed.columns, known);
+  const base = { columns: parsed.columns, mapping: used, rows: parsed.records.length, created: 0, updated: 0, linked: 0, photoZFits: 0 };
   if (!used) {
     return { ...base, dryRun: true, errors: [{ line: 1, column: null, message: 'No column looks like a catalogue id; choose one.' }] };
   }
-  const { targets: rows, errors } = readCatalogueRows(parsed, used);
+  const { targets: rows, errors } = readCatalogueRows(parsed, used, new Set(known));
   if (dryRun || errors.length > 0) return { ...base, dryRun: true, errors };
 
   return ctx.db.transaction((tx) => {
@@ -38,7 +53,7 @@ export function importCatalogue(
       tx.select({ id: targets.catalogueId }).from(targets).where(eq(targets.campaignId, campaignId)).all().map((r) => r.id),
     );
     const now = ctx.now().toISOString();
-    for (const row of rows) {
+    for (const { photometry: _, ...row } of rows) {
       const values = { ...row, campaignId, updatedAt: now };
       tx.insert(targets)
         .values(values)
@@ -62,6 +77,19 @@ export function importCatalogue(
     const created = rows.filter((r) => !existing.has(r.catalogueId)).length;
 
     const all = tx.select({ id: targets.id, catalogueId: targets.catalogueId, ra: targets.ra, dec: targets.dec }).from(targets).where(eq(targets.campaignId, campaignId)).all();
+    let photoZFits = 0;
+    if ((used.bands ?? []).length > 0) {
+      const idOf = new Map(all.map((t) => [t.catalogueId, t.id]));
+      const ids = rows.map((r) => idOf.get(r.catalogueId)!);
+      for (let i = 0; i < ids.length; i += 500) tx.delete(targetPhotometry).where(inArray(targetPhotometry.targetId, ids.slice(i, i + 500))).run();
+      const bands = rows.flatMap((r, i) => r.photometry.map((b) => ({ ...b, targetId: ids[i]! })));
+      for (let i = 0; i < bands.length; i += 500) tx.insert(targetPhotometry).values(bands.slice(i, i + 500)).run();
+      photoZFits = refitPhotoZ(tx, campaignId, ids, now);
+    }
+    tx.insert(catalogueMappings)
+      .values({ campaignId, mapping: used, updatedAt: now })
+      .onConflictDoUpdate({ target: catalogueMappings.campaignId, set: { mapping: used, updatedAt: now } })
+      .run();
     const unlinked = tx
       .select({ id: spectra.id, fileName: spectra.fileName, objectName: spectra.objectName, ra: spectra.ra, dec: spectra.dec })
       .from(spectra)
@@ -80,8 +108,8 @@ export function importCatalogue(
       subjectType: 'campaign',
       subjectId: campaignId,
       campaignId,
-      after: { rows: rows.length, created, updated: rows.length - created, linked, mapping: used },
+      after: { rows: rows.length, created, updated: rows.length - created, linked, photoZFits, mapping: used },
     });
-    return { ...base, dryRun: false, created, updated: rows.length - created, linked, errors: [] };
+    return { ...base, dryRun: false, created, updated: rows.length - created, linked, photoZFits, errors: [] };
   });
 }

@@ -5,6 +5,7 @@ import type { Scan, SpectrumDetail } from '../contracts/spectra';
 import { preparedQuery } from '../db/prepared';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
 import type { Actor, ServiceContext } from './context';
+import { fitsOf, photoZSummaryOf } from './photo-z-fits';
 import { toReadingView } from './submit-reading';
 
 // The inspection screen asks for a detail on every spectrum it opens: its reads are prepared once.
@@ -97,6 +98,7 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
       photoZHigh: target.photoZHigh,
       imageFamily: target.imageFamily,
       priority: target.priority,
+      photoZFit: photoZFitOf(ctx, target.id),
     },
     family: family.map((m) => ({ ...m, readings: familyReadings.filter((r) => r.spectrumId === m.spectrumId) })),
     scan: scan
@@ -151,4 +153,9 @@ function withoutUnknownReason(meta: unknown): unknown {
   if (meta === null || typeof meta !== 'object' || !('unknownReason' in meta)) return meta;
   const { unknownReason: _reason, ...rest } = meta as Record<string, unknown>;
   return rest;
+}
+
+function photoZFitOf(ctx: ServiceContext, targetId: number) {
+  const fit = fitsOf(ctx.db, [targetId]).get(targetId);
+  return fit ? photoZSummaryOf(fit) : null;
 }

@@ -20,7 +20,8 @@ export function ReleasePictures({ campaignId, scheme }: { campaignId: number; sc
         <p className="text-sm text-ink-500">Nothing confirmed yet, so nothing to draw.</p>
       ) : (
         <div className="grid grid-cols-1 gap-5 lg:grid-cols-2">
-          <PhotoZScatter rows={all.data} />
+          {/* The photo-z computed from the catalogue fluxes where there is one, else the catalogue's own. */}
+          <PhotoZScatter rows={all.data.map((r) => ({ z: r.z, photoZ: r.zPhot ?? r.photoZ }))} />
           <GradeDistribution rows={all.data} scheme={scheme} />
           <ReaderAgreement campaignId={campaignId} />
         </div>

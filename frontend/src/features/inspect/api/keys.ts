@@ -6,5 +6,7 @@ export const inspectKeys = {
   detail: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'detail'] as const,
   curves: (spectrumId: number) => [...inspectKeys.spectrum(spectrumId), 'curves'] as const,
   lines: (spectrumId: number, z: number, cls: string) => [...inspectKeys.spectrum(spectrumId), 'lines', z, cls] as const,
+  /** A target's computed P(z), drawn on the χ² strip. */
+  photoZ: (campaignId: number, targetId: number) => [...inspectKeys.all(), 'photo-z', campaignId, targetId] as const,
   model: (spectrumId: number, scanId: number, rank: number) => [...inspectKeys.spectrum(spectrumId), 'model', scanId, rank] as const,
 };

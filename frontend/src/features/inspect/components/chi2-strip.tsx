@@ -21,11 +21,13 @@ const RANK_GAP_PX = 14;
  * The strip is built once and kept across spectra (new curves arrive through setData; only a
  * different set of classes rebuilds it); the cursor is moved by the compositor, once per frame.
  */
-export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; solutions: Solution[]; store: TrialZStore }) {
+export function Chi2Strip({ data, solutions, store, onDraw }: { data: Chi2StripData; solutions: Solution[]; store: TrialZStore; onDraw?: ((u: uPlot) => void) | undefined }) {
   const host = useRef<HTMLDivElement>(null);
-  const live = useRef({ solutions, store, data });
+  const live = useRef({ solutions, store, data, onDraw });
   live.current.solutions = solutions;
   live.current.store = store;
+  // An extra layer drawn with the strip (the target's photometric P(z), photo-z-layer.ts).
+  live.current.onDraw = onDraw;
   const plot = useRef<{ u: uPlot; paint: () => void; moveCursor: () => void; shown: Chi2StripData } | null>(null);
   const classes = data.classes.join(' ');
 
@@ -80,7 +82,7 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
       if (shown !== cursorShown) cursor.style.opacity = (cursorShown = shown) ? '1' : '0';
       if (shown && x !== cursorX) cursor.style.transform = `translateX(${(cursorX = x) - 0.5}px)`;
     };
-    const paint = () => (paintMarks(), moveCursor());
+    const paint = () => (paintMarks(), plotRef && live.current.onDraw?.(plotRef), moveCursor());
     const u = new uPlot(
       {
         width: el.clientWidth || 800,
@@ -133,7 +135,7 @@ export function Chi2Strip({ data, solutions, store }: { data: Chi2StripData; sol
   useEffect(() => {
     plot.current?.paint();
     return store.subscribe(() => plot.current?.moveCursor());
-  }, [store, solutions]);
+  }, [store, solutions, onDraw]);
 
   return (
     <figure className="isolate flex flex-col gap-1">

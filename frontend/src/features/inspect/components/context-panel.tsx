@@ -88,6 +88,17 @@ export function ContextPanel({ detail, arrays }: { detail: SpectrumDetail; array
                 </span>
               )}
             </Fact>
+            {t.photoZFit ? (
+              <Fact term="Photo-z from fluxes">
+                <span className="num">
+                  {t.photoZFit.z.toFixed(2)}
+                  <span className="text-ink-500">
+                    {' '}
+                    (95 %: {t.photoZFit.z95[0].toFixed(2)}–{t.photoZFit.z95[1].toFixed(2)}; P(z &lt; 2) {(100 * t.photoZFit.pLowZ).toFixed(t.photoZFit.pLowZ < 0.1 ? 1 : 0)} %{t.photoZFit.class === 'star' ? '; a star fits better' : ''})
+                  </span>
+                </span>
+              </Fact>
+            ) : null}
           </>
         ) : (
           <Fact term="Target">

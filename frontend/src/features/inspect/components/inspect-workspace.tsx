@@ -24,6 +24,9 @@ import { defaultSmoothing, spectrumSnr } from '@/components/spectrum/default-smo
 import { skySwampsData } from '@/components/spectrum/sky-default';
 import { createTrialZStore } from '@/components/spectrum/trial-z-store';
 import { Chi2Strip } from './chi2-strip';
+import { usePhotoZPosterior } from '../api/get-photo-z-posterior';
+import { usePhotoZLayer } from './photo-z-layer';
+import { PhotoZNotice } from './photo-z-notice';
 import { asSpectrumClass } from '@/lib/spectrum-class';
 import { ContextPanel } from './context-panel';
 import { FeaturePanels } from './feature-panels';
@@ -109,6 +112,9 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
     () => combLinesFor(lines, { cls: draft.cls, all: allLines, template: shownSolution?.template ?? null, supporting: shownSolution?.lines.map((l) => l.name) ?? [] }),
     [lines, draft.cls, allLines, shownSolution],
   );
+  const photoZFit = detail.target?.photoZFit ?? null;
+  const posterior = usePhotoZPosterior(campaign.id, detail.target?.id ?? null, photoZFit !== null);
+  const drawPhotoZ = usePhotoZLayer(photoZFit ? posterior.data : null, photoZFit?.z95 ?? null);
   const canRead = detail.assignment !== null && (campaign.myRole === 'reader' || campaign.myRole === 'lead');
 
   const queryClient = useQueryClient();
@@ -230,7 +236,8 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
               describedBy="plot-help"
             />
             <Legend hasSky={arrays.sky !== null && showSky} hasModel={display.model !== null} hasOffset={combLines.some((l) => l.offsetKms !== undefined)} />
-            {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
+            {curves && curves.classes.length > 0 ? <Chi2Strip data={curves} solutions={solutions} store={store} onDraw={drawPhotoZ} /> : <p className="text-sm text-ink-500">{scan ? 'Loading χ²(z)…' : 'Not scanned yet: no χ²(z).'}</p>}
+            {photoZFit ? <PhotoZNotice store={store} z95={photoZFit.z95} /> : null}
           </section>
           <Panel className={OWN_PAINT}>
             <FeaturePanels display={display} store={store} />

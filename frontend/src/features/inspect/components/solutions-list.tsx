@@ -24,7 +24,9 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
     <ol className="flex flex-col gap-1.5" aria-label="Solutions">
       {solutions.map((s, i) => {
         const cls = CLASS_NAMES[asSpectrumClass(s.class)];
-        const agreement = photoZAgreement(s.z, target?.photoZLow, target?.photoZHigh);
+        // The catalogue's typed photo-z range when it has one, else the one computed from its fluxes.
+        const typed = target?.photoZLow != null && target.photoZHigh != null;
+        const agreement = typed ? photoZAgreement(s.z, target.photoZLow, target.photoZHigh) : photoZAgreement(s.z, target?.photoZFit?.z68[0], target?.photoZFit?.z68[1]);
         const lines = s.lines.map((l) => l.name);
         return (
           <li key={`${s.template}-${s.z}`}>

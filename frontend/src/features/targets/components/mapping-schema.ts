@@ -32,5 +32,5 @@ export const toFormValues = (mapping: ColumnMapping | null): MappingFormValues =
  */
 export const mappingFormSchema = z
   .record(z.enum(TARGET_FIELDS), z.string())
-  .transform((values) => Object.fromEntries(Object.entries(values).filter(([field, column]) => field === 'id' || column !== '')))
+  .transform((values) => Object.fromEntries(Object.entries(values).filter(([field, column]) => field === 'id' || column !== '')) as unknown as z.input<typeof columnMappingSchema>)
   .pipe(columnMappingSchema);

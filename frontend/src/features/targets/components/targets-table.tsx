@@ -3,6 +3,7 @@ import { createColumnHelper, createSortedRowModel, rowSortingFeature, sortFn_alp
 import { SortableTh } from '@/components/ui/sort-header';
 import { Table, tdClass } from '@/components/ui/table';
 import { formatDegrees } from '@/lib/format';
+import { formatInterval, formatPercent } from './photo-z-words';
 
 const features = tableFeatures({
   rowSortingFeature,
@@ -34,15 +35,32 @@ const columns = helper.columns([
         Photo-<span className="normal-case">z</span> (68 %)
       </>
     ), ...blankLast, cell: (c) => photoZ(c.row.original) }),
+  helper.accessor((t) => orBlank(t.photoZFit?.z), { id: 'zPhot', header: () => (
+      <>
+        Computed <span className="normal-case">z</span> (95 %)
+      </>
+    ), ...blankLast, cell: (c) => {
+      const fit = c.row.original.photoZFit;
+      return fit ? `${fit.z.toFixed(2)} (${formatInterval(fit.z95)})` : '—';
+    } }),
+  helper.accessor((t) => orBlank(t.photoZFit?.pLowZ), { id: 'pLowZ', header: () => (
+      <>
+        P(<span className="normal-case">z</span> &lt; 2)
+      </>
+    ), ...blankLast, cell: (c) => (c.getValue() === undefined ? '—' : formatPercent(c.getValue()!)) }),
+  helper.accessor((t) => orBlank(t.photoZFit?.class), { id: 'photoClass', header: 'Fits as', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (c) => c.getValue() ?? '—' }),
   helper.accessor((t) => orBlank(t.imageFamily), { id: 'imageFamily', header: 'Image family', sortFn: 'alphanumeric', sortUndefined: 'last', cell: (c) => c.getValue() ?? '—' }),
   helper.accessor((t) => orBlank(t.priority), { id: 'priority', header: 'Priority', ...blankLast, cell: (c) => num(c.getValue()) }),
   helper.accessor('spectrumCount', { header: 'Spectra', sortFn: 'basic' }),
 ]);
 
-const TEXT_COLUMNS = new Set(['catalogueId', 'imageFamily']);
+const TEXT_COLUMNS = new Set(['catalogueId', 'imageFamily', 'photoClass']);
 
-/** The campaign's targets, sorted in the browser (the whole list is loaded). */
-export function TargetsTable({ targets }: { targets: Target[] }) {
+/**
+ * The campaign's targets, sorted in the browser (the whole list is loaded). A target with
+ * photometry opens its P(z) and SED from its id.
+ */
+export function TargetsTable({ targets, selectedId, onSelect }: { targets: Target[]; selectedId: number | null; onSelect: (targetId: number) => void }) {
   const table = useTable({
     features,
     columns,
@@ -72,10 +90,16 @@ export function TargetsTable({ targets }: { targets: Target[] }) {
       </thead>
       <tbody>
         {table.getRowModel().rows.map((row) => (
-          <tr key={row.id} className="hover:bg-paper-100">
+          <tr key={row.id} className={`hover:bg-paper-100 ${row.original.id === selectedId ? 'bg-ember-50' : ''}`}>
             {row.getAllCells().map((cell) => (
               <td key={cell.id} className={`${tdClass} whitespace-nowrap ${TEXT_COLUMNS.has(cell.column.id) ? 'font-medium' : 'num text-right'}`}>
-                <table.FlexRender cell={cell} />
+                {cell.column.id === 'catalogueId' && row.original.photoZFit ? (
+                  <button type="button" onClick={() => onSelect(row.original.id)} aria-pressed={row.original.id === selectedId} className="text-blueend-600 underline hover:text-blueend-700">
+                    {row.original.catalogueId}
+                  </button>
+                ) : (
+                  <table.FlexRender cell={cell} />
+                )}
               </td>
             ))}
           </tr>
