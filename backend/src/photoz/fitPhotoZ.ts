@@ -18,13 +18,19 @@ export interface FitOptions {
    * Prior on z: 'volume' (the comoving volume per unit z, priors.ts; the default) or 'flat' (none).
    */
   prior: 'volume' | 'flat';
+  /**
+   * The break rule: a source is placed beyond `lowZ` on a Lyman-break template only when that solution beats the
+   * best one below `lowZ` by at least this Δ(χ² − 2 ln prior); otherwise the best z is the low-z
+   * solution (4: the Lyman break detected at ≈ 2σ; 0 turns the rule off). See fitPhotoZ.
+   */
+  breakDeltaChi2: number;
   /** Redshift below which a galaxy counts as a low-z interloper for pLowZ. */
   lowZ: number;
   /** Also return P(z) on the grid nodes (normalised to unit mass). */
   withPosterior: boolean;
 }
 
-export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', lowZ: 2, withPosterior: false };
+export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', breakDeltaChi2: 4, lowZ: 2, withPosterior: false };
 
 /** One source's photometric redshift. χ² values are with the floored errors. */
 export interface PhotoZFit {
@@ -151,6 +157,18 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   let kMin = 0;
   for (let k = 1; k < nz; k++) if (post[k]! < post[kMin]!) kMin = k;
   const postMin = post[kMin]!;
+  // The break rule. Beyond z ≈ 2 a galaxy's redshift rests on its Lyman break; a source whose
+  // blue bands are not measurably fainter than a low-z solution predicts (a flat f_ν, a noisy
+  // interloper) has no detected break, and calling it a dropout would be reading noise. So the
+  // best z goes beyond lowZ on a Lyman-break template only if the best low-z solution is worse by
+  // breakDeltaChi2 (a 4000 Å-break galaxy at z > 2 rests on its own break and is left alone); P(z),
+  // its intervals and pLowZ are left as they are (they already carry the ambiguity).
+  let kBest = kMin;
+  if (opt.breakDeltaChi2 > 0 && z[kMin]! >= opt.lowZ && grid.galaxyKinds[bestT[kMin]!] === 'lyman-break') {
+    let kLow = -1;
+    for (let k = 0; k < nz && z[k]! < opt.lowZ; k++) if (kLow < 0 || post[k]! < post[kLow]!) kLow = k;
+    if (kLow >= 0 && post[kLow]! - postMin < opt.breakDeltaChi2) kBest = kLow;
+  }
 
   // P(z) as mass per grid cell, then equal-tail intervals from its cumulative sum.
   let total = 0;
@@ -218,7 +236,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   }
 
   const result: PhotoZFit = {
-    z: refineMinimum(post, z, kMin),
+    z: refineMinimum(post, z, kBest),
     z68: [quantile(0.16), quantile(0.84)],
     z95: [quantile(0.025), quantile(0.975)],
     pLowZ: total > 0 ? low / total : NaN,
@@ -226,7 +244,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
     class: starChi2 <= galaxyChi2 ? 'star' : 'galaxy',
     starChi2,
     galaxyChi2,
-    galaxyTemplate: grid.galaxyIds[bestT[kMin]!]!,
+    galaxyTemplate: grid.galaxyIds[bestT[kBest]!]!,
     starTemplate: starBest >= 0 ? grid.starIds[starBest]! : null,
     bands,
   };
