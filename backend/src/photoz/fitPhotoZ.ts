@@ -9,13 +9,28 @@ export interface FitOptions {
   errorFloor: number;
   /** Model error, as a fraction of the model flux, of a star in a band its real spectrum does not cover (30 %, our choice: the tail is a guess). */
   extrapolatedFloor: number;
+  /**
+   * Multiplies the grid's template error function (templateError.ts) before it is added in
+   * quadrature, as a fraction of each measured flux, per band and trial redshift (1; 0 turns it off).
+   */
+  templateErrorScale: number;
+  /**
+   * Prior on z: 'volume' (the comoving volume per unit z, priors.ts; the default) or 'flat' (none).
+   */
+  prior: 'volume' | 'flat';
+  /**
+   * The break rule: a source is placed beyond `lowZ` on a Lyman-break template only when that solution beats the
+   * best one below `lowZ` by at least this Δ(χ² − 2 ln prior); otherwise the best z is the low-z
+   * solution (4: the Lyman break detected at ≈ 2σ; 0 turns the rule off). See fitPhotoZ.
+   */
+  breakDeltaChi2: number;
   /** Redshift below which a galaxy counts as a low-z interloper for pLowZ. */
   lowZ: number;
   /** Also return P(z) on the grid nodes (normalised to unit mass). */
   withPosterior: boolean;
 }
 
-export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, lowZ: 2, withPosterior: false };
+export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', breakDeltaChi2: 4, lowZ: 2, withPosterior: false };
 
 /** One source's photometric redshift. χ² values are with the floored errors. */
 export interface PhotoZFit {
@@ -39,9 +54,16 @@ export interface PhotoZFit {
 
 /** Reusable per-thread buffers, so a catalogue fit allocates nothing per source. */
 export interface FitScratch {
+  /** Weights and weighted fluxes per (redshift, band): the template error makes them depend on z. */
   w: Float64Array;
   wf: Float64Array;
+  /** Σ w F² per redshift. */
+  chi0: Float64Array;
+  /** Σ ln σ² over the measured bands, per redshift. */
+  lnDet: Float64Array;
   profile: Float64Array;
+  /** χ²(z) − 2 ln prior(z). */
+  post: Float64Array;
   bestT: Int32Array;
   mass: Float64Array;
 }
@@ -49,7 +71,7 @@ export interface FitScratch {
 export function fitScratch(grid: ModelGrid): FitScratch {
   const nz = grid.redshift.z.length;
   const nb = grid.bands.length;
-  return { w: new Float64Array(nb), wf: new Float64Array(nb), profile: new Float64Array(nz), bestT: new Int32Array(nz), mass: new Float64Array(nz) };
+  return { w: new Float64Array(nz * nb), wf: new Float64Array(nz * nb), chi0: new Float64Array(nz), lnDet: new Float64Array(nz), profile: new Float64Array(nz), post: new Float64Array(nz), bestT: new Int32Array(nz), mass: new Float64Array(nz) };
 }
 
 /**
@@ -67,21 +89,36 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   const nb = grid.bands.length;
   const { z, edges } = grid.redshift;
   const nz = z.length;
-  const { w, wf, profile, bestT, mass } = scratch;
-  let chi0 = 0;
+  const { w, wf, chi0, lnDet, profile, post, bestT, mass } = scratch;
+  const te = grid.templateError;
+  const teScale = opt.templateErrorScale;
   let bands = 0;
   for (let b = 0; b < nb; b++) {
     const f = flux[b]!;
     const e = err[b]!;
-    if (Number.isFinite(f) && e > 0 && Number.isFinite(e)) {
-      const floor = opt.errorFloor * f;
-      w[b] = 1 / (e * e + floor * floor);
-      wf[b] = w[b]! * f;
-      chi0 += wf[b]! * f;
-      bands++;
-    } else {
-      w[b] = 0;
-      wf[b] = 0;
+    if (Number.isFinite(f) && e > 0 && Number.isFinite(e)) bands++;
+  }
+  chi0.fill(0);
+  lnDet.fill(0);
+  for (let k = 0; k < nz; k++) {
+    for (let b = 0; b < nb; b++) {
+      const i = k * nb + b;
+      const f = flux[b]!;
+      const e = err[b]!;
+      if (Number.isFinite(f) && e > 0 && Number.isFinite(e)) {
+        // Calibration floor and template error, both as fractions of the measured flux (so the
+        // amplitude stays linear); a negative flux (a non-detection, whose model is ≈ 0) gets no
+        // template error.
+        const floor = opt.errorFloor * f;
+        const model = f > 0 ? teScale * te[i]! * f : 0;
+        w[i] = 1 / (e * e + floor * floor + model * model);
+        wf[i] = w[i]! * f;
+        chi0[k]! += wf[i]! * f;
+        lnDet[k]! -= Math.log(w[i]!);
+      } else {
+        w[i] = 0;
+        wf[i] = 0;
+      }
     }
   }
 
@@ -92,15 +129,15 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   const nt = grid.galaxyIds.length;
   let o = 0;
   for (let t = 0; t < nt; t++) {
-    for (let k = 0; k < nz; k++) {
+    for (let k = 0, i = 0; k < nz; k++) {
       let num = 0;
       let den = 0;
-      for (let b = 0; b < nb; b++, o++) {
-        num += wf[b]! * m[o]!;
-        den += w[b]! * m2[o]!;
+      for (let b = 0; b < nb; b++, o++, i++) {
+        num += wf[i]! * m[o]!;
+        den += w[i]! * m2[o]!;
       }
       // Amplitude num/den clipped at 0: a template that can only fit with negative flux is the zero model.
-      let chi = num > 0 ? chi0 - (num * num) / den : chi0;
+      let chi = num > 0 ? chi0[k]! - (num * num) / den : chi0[k]!;
       if (chi < 0) chi = 0;
       if (chi < profile[k]!) {
         profile[k] = chi;
@@ -108,16 +145,37 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
       }
     }
   }
+  let kChi = 0;
+  for (let k = 1; k < nz; k++) if (profile[k]! < profile[kChi]!) kChi = k;
+  const galaxyChi2 = profile[kChi]!;
+  // The posterior's −2 ln: χ²(z) − 2 ln π(z). Its minimum is the best z.
+  const lnPrior = opt.prior === 'volume' ? grid.lnVolumePrior : null;
+  // The template error makes the errors depend on z, so the likelihood's normalisation
+  // Σ ln σ² (lnDet) changes with z too and belongs in the posterior: without it, a z where the
+  // template error inflates a band's error would win by being forgiving, not by fitting.
+  for (let k = 0; k < nz; k++) post[k] = profile[k]! + lnDet[k]! - lnDet[0]! - (lnPrior ? 2 * lnPrior[k]! : 0);
   let kMin = 0;
-  for (let k = 1; k < nz; k++) if (profile[k]! < profile[kMin]!) kMin = k;
-  const galaxyChi2 = profile[kMin]!;
+  for (let k = 1; k < nz; k++) if (post[k]! < post[kMin]!) kMin = k;
+  const postMin = post[kMin]!;
+  // The break rule. Beyond z ≈ 2 a galaxy's redshift rests on its Lyman break; a source whose
+  // blue bands are not measurably fainter than a low-z solution predicts (a flat f_ν, a noisy
+  // interloper) has no detected break, and calling it a dropout would be reading noise. So the
+  // best z goes beyond lowZ on a Lyman-break template only if the best low-z solution is worse by
+  // breakDeltaChi2 (a 4000 Å-break galaxy at z > 2 rests on its own break and is left alone); P(z),
+  // its intervals and pLowZ are left as they are (they already carry the ambiguity).
+  let kBest = kMin;
+  if (opt.breakDeltaChi2 > 0 && z[kMin]! >= opt.lowZ && grid.galaxyKinds[bestT[kMin]!] === 'lyman-break') {
+    let kLow = -1;
+    for (let k = 0; k < nz && z[k]! < opt.lowZ; k++) if (kLow < 0 || post[k]! < post[kLow]!) kLow = k;
+    if (kLow >= 0 && post[kLow]! - postMin < opt.breakDeltaChi2) kBest = kLow;
+  }
 
   // P(z) as mass per grid cell, then equal-tail intervals from its cumulative sum.
   let total = 0;
   let low = 0;
   for (let k = 0; k < nz; k++) {
     const width = edges[k + 1]! - edges[k]!;
-    const p = Math.exp(-0.5 * (profile[k]! - galaxyChi2)) * width;
+    const p = Math.exp(-0.5 * (post[k]! - postMin)) * width;
     mass[k] = p;
     total += p;
     if (edges[k + 1]! <= opt.lowZ) low += p;
@@ -138,7 +196,8 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   // Rayleigh–Jeans tail), so it carries a model error of `extrapolatedFloor` × the model flux:
   // the amplitude is first fitted on the other bands, the model error follows from it, then the
   // star is fitted on all bands. A model error scaled by the data instead would make the zero
-  // model of a star fit better than the zero model of a galaxy.
+  // model of a star fit better than the zero model of a galaxy. Stars use the weights of the
+  // z = 0 row (the first nb entries of w), so a star and a galaxy at z = 0 see the same errors.
   let starChi2 = Infinity;
   let starBest = -1;
   const ns = grid.starIds.length;
@@ -177,7 +236,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   }
 
   const result: PhotoZFit = {
-    z: refineMinimum(profile, z, kMin),
+    z: refineMinimum(post, z, kBest),
     z68: [quantile(0.16), quantile(0.84)],
     z95: [quantile(0.025), quantile(0.975)],
     pLowZ: total > 0 ? low / total : NaN,
@@ -185,7 +244,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
     class: starChi2 <= galaxyChi2 ? 'star' : 'galaxy',
     starChi2,
     galaxyChi2,
-    galaxyTemplate: grid.galaxyIds[bestT[kMin]!]!,
+    galaxyTemplate: grid.galaxyIds[bestT[kBest]!]!,
     starTemplate: starBest >= 0 ? grid.starIds[starBest]! : null,
     bands,
   };

@@ -2,6 +2,8 @@ import type { FilterCurve } from './filterCurve';
 import { photoZIgm } from './igm';
 import { bandSampler, type BandSampler } from './photometry';
 import type { TemplateSet } from './analyticTemplates';
+import { templateErrorFraction } from './templateError';
+import { lnVolumePrior } from './priors';
 
 /** Redshifts of the fit: uniform in ln(1 + z), so Δz/(1 + z) is the same everywhere. */
 export interface RedshiftGrid {
@@ -51,6 +53,14 @@ export interface ModelGrid {
    * model there is the stated extension (Rayleigh–Jeans tail or nothing) rather than data.
    */
   starExtrapolated: Uint8Array;
+  /**
+   * The template error of band b at z_k, `templateError[k·nBands + b]`: the fractional error of
+   * templateErrorFraction read at the band's rest wavelengths, averaged in quadrature over the
+   * band's weight. Row k = 0 (z = 0) is the stars' too.
+   */
+  templateError: Float64Array;
+  /** ln of the comoving-volume prior at each z node (priors.ts), peak 0. */
+  lnVolumePrior: Float64Array;
 }
 
 /** Builds the model grid. Costs ≈ (bands × samples per band × redshifts) IGM evaluations once. */
@@ -65,9 +75,16 @@ export function buildModelGrid(set: TemplateSet, bands: FilterCurve[], redshift:
   const { lnMin, dln, n } = set.grid;
   const lnObs = samplers.map((s) => Float64Array.from(s.wavelength, Math.log));
   const igm = samplers.map((s) => new Float64Array(s.wavelength.length));
+  const templateError = new Float64Array(nz * nb);
   for (let k = 0; k < nz; k++) {
     const z = redshift.z[k]!;
     const lnShift = Math.log1p(z);
+    for (let b = 0; b < nb; b++) {
+      const s = samplers[b]!;
+      let v = 0;
+      for (let i = 0; i < s.wavelength.length; i++) v += s.weight[i]! * templateErrorFraction(s.wavelength[i]! / (1 + z)) ** 2;
+      templateError[k * nb + b] = Math.sqrt(v);
+    }
     for (let b = 0; b < nb; b++) {
       const s = samplers[b]!;
       // Only Lyman-series and continuum absorption: redward of Lyα at the source nothing is absorbed
@@ -98,7 +115,7 @@ export function buildModelGrid(set: TemplateSet, bands: FilterCurve[], redshift:
   return {
     bands: bands.map((b) => b.name), redshift,
     galaxyIds: galaxies.map((t) => t.id), galaxyKinds: galaxies.map((t) => t.kind), galaxy, galaxySquared,
-    starIds: stars.map((t) => t.id), star, starExtrapolated,
+    starIds: stars.map((t) => t.id), star, starExtrapolated, templateError, lnVolumePrior: lnVolumePrior(redshift.z),
   };
 }
 
