@@ -24,6 +24,7 @@ import { releaseRoutes } from './routes/release';
 import { spectrumRoutes } from './routes/spectra';
 import { targetRoutes } from './routes/targets';
 import { uploadRoutes } from './routes/uploads';
+import { workerRoutes } from './routes/workers';
 import type { ServiceContext } from './services/context';
 
 export const FRONTEND_DIST = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
@@ -61,6 +62,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     lineListRoutes,
     releaseRoutes,
     confirmedRoutes,
+    workerRoutes,
     openApiRoutes,
   ]) {
     api.use(routes(ctx));
