@@ -6,6 +6,7 @@ import type { LinkableTarget } from '../ingest/link-target';
 import { allItemsFinished, finishJob, type JobItemRow, type JobRow } from '../jobs/job-store';
 import { recordItemResult, scanSettingsOf, type JobSettings } from '../jobs/process-item';
 import type { ScanTaskResult } from '../jobs/scan-worker';
+import { ENGINE_VERSION } from '../spectra/version';
 import type { ServiceContext } from './context';
 
 /*
@@ -46,6 +47,12 @@ export function workerItemOf(item: JobItemRow, job: JobRow): WorkerItem {
  */
 export function postWorkerResult(ctx: ServiceContext, itemId: number, result: ScanTaskResult): WorkerItemState {
   const { item, job } = loadItem(ctx, itemId);
+  // One campaign, one engine: a scan from a worker running other engine code would sit beside the
+  // server's as if comparable. Refused before anything is recorded; the worker stops and the item
+  // goes to an up-to-date worker.
+  if (result.ok && result.scanned.ok && result.scanned.scan.engineVersion !== ENGINE_VERSION) {
+    throw conflict(`This worker scans with engine ${result.scanned.scan.engineVersion}, the server with ${ENGINE_VERSION}: update the worker's Redward to the server's version.`, 'engine_version_mismatch');
+  }
   let applied = false;
   if (item.state === 'pending') {
     if (!OPEN_STATES.includes(job.state)) throw conflict(`Job ${job.id} is ${job.state}; results for it are no longer recorded.`, 'job_closed');
