@@ -55,17 +55,26 @@ export function startRemoteWorker(config: Config, log: WorkerLog, onFatal: (err:
 async function scanItem(job: Job, pool: ScanPool, client: WorkerClient, log: WorkerLog): Promise<string> {
   const item = workerItemSchema.parse(job.data);
   log(`item ${item.itemId} taken (attempt ${job.attemptsMade + 1})`);
+  const t0 = performance.now();
   const bytes = await client.takeFile(item.itemId, item.sha256);
+  const t1 = performance.now();
   if (!bytes) {
     log(`item ${item.itemId} needs no scan any more`);
     return 'skipped';
   }
   const result = await pool.run({ bytes, fileName: item.fileName, zMin: item.zMin, zMax: item.zMax, gridStep: item.gridStep });
+  const t2 = performance.now();
   const state = await client.postResult(item.itemId, result);
+  const t3 = performance.now();
   if (!state) {
     log(`item ${item.itemId} scanned, but its job was closed meanwhile`);
     return 'closed';
   }
-  log(`item ${item.itemId} recorded: ${state.state}${state.outcome ? ` (${state.outcome})` : ''}${state.applied ? '' : ', already recorded before'}`);
+  // The timings are what npm run bench:ingest -- --workers N reads to measure the per-item overhead.
+  const ms = (a: number, b: number) => (b - a).toFixed(1);
+  log(
+    `item ${item.itemId} recorded: ${state.state}${state.outcome ? ` (${state.outcome})` : ''}${state.applied ? '' : ', already recorded before'} ` +
+      `[fetch ${ms(t0, t1)} ms, scan ${ms(t1, t2)} ms, post ${ms(t2, t3)} ms]`,
+  );
   return state.state;
 }
