@@ -53,7 +53,7 @@ const envSchema = z.object({
   /** For `npm run jobs` with a Redis queue: the Redward server that hands out files and records results. */
   REDWARD_SERVER_URL: z.url().optional(),
   /** For `npm run jobs` with a Redis queue: a worker token (rwwkr_…) an administrator made for this machine. */
-  REDWARD_WORKER_TOKEN: z.string().startsWith('rwwkr_', 'REDWARD_WORKER_TOKEN must be a worker token (rwwkr_…), made on Admin → Worker tokens or with npm run worker-token.').optional(),
+  REDWARD_WORKER_TOKEN: z.string().startsWith('rwwkr_', 'REDWARD_WORKER_TOKEN must be a worker token (rwwkr_…), made on the server with npm run worker-token.').optional(),
   /** Largest distance between a spectrum's and a target's coordinates for a positional link. */
   LINK_TOLERANCE_ARCSEC: z.coerce.number().positive().max(60).default(2),
 });

@@ -153,6 +153,11 @@ describe('results posted by a worker', () => {
     expect(invalid.body.error.code).toBe('result_invalid');
     expect(invalid.body.error.message).toMatch(/solutions/);
     expect((await post(999_999, body)).status).toBe(404);
+    // A worker on other engine code: refused before anything is recorded.
+    if (!good.ok || !good.scanned.ok) throw new Error('the scan should have succeeded');
+    const otherEngine = await post(item!.id, encodeWorkerResult({ ...good, scanned: { ...good.scanned, scan: { ...good.scanned.scan, engineVersion: 'redward-engine/0.0.1' } } }));
+    expect(otherEngine.status).toBe(409);
+    expect(otherEngine.body.error.code).toBe('engine_version_mismatch');
 
     expect(pendingItems(upload.body.jobId)).toHaveLength(1);
     const ok = await post(item!.id, body);

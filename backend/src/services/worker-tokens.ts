@@ -26,7 +26,7 @@ const view = (t: typeof workerTokens.$inferSelect): WorkerToken => ({
 });
 
 /** Creates a worker token (the plain token is returned once and never stored). `actor` null: made on the server's console. */
-export function createWorkerToken(ctx: ServiceContext, actor: Actor | null, name: string): { token: string; workerToken: WorkerToken } {
+export function createWorkerToken(ctx: Pick<ServiceContext, 'db'>, actor: Actor | null, name: string): { token: string; workerToken: WorkerToken } {
   const token = WORKER_TOKEN_PREFIX + randomBytes(32).toString('base64url');
   return ctx.db.transaction((tx) => {
     const row = tx

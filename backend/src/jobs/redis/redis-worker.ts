@@ -26,7 +26,7 @@ export function startRemoteWorker(config: Config, log: WorkerLog, onFatal: (err:
   const { queue, worker: remote, leaseMs, scanThreads, scanTimeLimitMs } = config.jobs;
   if (queue.kind !== 'redis') throw new Error('startRemoteWorker needs JOB_QUEUE=redis://…');
   if (!remote.serverUrl) throw new Error('Set REDWARD_SERVER_URL to the Redward server this worker scans for (e.g. http://scan-head:3000).');
-  if (!remote.token) throw new Error('Set REDWARD_WORKER_TOKEN to a worker token (an administrator makes one: Admin → Worker tokens, or npm run worker-token).');
+  if (!remote.token) throw new Error('Set REDWARD_WORKER_TOKEN to a worker token (on the server: npm run worker-token -- <machine name>, or POST /api/admin/worker-tokens as an admin).');
   const pool = createScanPool(scanThreads, { timeLimitMs: scanTimeLimitMs });
   const client = new WorkerClient(remote.serverUrl, remote.token);
   const worker = new Worker(SCAN_QUEUE, (job) => scanItem(job, pool, client, log), {
