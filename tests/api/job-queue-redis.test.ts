@@ -21,6 +21,7 @@ let redis: TestRedis;
 let server: RunningServer;
 let dataDir: string;
 const workers: ChildProcess[] = [];
+let survivor: WorkerProcess | null = null;
 
 interface WorkerProcess {
   child: ChildProcess;
@@ -110,6 +111,7 @@ describe('scan workers on other machines (JOB_QUEUE=redis://…)', () => {
     const { token } = createWorkerToken(server.ctx, null, 'test workers');
     const a = startWorker(token);
     const b = startWorker(token);
+    survivor = b;
     await Promise.all([a.waitFor(/^Redward scan worker: 1 thread/), b.waitFor(/^Redward scan worker: 1 thread/)]);
 
     mark('both workers up');
@@ -160,5 +162,40 @@ describe('scan workers on other machines (JOB_QUEUE=redis://…)', () => {
     expect(recordedByA() + recordedByB).toBe(FILES);
     expect(recordedByA()).toBeGreaterThanOrEqual(2);
     expect(recordedByB).toBeGreaterThan(0);
+  });
+
+  it('queue again what Redis lost (a restart without persistence) and still finish', { timeout: 60_000 }, async () => {
+    const b = survivor!;
+    const login = await fetch(`${server.url}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'lead@demo.test', password: 'redward-demo' }) });
+    const headers = { cookie: login.headers.get('set-cookie')!.split(';')[0]!, origin: server.url };
+    const form = new FormData();
+    form.append('files', new Blob([new Uint8Array(zip(syntheticSpectrumFiles(8, { pixels: 7000, prefix: 'LOST' })))]), 'lost.zip');
+    const from = b.lines.length;
+    const upload = await fetch(`${server.url}/api/campaigns/1/uploads`, { method: 'POST', headers, body: form });
+    const { jobId } = (await upload.json()) as { jobId: number };
+    await b.waitFor(/^item \d+ recorded/, { from });
+    // Empty Redis under the running job, as a restart of a Redis without persistence would.
+    const { RespClient } = await import('../../backend/src/jobs/redis/resp-client');
+    const admin = new RespClient({ host: '127.0.0.1', port: redis.port });
+    await admin.connect();
+    expect(await admin.call('flushall')).toBe('OK');
+    await admin.quit();
+    const db = server.ctx.db;
+    for (let i = 0; i < 400; i++) {
+      if (db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, jobId)).get()!.state === 'done') break;
+      await sleep(100);
+    }
+    expect(db.select().from(jobs).where(eq(jobs.id, jobId)).get()).toMatchObject({ state: 'done', done: 8, total: 8 });
+    const stored = db.select({ n: count() }).from(jobItems).where(eq(jobItems.jobId, jobId)).all()[0]!.n;
+    expect(stored).toBe(8);
+    const perSpectrum = db
+      .select({ current: sql<number>`sum(${scanResults.isCurrent})`, all: count() })
+      .from(scanResults)
+      .innerJoin(spectra, eq(spectra.id, scanResults.spectrumId))
+      .where(eq(spectra.uploadJobId, jobId))
+      .groupBy(scanResults.spectrumId)
+      .all();
+    expect(perSpectrum).toHaveLength(8);
+    expect(perSpectrum.every((r) => r.current === 1 && r.all === 1)).toBe(true);
   });
 });

@@ -92,6 +92,7 @@ export class RedisJobQueue implements JobQueue {
           await this.dispatch(job);
         }
         this.checkHeld();
+        await this.redispatchIfLost();
       } catch (err) {
         // Redis down or a database error: keep the jobs (their leases lapse if this persists) and retry.
         this.ctx.logger.error({ err }, 'dispatching scan items to Redis failed; retrying');
@@ -135,6 +136,24 @@ export class RedisJobQueue implements JobQueue {
       }
     }
     this.ctx.logger.info({ jobId: job.id }, 'scan items queued in Redis');
+  }
+
+  /**
+   * Jobs in hand with pending items while Redis holds no item at all: the work list was lost (Redis
+   * restarted without persistence, or an item's final failure event was missed). Dispatching again
+   * is safe: items still in Redis keep their id, finished ones are no longer pending.
+   */
+  private async redispatchIfLost(): Promise<void> {
+    if (this.held.size === 0) return;
+    const counts = await this.queue.getJobCounts('waiting', 'active', 'delayed', 'prioritized');
+    if (Object.values(counts).some((n) => n > 0)) return;
+    for (const id of this.held) {
+      const job = this.ctx.db.select().from(jobs).where(eq(jobs.id, id)).get();
+      if (job?.state === 'running' && !job.cancelRequested && !allItemsFinished(this.ctx.db, id)) {
+        this.ctx.logger.warn({ jobId: id }, 'Redis holds none of the pending items of a running job; queueing them again');
+        await this.dispatch(job);
+      }
+    }
   }
 
   /** Ends the jobs in hand whose items are all finished, and the cancelled ones. */
