@@ -2,7 +2,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { count, eq, sql } from 'drizzle-orm';
+import { and, count, eq, ne, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadConfig } from '../../backend/src/config';
 import { jobItems, jobs, scanResults, spectra } from '../../backend/src/db/schema';
@@ -197,5 +197,32 @@ describe('scan workers on other machines (JOB_QUEUE=redis://…)', () => {
       .all();
     expect(perSpectrum).toHaveLength(8);
     expect(perSpectrum.every((r) => r.current === 1 && r.all === 1)).toBe(true);
+  });
+
+  it('stop scanning a cancelled job: it ends cancelled and its remaining items are left alone', { timeout: 60_000 }, async () => {
+    const b = survivor!;
+    const login = await fetch(`${server.url}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email: 'lead@demo.test', password: 'redward-demo' }) });
+    const headers = { cookie: login.headers.get('set-cookie')!.split(';')[0]!, origin: server.url };
+    const form = new FormData();
+    form.append('files', new Blob([new Uint8Array(zip(syntheticSpectrumFiles(30, { pixels: 6000, prefix: 'CANCEL' })))]), 'cancel.zip');
+    const from = b.lines.length;
+    const upload = await fetch(`${server.url}/api/campaigns/1/uploads`, { method: 'POST', headers, body: form });
+    const { jobId } = (await upload.json()) as { jobId: number };
+    await b.waitFor(/^item \d+ recorded/, { from });
+    const cancel = await fetch(`${server.url}/api/jobs/${jobId}/cancel`, { method: 'POST', headers });
+    expect(cancel.status).toBe(200);
+    const db = server.ctx.db;
+    for (let i = 0; i < 100; i++) {
+      if (db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, jobId)).get()!.state === 'cancelled') break;
+      await sleep(100);
+    }
+    expect(db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, jobId)).get()!.state).toBe('cancelled');
+    // Whatever was in flight may finish; after that nothing more of this job is scanned.
+    await sleep(3000);
+    const done = db.select({ n: count() }).from(jobItems).where(and(eq(jobItems.jobId, jobId), ne(jobItems.state, 'pending'))).get()!.n;
+    await sleep(2000);
+    expect(db.select({ n: count() }).from(jobItems).where(and(eq(jobItems.jobId, jobId), ne(jobItems.state, 'pending'))).get()!.n).toBe(done);
+    expect(done).toBeLessThan(30);
+    expect(done).toBeGreaterThan(0);
   });
 });
