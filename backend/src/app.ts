@@ -25,6 +25,7 @@ import { spectrumRoutes } from './routes/spectra';
 import { targetRoutes } from './routes/targets';
 import { filterRoutes } from './routes/filters';
 import { uploadRoutes } from './routes/uploads';
+import { workerRoutes } from './routes/workers';
 import type { ServiceContext } from './services/context';
 
 export const FRONTEND_DIST = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
@@ -63,6 +64,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
     lineListRoutes,
     releaseRoutes,
     confirmedRoutes,
+    workerRoutes,
     openApiRoutes,
   ]) {
     api.use(routes(ctx));

@@ -41,6 +41,19 @@ const envSchema = z.object({
   JOB_RUNNER: flag.default(true),
   /** How long a runner's claim on a job lasts without renewal; after a crash the job waits this long. */
   JOB_LEASE_SECONDS: z.coerce.number().positive().max(3600).default(30),
+  /**
+   * Where scan items wait: "sqlite" (the embedded queue: this server's or `npm run jobs`' threads
+   * take them from the database) or a Redis address, redis://host:6379 (BullMQ: `npm run jobs` on
+   * any number of machines takes them and posts results over HTTP).
+   */
+  JOB_QUEUE: z
+    .string()
+    .default('sqlite')
+    .refine((v) => v === 'sqlite' || /^redis:\/\/[^\s]+$/.test(v), 'JOB_QUEUE must be "sqlite" or a Redis address such as redis://127.0.0.1:6379.'),
+  /** For `npm run jobs` with a Redis queue: the Redward server that hands out files and records results. */
+  REDWARD_SERVER_URL: z.url().optional(),
+  /** For `npm run jobs` with a Redis queue: a worker token (rwwkr_…) an administrator made for this machine. */
+  REDWARD_WORKER_TOKEN: z.string().startsWith('rwwkr_', 'REDWARD_WORKER_TOKEN must be a worker token (rwwkr_…), made on the server with npm run worker-token.').optional(),
   /** Largest distance between a spectrum's and a target's coordinates for a positional link. */
   LINK_TOLERANCE_ARCSEC: z.coerce.number().positive().max(60).default(2),
 });
@@ -67,7 +80,15 @@ export interface Config {
     maxFiles: number;
     archive: { maxEntries: number; maxExpandedBytes: number; maxEntryBytes: number; maxRatio: number };
   };
-  jobs: { runner: boolean; scanThreads: number | undefined; scanTimeLimitMs: number; leaseMs: number };
+  jobs: {
+    runner: boolean;
+    scanThreads: number | undefined;
+    scanTimeLimitMs: number;
+    leaseMs: number;
+    queue: { kind: 'sqlite' } | { kind: 'redis'; url: string };
+    /** Only for remote workers (`npm run jobs` with a Redis queue). */
+    worker: { serverUrl: string | undefined; token: string | undefined };
+  };
   linkToleranceArcsec: number;
   version: string;
 }
@@ -119,7 +140,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
         maxRatio: e.ARCHIVE_MAX_RATIO,
       },
     },
-    jobs: { runner: e.JOB_RUNNER, scanThreads: e.SCAN_THREADS, scanTimeLimitMs: e.SCAN_TIME_LIMIT_S * 1000, leaseMs: e.JOB_LEASE_SECONDS * 1000 },
+    jobs: {
+      runner: e.JOB_RUNNER,
+      scanThreads: e.SCAN_THREADS,
+      scanTimeLimitMs: e.SCAN_TIME_LIMIT_S * 1000,
+      leaseMs: e.JOB_LEASE_SECONDS * 1000,
+      queue: e.JOB_QUEUE === 'sqlite' ? { kind: 'sqlite' } : { kind: 'redis', url: e.JOB_QUEUE },
+      worker: { serverUrl: e.REDWARD_SERVER_URL?.replace(/\/$/, ''), token: e.REDWARD_WORKER_TOKEN },
+    },
     linkToleranceArcsec: e.LINK_TOLERANCE_ARCSEC,
     version: readVersion(),
   };

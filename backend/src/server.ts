@@ -6,7 +6,7 @@ import { createApp } from './app';
 import type { Config } from './config';
 import { openDatabase } from './db/client';
 import { seedDemoIfEmpty } from './demo/seed-demo';
-import { JobRunner } from './jobs/job-runner';
+import { createJobQueue } from './jobs/job-queue';
 import { createScanPool } from './jobs/scan-pool';
 import { startMailCatcher, type MailCatcher } from './mail/catcher';
 import { createSmtpMailer } from './mail/mailer';
@@ -42,7 +42,7 @@ export async function createRedward(config: Config, now: () => Date = () => new 
     await pool.destroy();
   };
   if (config.jobs.runner) {
-    const runner = new JobRunner(ctx, store, pool, { leaseMs: config.jobs.leaseMs });
+    const runner = createJobQueue(ctx, store, pool);
     ctx.wakeJobRunner = () => runner.wake();
     runner.start();
     stopJobs = async () => {

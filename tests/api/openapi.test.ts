@@ -15,6 +15,7 @@ const NOT_JSON = new Map([
   ['get /api/spectra/{spectrumId}/data', 'octet stream: the spectrum arrays'],
   ['get /api/spectra/{spectrumId}/solutions/{rank}/model', 'octet stream: float32 model on the pixels'],
   ['get /api/spectra/{spectrumId}/scan-curves', 'octet stream: χ²(z) curves as stored (contracts/scan-curves-binary.ts)'],
+  ['get /api/worker/items/{itemId}/file', 'octet stream: the stored file a scan worker reads'],
   // Server-sent events.
   ['get /api/jobs/{jobId}/events', 'text/event-stream: job progress'],
   // HTML for people.

@@ -96,6 +96,12 @@ const CASES: Case[] = [
   { method: 'get', route: '/campaigns/:id/confirmed', url: '/api/campaigns/1/confirmed', expect: signedIn(200) },
   { method: 'get', route: '/campaigns/:id/statistics', url: '/api/campaigns/1/statistics', expect: signedIn(200) },
   { method: 'get', route: '/campaigns/:id/families', url: '/api/campaigns/1/families', expect: signedIn(200) },
+  { method: 'get', route: '/admin/worker-tokens', url: '/api/admin/worker-tokens', expect: adminOnly(200) },
+  { method: 'post', route: '/admin/worker-tokens', url: '/api/admin/worker-tokens', body: () => ({ name: `node ${++unique}` }), expect: adminOnly(201) },
+  { method: 'delete', route: '/admin/worker-tokens/:tokenId', url: '/api/admin/worker-tokens/999', expect: adminOnly(404) },
+  // Scan-worker routes: no person passes, whatever their role (a worker token is needed).
+  { method: 'get', route: '/worker/items/:itemId/file', url: '/api/worker/items/1/file', expect: { ...all(403), anonymous: 401 } },
+  { method: 'post', route: '/worker/items/:itemId/result', url: '/api/worker/items/1/result', body: () => ({}), expect: { ...all(403), anonymous: 401 } },
   { method: 'get', route: '/openapi.json', url: '/api/openapi.json', expect: all(200) },
   { method: 'get', route: '/docs', url: '/api/docs', expect: all(200) },
   { method: 'post', route: '/auth/logout', url: '/api/auth/logout', expect: all(204) },

@@ -47,7 +47,7 @@ export const solutionSchema = z.object({
 });
 export type Solution = z.infer<typeof solutionSchema>;
 
-const lineMatchesSchema = z.object({
+export const lineMatchesSchema = z.object({
   peaks: z.array(z.object({ wavelength: z.number(), snr: z.number() })),
   matches: z.array(z.object({ z: z.number(), lines: z.array(solutionLineSchema.extend({ snr: z.number() })) })),
   singleLine: z
@@ -60,7 +60,7 @@ const lineMatchesSchema = z.object({
 });
 export type LineMatches = z.infer<typeof lineMatchesSchema>;
 
-const scanSchema = z.object({
+export const scanSchema = z.object({
   id: z.number().int(),
   engineVersion: z.string(),
   // Scans stored before campaigns had a grid setting carry no gridStep; they used 'default'.

@@ -483,3 +483,20 @@ export const photoZFits = sqliteTable(
   },
   (t) => [uniqueIndex('photo_z_fits_target').on(t.targetId)],
 );
+
+/**
+ * Credentials of scan workers (`npm run jobs` with JOB_QUEUE=redis://…) on other machines. A
+ * worker token belongs to no person and grants only the worker routes (take an item's file, post
+ * its result); only a hash is stored, the token is shown once.
+ */
+export const workerTokens = sqliteTable('worker_tokens', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  name: text('name').notNull(),
+  tokenHash: text('token_hash').notNull().unique(),
+  /** The first characters, so an admin can tell tokens apart. */
+  prefix: text('prefix').notNull(),
+  createdBy: integer('created_by').references(() => users.id),
+  lastUsedAt: text('last_used_at'),
+  revokedAt: text('revoked_at'),
+  createdAt: createdAt(),
+});

@@ -2,6 +2,7 @@ import type { Request } from 'express';
 import type { CampaignRole } from '../contracts/campaigns';
 import type { Actor, ServiceContext } from '../services/context';
 import { findCampaignRole } from '../services/find-campaign-role';
+import type { WorkerIdentity } from '../services/worker-tokens';
 import { forbidden, notFound, unauthenticated } from './errors';
 
 /**
@@ -11,6 +12,8 @@ import { forbidden, notFound, unauthenticated } from './errors';
  * - public: anyone, signed in or not
  * - signedIn: any signed-in account
  * - admin: installation admins
+ * - worker: scan workers holding a worker token (and nobody else: a worker token is no person,
+ *   so it passes no other rule)
  * - campaign: members of the campaign in `:id` holding one of the roles. Admins may read
  *   every campaign as if observers (they run the installation), but hold no other role
  *   unless they are members.
@@ -19,6 +22,7 @@ export type Access =
   | { kind: 'public' }
   | { kind: 'signedIn' }
   | { kind: 'admin' }
+  | { kind: 'worker' }
   | { kind: 'campaign'; roles: readonly CampaignRole[]; campaignOf?: CampaignResolver };
 
 /** Finds the campaign a request is about when the path names something inside it (a job, a spectrum). */
@@ -28,6 +32,7 @@ export const access = {
   public: { kind: 'public' } as Access,
   signedIn: { kind: 'signedIn' } as Access,
   admin: { kind: 'admin' } as Access,
+  worker: { kind: 'worker' } as Access,
   campaign: (...roles: CampaignRole[]): Access => ({ kind: 'campaign', roles }),
   /** Roles in the campaign that owns the thing named in the path. */
   campaignOf: (campaignOf: CampaignResolver, ...roles: CampaignRole[]): Access => ({ kind: 'campaign', roles, campaignOf }),
@@ -37,19 +42,26 @@ export const access = {
 
 export interface Authorization {
   user: Actor | null;
+  /** The scan worker calling a worker route (null on every other route). */
+  worker: WorkerIdentity | null;
   campaign: { id: number; role: CampaignRole | null } | null;
 }
 
 const roleWords: Record<CampaignRole, string> = { lead: 'a lead', reader: 'a reader', observer: 'an observer' };
 
 export function authorize(ctx: ServiceContext, req: Request, rule: Access): Authorization {
-  if (rule.kind === 'public') return { user: req.user, campaign: null };
+  if (rule.kind === 'public') return { user: req.user, worker: null, campaign: null };
+  if (rule.kind === 'worker') {
+    if (req.worker) return { user: null, worker: req.worker, campaign: null };
+    if (req.user) throw forbidden('Only scan workers can do this (Authorization: Bearer rwwkr_…).', 'worker_only');
+    throw unauthenticated('Send a worker token: Authorization: Bearer rwwkr_… (an administrator makes them).');
+  }
   const user = req.user;
   if (!user) throw unauthenticated();
-  if (rule.kind === 'signedIn') return { user, campaign: null };
+  if (rule.kind === 'signedIn') return { user, worker: null, campaign: null };
   if (rule.kind === 'admin') {
     if (!user.isAdmin) throw forbidden('Only administrators can do this.');
-    return { user, campaign: null };
+    return { user, worker: null, campaign: null };
   }
   const campaignId = rule.campaignOf ? rule.campaignOf(ctx, req) : Number(req.params.id);
   if (campaignId === null || !Number.isSafeInteger(campaignId) || campaignId <= 0) throw notFound('No such campaign.', 'campaign_not_found');
@@ -62,5 +74,5 @@ export function authorize(ctx: ServiceContext, req: Request, rule: Access): Auth
     const needed = rule.roles.map((r) => roleWords[r]).join(' or ');
     throw forbidden(`Only ${needed} of this campaign can do this.`);
   }
-  return { user, campaign: { id: campaignId, role } };
+  return { user, worker: null, campaign: { id: campaignId, role } };
 }

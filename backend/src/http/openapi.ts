@@ -16,6 +16,8 @@ export function describeAccess(access: Access): string {
       return 'Any signed-in person (session cookie or personal access token).';
     case 'admin':
       return 'Installation administrators.';
+    case 'worker':
+      return 'Scan workers only, with a worker token (`Authorization: Bearer rwwkr_…`, made by an administrator); no person, cookie or personal token.';
     case 'campaign': {
       const roles = access.roles.join(', ');
       const adminNote = access.roles.includes('observer') ? ' Administrators may view.' : '';

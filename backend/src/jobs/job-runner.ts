@@ -5,6 +5,7 @@ import type { ServiceContext } from '../services/context';
 import type { BlobStore } from '../storage/blob-store';
 import { claimNextJob, finishJob, isCancelRequested, pendingItems, renewLease, requeueExpiredJobs, type JobRow } from './job-store';
 import { processItem, type JobSettings } from './process-item';
+import type { JobQueue } from './job-queue';
 import type { ScanPool } from './scan-pool';
 
 export interface JobRunnerOptions {
@@ -18,7 +19,8 @@ export interface JobRunnerOptions {
  * lives in SQLite, so the web server, the import command and a restarted runner all see the
  * same state, and a job cut short by a crash resumes where it stopped.
  */
-export class JobRunner {
+export class JobRunner implements JobQueue {
+  readonly kind = 'sqlite';
   private running = false;
   private loopDone: Promise<void> = Promise.resolve();
   private wakeUp: (() => void) | null = null;

@@ -74,3 +74,8 @@ export function finishJob(db: Db, jobId: number, state: 'done' | 'failed' | 'can
       .run();
   });
 }
+
+/** True when no item of the job is pending any more. */
+export function allItemsFinished(db: Pick<Db, 'select'>, jobId: number): boolean {
+  return !db.select({ id: jobItems.id }).from(jobItems).where(and(eq(jobItems.jobId, jobId), eq(jobItems.state, 'pending'))).limit(1).get();
+}

@@ -1,13 +1,13 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { gridStepOf, type GridStep } from '../contracts/campaigns';
-import { assignments, jobItems, scanResults, spectra } from '../db/schema';
+import { assignments, jobItems, jobs, scanResults, spectra } from '../db/schema';
 import type { ServiceContext } from '../services/context';
 import { linkTarget, type LinkableTarget } from '../ingest/link-target';
 import type { BlobStore } from '../storage/blob-store';
 import { isSpectrumFileName, SPECTRUM_FILE_ENDINGS } from './accepted-files';
-import { refreshProgress, type JobItemRow, type JobRow } from './job-store';
+import type { JobItemRow, JobRow } from './job-store';
 import type { ScanPool } from './scan-pool';
-import type { ScanOutcome } from './scan-worker';
+import type { ScanOutcome, ScanTaskResult } from './scan-worker';
 
 export interface JobSettings {
   zMin: number;
@@ -18,38 +18,69 @@ export interface JobSettings {
   assign?: { first?: number; second?: number };
 }
 
-export interface ItemContext {
+/** What recording an item's result needs: no scan pool, no files (a remote worker did the scan). */
+export interface ResultContext {
   ctx: ServiceContext;
-  store: BlobStore;
-  pool: ScanPool;
   job: JobRow;
   settings: JobSettings;
   targets: () => readonly LinkableTarget[];
 }
 
+export interface ItemContext extends ResultContext {
+  store: BlobStore;
+  pool: ScanPool;
+}
+
 /**
- * Carries one item of an ingest or re-scan job to its end. Everything an item changes is
- * written in one transaction together with the item's own state, so a crash leaves it either
- * untouched (pending, redone on resume) or finished — never half-stored, never twice.
+ * Carries one item of an ingest or re-scan job to its end on this machine's scan pool (the
+ * embedded queue). Everything an item changes is written in one transaction together with the
+ * item's own state, so a crash leaves it either untouched (pending, redone on resume) or
+ * finished — never half-stored, never twice.
  */
 export async function processItem(ic: ItemContext, item: JobItemRow): Promise<void> {
-  const { ctx, job } = ic;
-  if (job.kind === 'ingest') {
-    const existing = findSpectrum(ic, item.sha256!);
-    if (existing) return finishItem(ic, item, { state: 'done', outcome: 'duplicate', spectrumId: existing });
-    if (!isSpectrumFileName(item.fileName)) {
-      return finishItem(ic, item, {
-        state: 'failed',
-        errorCode: 'unsupported_type',
-        errorMessage: `Not a spectrum file type Redward reads (${SPECTRUM_FILE_ENDINGS.join(', ')}). The file is kept in storage.`,
-      });
-    }
+  if (finishWithoutScan(ic, item)) return;
+  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), ...scanSettingsOf(ic.settings), fileName: item.fileName });
+  recordItemResult(ic, item, result);
+}
+
+/** The engine settings an item is scanned with (the job's, fixed when it was queued). */
+export function scanSettingsOf(settings: JobSettings): { zMin: number; zMax: number; gridStep: GridStep } {
+  return { zMin: settings.zMin, zMax: settings.zMax, gridStep: gridStepOf(settings) };
+}
+
+/**
+ * Finishes the items that need no scan: a file already in the campaign (a duplicate) or one that
+ * is no spectrum file. True when the item is finished.
+ */
+export function finishWithoutScan(ic: ResultContext, item: JobItemRow): boolean {
+  if (ic.job.kind !== 'ingest') return false;
+  const existing = findSpectrum(ic, item.sha256!);
+  if (existing) {
+    finishItem(ic, item, { state: 'done', outcome: 'duplicate', spectrumId: existing });
+    return true;
   }
-  const { zMin, zMax } = ic.settings;
-  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), fileName: item.fileName, zMin, zMax, gridStep: gridStepOf(ic.settings) });
+  if (!isSpectrumFileName(item.fileName)) {
+    finishItem(ic, item, {
+      state: 'failed',
+      errorCode: 'unsupported_type',
+      errorMessage: `Not a spectrum file type Redward reads (${SPECTRUM_FILE_ENDINGS.join(', ')}). The file is kept in storage.`,
+    });
+    return true;
+  }
+  return false;
+}
+
+/**
+ * Records what the scan of one item found, wherever it ran. Idempotent by item: once the item
+ * is finished (by this call, an earlier one, or another runner), a repeat changes nothing — no
+ * second spectrum, no second current scan. Returns whether this call finished the item.
+ */
+export function recordItemResult(ic: ResultContext, item: JobItemRow, result: ScanTaskResult): boolean {
+  const { ctx, job } = ic;
   if (!result.ok) return finishItem(ic, item, { state: 'failed', errorCode: result.code, errorMessage: result.message });
 
-  ctx.db.transaction((tx) => {
+  return ctx.db.transaction((tx) => {
+    if (!isPending(tx, item.id)) return false;
     let spectrumId: number;
     let outcome: 'stored' | 'duplicate' | 'rescanned';
     if (job.kind === 'ingest') {
@@ -83,10 +114,7 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
         .returning({ id: spectra.id })
         .get();
       // The same content twice in one upload: the first copy to arrive is the spectrum.
-      if (!inserted) {
-        finishItemTx(tx, item, { state: 'done', outcome: 'duplicate', spectrumId: findSpectrumTx(tx, job.campaignId, item.sha256!) });
-        return;
-      }
+      if (!inserted) return finishItemTx(tx, item, { state: 'done', outcome: 'duplicate', spectrumId: findSpectrumTx(tx, job.campaignId, item.sha256!) });
       spectrumId = inserted.id;
       outcome = 'stored';
       for (const readingOrder of ['first', 'second'] as const) {
@@ -101,11 +129,10 @@ export async function processItem(ic: ItemContext, item: JobItemRow): Promise<vo
       // A re-scan keeps the earlier result for the record; the new one becomes current.
       tx.update(scanResults).set({ isCurrent: false }).where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true))).run();
       insertScanResult(tx, spectrumId, job.id, ic.settings, result.scanned);
-      finishItemTx(tx, item, { state: 'done', outcome, spectrumId });
-    } else {
-      // The spectrum is kept (it was read); the failed scan is listed so it can be redone.
-      finishItemTx(tx, item, { state: 'failed', outcome, spectrumId, errorCode: result.scanned.code, errorMessage: result.scanned.message });
+      return finishItemTx(tx, item, { state: 'done', outcome, spectrumId });
     }
+    // The spectrum is kept (it was read); the failed scan is listed so it can be redone.
+    return finishItemTx(tx, item, { state: 'failed', outcome, spectrumId, errorCode: result.scanned.code, errorMessage: result.scanned.message });
   });
 }
 
@@ -131,7 +158,11 @@ function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: J
     .run();
 }
 
-function findSpectrum(ic: ItemContext, sha256: string): number | null {
+function isPending(tx: Pick<Tx, 'select'>, itemId: number): boolean {
+  return tx.select({ state: jobItems.state }).from(jobItems).where(eq(jobItems.id, itemId)).get()?.state === 'pending';
+}
+
+function findSpectrum(ic: ResultContext, sha256: string): number | null {
   return findSpectrumTx(ic.ctx.db, ic.job.campaignId, sha256);
 }
 
@@ -147,12 +178,14 @@ interface ItemEnd {
   errorMessage?: string;
 }
 
-function finishItem(ic: ItemContext, item: JobItemRow, end: ItemEnd): void {
-  ic.ctx.db.transaction((tx) => finishItemTx(tx, item, end));
+function finishItem(ic: ResultContext, item: JobItemRow, end: ItemEnd): boolean {
+  return ic.ctx.db.transaction((tx) => finishItemTx(tx, item, end));
 }
 
-function finishItemTx(tx: Tx, item: JobItemRow, end: ItemEnd): void {
-  tx.update(jobItems)
+/** Finishes a still-pending item (true), or leaves an already finished one alone (false). */
+function finishItemTx(tx: Tx, item: JobItemRow, end: ItemEnd): boolean {
+  const changed = tx
+    .update(jobItems)
     .set({
       state: end.state,
       outcome: end.outcome ?? null,
@@ -161,6 +194,9 @@ function finishItemTx(tx: Tx, item: JobItemRow, end: ItemEnd): void {
       errorMessage: end.errorMessage ?? null,
     })
     .where(and(eq(jobItems.id, item.id), eq(jobItems.state, 'pending')))
-    .run();
-  refreshProgress(tx, item.jobId);
+    .run().changes;
+  // Counted up by one rather than recounted: a recount reads every item of the job, which for a
+  // survey-sized job (10^6 items) would make each finish cost as much as the whole job's index.
+  if (changed > 0) tx.update(jobs).set({ done: sql`${jobs.done} + 1` }).where(eq(jobs.id, item.jobId)).run();
+  return changed > 0;
 }

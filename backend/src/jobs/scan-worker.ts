@@ -19,7 +19,10 @@ interface Started {
 }
 
 export interface ScanTask extends Started {
-  filePath: string;
+  /** The stored file to read (embedded queue), or … */
+  filePath?: string;
+  /** … its bytes, as a remote worker fetched them from the server (Redis queue). */
+  bytes?: Uint8Array;
   fileName: string;
   zMin: number;
   zMax: number;
@@ -56,7 +59,7 @@ export default function runScanTask(task: ScanTask): ScanTaskResult {
   task.started?.postMessage('started');
   let spectrum;
   try {
-    spectrum = readSpectrum(readFileSync(task.filePath));
+    spectrum = readSpectrum(task.bytes ?? readFileSync(task.filePath!));
   } catch (err) {
     if (err instanceof SpectrumReadError) return { ok: false, code: err.code, message: err.message };
     return { ok: false, code: 'unreadable', message: `The file could not be read: ${(err as Error).message}` };
