@@ -175,10 +175,9 @@ describe('scan workers on other machines (JOB_QUEUE=redis://…)', () => {
     const { jobId } = (await upload.json()) as { jobId: number };
     await b.waitFor(/^item \d+ recorded/, { from });
     // Empty Redis under the running job, as a restart of a Redis without persistence would.
-    const { RespClient } = await import('../../backend/src/jobs/redis/resp-client');
-    const admin = new RespClient({ host: '127.0.0.1', port: redis.port });
-    await admin.connect();
-    expect(await admin.call('flushall')).toBe('OK');
+    const { Redis } = await import('ioredis');
+    const admin = new Redis({ host: '127.0.0.1', port: redis.port });
+    expect(await admin.flushall()).toBe('OK');
     await admin.quit();
     const db = server.ctx.db;
     for (let i = 0; i < 400; i++) {

@@ -1,8 +1,7 @@
-import { createIORedisClient, RedisConnection, type ConnectionOptions } from 'bullmq';
-import { RespClient, type RespOptions } from './resp-client';
+import type { ConnectionOptions } from 'bullmq';
 
 /** Host, port, credentials and database of a `redis://[user:password@]host[:port][/db]` address. */
-export function redisOptionsOf(url: string): RespOptions {
+export function redisOptionsOf(url: string): { host: string; port: number; username?: string; password?: string; db: number } {
   const u = new URL(url);
   if (u.protocol !== 'redis:') throw new Error(`JOB_QUEUE must be "sqlite" or a redis:// address (TLS "rediss://" is not supported); got ${url}.`);
   const db = u.pathname.length > 1 ? Number(u.pathname.slice(1)) : 0;
@@ -10,17 +9,18 @@ export function redisOptionsOf(url: string): RespOptions {
   return {
     host: u.hostname || '127.0.0.1',
     port: u.port ? Number(u.port) : 6379,
-    username: u.username ? decodeURIComponent(u.username) : undefined,
-    password: u.password ? decodeURIComponent(u.password) : undefined,
+    ...(u.username ? { username: decodeURIComponent(u.username) } : {}),
+    ...(u.password ? { password: decodeURIComponent(u.password) } : {}),
     db,
   };
 }
 
-// BullMQ makes its connections through this factory (it has no driver of its own: see
-// resp-client.ts). Its own adapter turns our client into the interface it calls.
-RedisConnection.clientFactory = (opts) => createIORedisClient(new RespClient({ ...(opts as RespOptions) }) as never);
-
-/** What Queue, Worker and QueueEvents take as `connection` for a Redis address. */
+/**
+ * What Queue, Worker and QueueEvents take as `connection` for a Redis address: options from
+ * which BullMQ opens its own ioredis connections (the driver it documents). Commands wait while
+ * Redis is away instead of failing after a few retries (`maxRetriesPerRequest: null`, which
+ * BullMQ's workers require).
+ */
 export function bullConnection(url: string): ConnectionOptions {
-  return { ...redisOptionsOf(url) };
+  return { ...redisOptionsOf(url), maxRetriesPerRequest: null };
 }
