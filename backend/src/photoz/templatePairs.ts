@@ -1,0 +1,24 @@
+/**
+ * Which two-template non-negative sums the fit tries at low redshift: a red, old component plus a
+ * blue, young one (each with its own dust), which between them span galaxies whose optical is
+ * flatter and whose rest UV and near-IR are redder than any single mix (late spirals). Templates
+ * are named by id or id prefix (`lowz-old` takes lowz-old and every lowz-old-ebv…).
+ *
+ * Pairs stop at `maxZ`: above it a low-z sum has no interloper to describe, and a red + blue sum
+ * could imitate a Lyman break at the wrong z (the dropout/interloper confusion the fit must not
+ * add). Lyman-break templates are never paired.
+ */
+export interface TemplatePairs {
+  first: string[];
+  second: string[];
+  maxZ: number;
+}
+
+export const DEFAULT_TEMPLATE_PAIRS: TemplatePairs = {
+  first: ['lowz-old', 'lowz-early'],
+  second: ['lowz-starforming'],
+  maxZ: 3,
+};
+
+/** No pairs: the one-template fit. */
+export const NO_TEMPLATE_PAIRS: TemplatePairs = { first: [], second: [], maxZ: 0 };
