@@ -72,15 +72,15 @@ describe('fitPhotoZ with template pairs', () => {
   const nz = grid.redshift.z.length;
   const at = (id: string, k: number) => Array.from(grid.galaxy.subarray((grid.galaxyIds.indexOf(id) * nz + k) * ten.length, (grid.galaxyIds.indexOf(id) * nz + k + 1) * ten.length));
 
-  it('the grid pairs old/early with star-forming templates up to z = 3 and nothing else', () => {
+  it('the grid pairs old/early/spiral with star-forming templates up to z = 2.5 and nothing else', () => {
     const ids = Array.from({ length: grid.pairs.length / 2 }, (_, p) => [grid.galaxyIds[grid.pairs[2 * p]!]!, grid.galaxyIds[grid.pairs[2 * p + 1]!]!]);
-    expect(ids.length).toBe(6 * 5);
+    expect(ids.length).toBe(11 * 5);
     for (const [a, b] of ids) {
-      expect(a).toMatch(/^lowz-(old|early)/);
+      expect(a).toMatch(/^lowz-(old|early|spiral)/);
       expect(b).toMatch(/^lowz-starforming/);
     }
-    expect(grid.redshift.z[grid.pairNz - 1]!).toBeLessThanOrEqual(3);
-    expect(grid.redshift.z[grid.pairNz]!).toBeGreaterThan(3);
+    expect(grid.redshift.z[grid.pairNz - 1]!).toBeLessThanOrEqual(2.5);
+    expect(grid.redshift.z[grid.pairNz]!).toBeGreaterThan(2.5);
     expect(single.pairs.length).toBe(0);
   });
 
