@@ -1,4 +1,5 @@
 import type { ModelGrid } from './modelGrid';
+import { interiorPairReduction, solveNonNegativePair } from './nonNegativePair';
 import type { PhotoZClass } from './restTemplates';
 
 export interface FitOptions {
@@ -28,9 +29,11 @@ export interface FitOptions {
   lowZ: number;
   /** Also return P(z) on the grid nodes (normalised to unit mass). */
   withPosterior: boolean;
+  /** Try the grid's two-template non-negative sums (templatePairs.ts) as well as single templates (true). */
+  pairs: boolean;
 }
 
-export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', breakDeltaChi2: 4, lowZ: 2, withPosterior: false };
+export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', breakDeltaChi2: 4, lowZ: 2, withPosterior: false, pairs: true };
 
 /** One source's photometric redshift. χ² values are with the floored errors. */
 export interface PhotoZFit {
@@ -44,8 +47,10 @@ export interface PhotoZFit {
   class: PhotoZClass;
   starChi2: number;
   galaxyChi2: number;
-  /** Best galaxy template at z, best star template. */
+  /** Best galaxy template at z (of a two-template sum, the one giving more of the model's band flux), best star template. */
   galaxyTemplate: string;
+  /** When the best galaxy model is a two-template sum: both templates and their shares of the model's summed band flux. */
+  galaxyMix?: { templates: [string, string]; shares: [number, number] };
   starTemplate: string | null;
   /** Bands that carried a measurement (finite flux and positive error). */
   bands: number;
@@ -66,17 +71,22 @@ export interface FitScratch {
   post: Float64Array;
   bestT: Int32Array;
   mass: Float64Array;
+  /** Σ w F M and Σ w M² per (template, redshift): the single fits' sums, reused by the pairs. */
+  num: Float64Array;
+  den: Float64Array;
 }
 
 export function fitScratch(grid: ModelGrid): FitScratch {
   const nz = grid.redshift.z.length;
   const nb = grid.bands.length;
-  return { w: new Float64Array(nz * nb), wf: new Float64Array(nz * nb), chi0: new Float64Array(nz), lnDet: new Float64Array(nz), profile: new Float64Array(nz), post: new Float64Array(nz), bestT: new Int32Array(nz), mass: new Float64Array(nz) };
+  return { w: new Float64Array(nz * nb), wf: new Float64Array(nz * nb), chi0: new Float64Array(nz), lnDet: new Float64Array(nz), profile: new Float64Array(nz), post: new Float64Array(nz), bestT: new Int32Array(nz), mass: new Float64Array(nz), num: new Float64Array(grid.galaxyIds.length * nz), den: new Float64Array(grid.galaxyIds.length * nz) };
 }
 
 /**
  * Fits one source: for every galaxy template and grid redshift the best non-negative amplitude
- * a = max(0, Σ w F M / Σ w M²) (analytic, one template at a time), χ²(z) = min over templates,
+ * a = max(0, Σ w F M / Σ w M²) (analytic, one template at a time), then for the grid's template
+ * pairs below their maxZ the best two non-negative amplitudes (nonNegativePair.ts), χ²(z) = min
+ * over templates and pairs,
  * P(z) ∝ exp(−χ²(z)/2) under a flat prior in z; stars at z = 0 the same way. Non-detections
  * (zero or negative flux with an error) are measurements like any other; a band with a NaN flux
  * or a non-positive error carries no weight (not observed).
@@ -89,7 +99,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   const nb = grid.bands.length;
   const { z, edges } = grid.redshift;
   const nz = z.length;
-  const { w, wf, chi0, lnDet, profile, post, bestT, mass } = scratch;
+  const { w, wf, chi0, lnDet, profile, post, bestT, mass, num: tNum, den: tDen } = scratch;
   const te = grid.templateError;
   const teScale = opt.templateErrorScale;
   let bands = 0;
@@ -136,12 +146,36 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
         num += wf[i]! * m[o]!;
         den += w[i]! * m2[o]!;
       }
+      tNum[t * nz + k] = num;
+      tDen[t * nz + k] = den;
       // Amplitude num/den clipped at 0: a template that can only fit with negative flux is the zero model.
       let chi = num > 0 ? chi0[k]! - (num * num) / den : chi0[k]!;
       if (chi < 0) chi = 0;
       if (chi < profile[k]!) {
         profile[k] = chi;
         bestT[k] = t;
+      }
+    }
+  }
+  // Two-template sums: only the interior solutions (both amplitudes > 0) can beat the single fits
+  // above, whose sums they reuse; one more dot product per (pair, z) for the cross term.
+  const np = opt.pairs ? grid.pairs.length / 2 : 0;
+  const pz = grid.pairNz;
+  const cross = grid.pairProduct;
+  for (let p = 0, o = 0; p < np; p++) {
+    const a = grid.pairs[2 * p]! * nz;
+    const c = grid.pairs[2 * p + 1]! * nz;
+    for (let k = 0, i = 0; k < pz; k++) {
+      let cr = 0;
+      for (let b = 0; b < nb; b++, o++, i++) cr += w[i]! * cross[o]!;
+      const red = interiorPairReduction(tNum[a + k]!, tNum[c + k]!, tDen[a + k]!, tDen[c + k]!, cr);
+      if (red > 0) {
+        let chi = chi0[k]! - red;
+        if (chi < 0) chi = 0;
+        if (chi < profile[k]!) {
+          profile[k] = chi;
+          bestT[k] = nt + p;
+        }
       }
     }
   }
@@ -164,7 +198,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
   // breakDeltaChi2 (a 4000 Å-break galaxy at z > 2 rests on its own break and is left alone); P(z),
   // its intervals and pLowZ are left as they are (they already carry the ambiguity).
   let kBest = kMin;
-  if (opt.breakDeltaChi2 > 0 && z[kMin]! >= opt.lowZ && grid.galaxyKinds[bestT[kMin]!] === 'lyman-break') {
+  if (opt.breakDeltaChi2 > 0 && z[kMin]! >= opt.lowZ && bestT[kMin]! < nt && grid.galaxyKinds[bestT[kMin]!] === 'lyman-break') {
     let kLow = -1;
     for (let k = 0; k < nz && z[k]! < opt.lowZ; k++) if (kLow < 0 || post[k]! < post[kLow]!) kLow = k;
     if (kLow >= 0 && post[kLow]! - postMin < opt.breakDeltaChi2) kBest = kLow;
@@ -235,6 +269,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
     }
   }
 
+  const mix = bestT[kBest]! >= nt ? pairMix(grid, bestT[kBest]! - nt, kBest, w, tNum, tDen) : undefined;
   const result: PhotoZFit = {
     z: refineMinimum(post, z, kBest),
     z68: [quantile(0.16), quantile(0.84)],
@@ -244,12 +279,32 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
     class: starChi2 <= galaxyChi2 ? 'star' : 'galaxy',
     starChi2,
     galaxyChi2,
-    galaxyTemplate: grid.galaxyIds[bestT[kBest]!]!,
+    galaxyTemplate: mix ? mix.templates[mix.shares[0] >= mix.shares[1] ? 0 : 1] : grid.galaxyIds[bestT[kBest]!]!,
     starTemplate: starBest >= 0 ? grid.starIds[starBest]! : null,
     bands,
   };
+  if (mix) result.galaxyMix = mix;
   if (opt.withPosterior) result.posterior = Float64Array.from(mass, (p, k) => p / total / (edges[k + 1]! - edges[k]!));
   return result;
+}
+
+/** Pair p's two templates at node k and their shares of the fitted model's summed band flux. */
+function pairMix(grid: ModelGrid, p: number, k: number, w: Float64Array, tNum: Float64Array, tDen: Float64Array): NonNullable<PhotoZFit['galaxyMix']> {
+  const nb = grid.bands.length;
+  const nz = grid.redshift.z.length;
+  const ta = grid.pairs[2 * p]!;
+  const tb = grid.pairs[2 * p + 1]!;
+  let cr = 0;
+  let fa = 0;
+  let fb = 0;
+  for (let b = 0; b < nb; b++) {
+    cr += w[k * nb + b]! * grid.pairProduct[(p * grid.pairNz + k) * nb + b]!;
+    fa += grid.galaxy[(ta * nz + k) * nb + b]!;
+    fb += grid.galaxy[(tb * nz + k) * nb + b]!;
+  }
+  const s = solveNonNegativePair(tNum[ta * nz + k]!, tNum[tb * nz + k]!, tDen[ta * nz + k]!, tDen[tb * nz + k]!, cr);
+  const total = s.a1 * fa + s.a2 * fb;
+  return { templates: [grid.galaxyIds[ta]!, grid.galaxyIds[tb]!], shares: total > 0 ? [(s.a1 * fa) / total, (s.a2 * fb) / total] : [0.5, 0.5] };
 }
 
 /** The χ² minimum between nodes: a parabola through the node and its neighbours, in ln(1 + z), moved at most half a step. */

@@ -4,6 +4,7 @@ import { bandSampler, type BandSampler } from './photometry';
 import type { TemplateSet } from './analyticTemplates';
 import { templateErrorFraction } from './templateError';
 import { lnVolumePrior } from './priors';
+import { DEFAULT_TEMPLATE_PAIRS, type TemplatePairs } from './templatePairs';
 
 /** Redshifts of the fit: uniform in ln(1 + z), so Δz/(1 + z) is the same everywhere. */
 export interface RedshiftGrid {
@@ -61,10 +62,18 @@ export interface ModelGrid {
   templateError: Float64Array;
   /** ln of the comoving-volume prior at each z node (priors.ts), peak 0. */
   lnVolumePrior: Float64Array;
+  /**
+   * Two-template fits (templatePairs.ts): galaxy indices (first, second) of pair p at
+   * `pairs[2p]`, `pairs[2p + 1]`; fitted on the first `pairNz` redshift nodes only.
+   */
+  pairs: Int16Array;
+  pairNz: number;
+  /** M_first · M_second per pair, node and band, `pairProduct[(p·pairNz + k)·nBands + b]` (the cross term of the 2 × 2 solve). */
+  pairProduct: Float64Array;
 }
 
 /** Builds the model grid. Costs ≈ (bands × samples per band × redshifts) IGM evaluations once. */
-export function buildModelGrid(set: TemplateSet, bands: FilterCurve[], redshift: RedshiftGrid = redshiftGrid()): ModelGrid {
+export function buildModelGrid(set: TemplateSet, bands: FilterCurve[], redshift: RedshiftGrid = redshiftGrid(), pairing: TemplatePairs = DEFAULT_TEMPLATE_PAIRS): ModelGrid {
   if (bands.length === 0) throw new RangeError('a photometric fit needs at least one band');
   const samplers = bands.map((b) => bandSampler(b));
   const galaxies = set.templates.filter((t) => t.class === 'galaxy');
@@ -112,7 +121,22 @@ export function buildModelGrid(set: TemplateSet, bands: FilterCurve[], redshift:
       starExtrapolated[t * nb + b] = inside < 0.5 ? 1 : 0;
     }
   }
+  // Pairs: every first × second template present in the set (by id prefix), up to pairing.maxZ.
+  const pick = (prefixes: string[]) => galaxies.flatMap((t, i) => (prefixes.some((p) => t.id === p || t.id.startsWith(`${p}-`)) ? [i] : []));
+  const firsts = pick(pairing.first);
+  const seconds = pick(pairing.second).filter((i) => !firsts.includes(i));
+  const pairs = Int16Array.from(firsts.flatMap((a) => seconds.flatMap((b) => [a, b])));
+  const np = pairs.length / 2;
+  let pairNz = 0;
+  while (np > 0 && pairNz < nz && redshift.z[pairNz]! <= pairing.maxZ) pairNz++;
+  const pairProduct = new Float64Array(np * pairNz * nb);
+  for (let p = 0; p < np; p++) {
+    for (let k = 0; k < pairNz; k++) {
+      for (let b = 0; b < nb; b++) pairProduct[(p * pairNz + k) * nb + b] = galaxy[(pairs[2 * p]! * nz + k) * nb + b]! * galaxy[(pairs[2 * p + 1]! * nz + k) * nb + b]!;
+    }
+  }
   return {
+    pairs, pairNz, pairProduct,
     bands: bands.map((b) => b.name), redshift,
     galaxyIds: galaxies.map((t) => t.id), galaxyKinds: galaxies.map((t) => t.kind), galaxy, galaxySquared,
     starIds: stars.map((t) => t.id), star, starExtrapolated, templateError, lnVolumePrior: lnVolumePrior(redshift.z),
