@@ -1,41 +1,56 @@
-import { mkdtempSync, rmSync } from 'node:fs';
+import { spawn } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
 import { availableParallelism, tmpdir } from 'node:os';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
-import { loadConfig } from '../../backend/src/config';
-import { startServer } from '../../backend/src/server';
 import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
 
 /**
- * `npm run bench:load -- [--readers 50] [--seconds 20] [--ingest 2000] [--json]`
+ * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--json]`
  *
  * Many signed-in readers on the routes the inspection screen uses, while a large upload is being
  * scanned on the same server: the reader's queue, a spectrum's detail, its arrays (/data) and its
- * χ²(z) curves, plus the campaign's spectra list. Loopback only; the server runs in this process
- * on a throw-away DATA_DIR with the demo campaigns. Prints p50/p95/p99 latency, requests and
- * errors per route, then the figures as JSON on the last line. Targets (issue 13): p95 ≤ 50 ms
+ * χ²(z) curves, plus the campaign's spectra list. Loopback only. The server runs as its own
+ * process (as in production: the load generator must not share its event loop) on a throw-away
+ * DATA_DIR with the demo campaigns; its CPU time is read from /proc at the end. Prints p50/p95/p99 latency, requests and
+ * errors per route, then the figures as JSON on the last line.
+ *
+ * Each reader is one connection sending `--rate` requests a second (default 2: a reader opening a
+ * spectrum every few seconds fetches its detail, arrays, curves and model, and the queue), so 50
+ * readers offer ≈ 100 requests a second. `--rate 0` removes the limit: every connection sends its
+ * next request as soon as the last is answered, a stress test whose latency is then simply
+ * connections ÷ throughput. Targets (issue 13): p95 ≤ 50 ms
  * for detail and queue, ≤ 150 ms for data and curves, 0 errors.
  */
 const { values } = parseArgs({
   options: {
     readers: { type: 'string', default: '50' },
+    rate: { type: 'string', default: '2' },
     seconds: { type: 'string', default: '20' },
     ingest: { type: 'string', default: '2000' },
     json: { type: 'boolean', default: false },
   },
 });
 const readers = Number(values.readers);
+const rate = Number(values.rate);
 const seconds = Number(values.seconds);
 const ingestCount = Number(values.ingest);
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'redward-load-'));
 const archive = ingestCount > 0 ? zip(syntheticSpectrumFiles(ingestCount, { pixels: 4000, prefix: 'LOAD' })) : null;
 
-const server = await startServer(
-  loadConfig({ DATA_DIR: dataDir, PORT: '0', HOST: '127.0.0.1', LOG_LEVEL: 'silent', MAIL_CATCHER_PORT: '0', UPLOAD_MAX_TOTAL_MB: '4096', UPLOAD_MAX_FILE_MB: '4096' }),
-);
-const origin = server.url;
+const port = await freePort();
+const origin = `http://127.0.0.1:${port}`;
+const root = fileURLToPath(new URL('../..', import.meta.url));
+const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'backend/src/cli/api-server.ts')], {
+  cwd: root,
+  env: { ...process.env, DATA_DIR: dataDir, API_PORT: String(port), LOG_LEVEL: 'silent', MAIL_CATCHER_PORT: '0', UPLOAD_MAX_TOTAL_MB: '4096', UPLOAD_MAX_FILE_MB: '4096' },
+  stdio: ['ignore', 'ignore', 'inherit'],
+});
+await waitForHealth();
 
 async function signIn(email: string): Promise<string> {
   const res = await fetch(`${origin}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json', origin }, body: JSON.stringify({ email, password: 'redward-demo' }) });
@@ -119,6 +134,7 @@ try {
           url: origin,
           connections: perRoute,
           duration: seconds,
+          ...(rate > 0 ? { connectionRate: rate } : {}),
           requests: [{ setupRequest: (req) => ({ ...req, method: 'GET', path: route.path(), headers: { cookie: cookie[next++ % cookie.length]! } }) }],
         },
         (err, result) => {
@@ -139,23 +155,58 @@ try {
       instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
     });
   });
+  const cpuBefore = serverCpuMs();
+  const mainBefore = serverCpuMs('main');
   const figures = await Promise.all(runs);
+  const serverCpu = serverCpuMs() - cpuBefore;
+  const mainCpu = serverCpuMs('main') - mainBefore;
+  const requestsServed = figures.reduce((sum, f) => sum + f.requests, 0);
   const ingestResult = ingest ? await ingest : null;
 
   if (!values.json) {
-    console.log(`${readers} readers for ${seconds} s on ${availableParallelism()} cores, ${ingestCount}-spectrum upload being scanned meanwhile`);
+    console.log(`${readers} readers at ${rate > 0 ? `${rate} requests/s each` : 'no rate limit'} for ${seconds} s on ${availableParallelism()} cores, ${ingestCount}-spectrum upload being scanned meanwhile`);
     console.log('route          requests  errors  non-2xx   p50 ms   p95 ms   p99 ms   max ms');
     for (const f of figures) {
       console.log(
         `${f.route.padEnd(14)} ${String(f.requests).padStart(8)} ${String(f.errors).padStart(7)} ${String(f.non2xx).padStart(8)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${f.max.toFixed(1).padStart(8)}`,
       );
     }
+    console.log(`server process CPU during the load: ${(serverCpu / 1000).toFixed(1)} s (all its threads, scans included) for ${requestsServed} requests; its web (main) thread ${(mainCpu / 1000).toFixed(1)} s = ${(mainCpu / requestsServed).toFixed(2)} ms a request, ingest work on that thread included`);
     if (ingestResult) console.log(`ingest: ${ingestResult.stored} stored, ${ingestResult.state} after ${ingestResult.seconds.toFixed(1)} s`);
   }
-  console.log(JSON.stringify({ readers, seconds, cores: availableParallelism(), ingest: ingestResult, routes: figures }));
+  console.log(JSON.stringify({ readers, rate, seconds, cores: availableParallelism(), ingest: ingestResult, serverCpuSeconds: Number((serverCpu / 1000).toFixed(1)), mainThreadCpuMsPerRequest: Number((mainCpu / requestsServed).toFixed(2)), routes: figures }));
 } finally {
-  await server.close();
+  server.kill('SIGTERM');
+  await new Promise((r) => server.once('exit', r));
   rmSync(dataDir, { recursive: true, force: true });
+}
+
+/** CPU time of the server process so far, all threads (proc(5): utime + stime, in clock ticks of 10 ms). */
+function serverCpuMs(thread?: 'main'): number {
+  const stat = thread === 'main' ? `/proc/${server.pid}/task/${server.pid}/stat` : `/proc/${server.pid}/stat`;
+  const fields = readFileSync(stat, 'utf8').split(') ')[1]!.split(' ');
+  return (Number(fields[11]) + Number(fields[12])) * 10;
+}
+
+async function freePort(): Promise<number> {
+  const probe = createServer();
+  await new Promise<void>((r) => probe.listen(0, '127.0.0.1', r));
+  const { port: free } = probe.address() as { port: number };
+  await new Promise((r) => probe.close(r));
+  return free;
+}
+
+async function waitForHealth(): Promise<void> {
+  for (let i = 0; i < 600; i++) {
+    if (server.exitCode !== null) throw new Error(`the server exited with ${server.exitCode} before answering`);
+    try {
+      if ((await fetch(`${origin}/api/health`)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error('the server did not answer /api/health within 120 s');
 }
 
 function pick<T>(items: T[]): T {
