@@ -5,6 +5,7 @@ import { calzettiTransmission } from '../../backend/src/photoz/dust';
 import { photoZIgm } from '../../backend/src/photoz/igm';
 import { bandAverageFnu, effectiveWavelength, nJyFromAb } from '../../backend/src/photoz/photometry';
 import { readSpectrum } from '../../backend/src/spectra/readSpectrum';
+import { gaussianFrom, mulberry32 } from '../../backend/src/spectra/seededRandom';
 
 /**
  * A mock photometric catalogue for the held-out check, built on purpose from SEDs the fit does not
@@ -33,15 +34,8 @@ export const MOCK_BANDS: Array<[string, number]> = [
 
 /** Deterministic uniform and normal deviates (mulberry32; Box–Muller). */
 function rng(seed: number) {
-  let a = seed >>> 0;
-  const u = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  const n = () => Math.sqrt(-2 * Math.log(1 - u())) * Math.cos(2 * Math.PI * u());
+  const u = mulberry32(seed);
+  const n = gaussianFrom(u);
   return { u, n, range: (lo: number, hi: number) => lo + (hi - lo) * u() };
 }
 

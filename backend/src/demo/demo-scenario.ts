@@ -1,4 +1,5 @@
 import type { TemplateClass } from '../spectra/types';
+import { gaussianFrom, mulberry32 } from '../spectra/seededRandom';
 
 /**
  * The invented demo campaigns' targets and what their spectra really are. Every name, position
@@ -19,15 +20,8 @@ export interface DemoTarget {
 
 /** Seeded PRNG (mulberry32) so the demo is the same on every machine. */
 export function seeded(seed: number) {
-  let a = seed >>> 0;
-  const next = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  const gauss = () => Math.sqrt(-2 * Math.log(1 - next())) * Math.cos(2 * Math.PI * next());
+  const next = mulberry32(seed);
+  const gauss = gaussianFrom(next);
   return { next, gauss, between: (lo: number, hi: number) => lo + (hi - lo) * next() };
 }
 

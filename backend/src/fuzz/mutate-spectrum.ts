@@ -1,16 +1,8 @@
 import { gzipSync } from 'fflate';
+import { mulberry32 } from '../spectra/seededRandom';
 
-/** A seeded generator of uniform numbers in [0, 1) (mulberry32: small, fast, reproducible). */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** A seeded generator of uniform numbers in [0, 1), so a case number names one mutation for ever. */
+export const seededRandom = mulberry32;
 
 export type MutationKind = 'truncate' | 'flip-bits' | 'duplicate-region' | 'absurd-header' | 'non-finite' | 'huge-size' | 'gzip';
 

@@ -1,16 +1,14 @@
-import { readFileSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
 import type { CombLines } from '../contracts/line-measurements';
 import { spectra } from '../db/schema';
 import { AppError } from '../http/errors';
-import { SpectrumReadError } from '../spectra/errors';
 import { linesForClass } from '../spectra/linesForClass';
 import { lineFwhmForClass, measureCombLines, type LineMeasurement } from '../spectra/measureCombLines';
-import { readSpectrum } from '../spectra/readSpectrum';
 import { resolutionElement, resolutionZFloor } from '../spectra/resolutionElement';
 import { toVacuumArray } from '../spectra/toVacuum';
 import type { FluxUnit } from '../spectra/types';
 import type { ServiceContext } from './context';
+import { readStoredSpectrum } from './spectrum-data';
 
 /** Integrated flux unit: the f_λ unit times Å, else the file's unit (or "arbitrary") × Å. */
 function integratedUnit(unit: FluxUnit): string {
@@ -31,13 +29,7 @@ function scaled(m: LineMeasurement, scale: number): LineMeasurement {
  */
 export function measureSpectrumLines(ctx: ServiceContext, spectrumId: number, z: number, cls?: string): CombLines {
   const row = ctx.db.select({ sha256: spectra.sha256, fileName: spectra.fileName }).from(spectra).where(eq(spectra.id, spectrumId)).get()!;
-  let spectrum;
-  try {
-    spectrum = readSpectrum(readFileSync(ctx.store.pathOf(row.sha256)));
-  } catch (err) {
-    if (err instanceof SpectrumReadError) throw new AppError(422, 'spectrum_unreadable', `${row.fileName} can no longer be read: ${err.message}`);
-    throw err;
-  }
+  const spectrum = readStoredSpectrum(ctx, row);
   const wavelength = spectrum.meta.medium === 'air' ? toVacuumArray(spectrum.wavelength) : spectrum.wavelength;
   if (wavelength.length < 2) throw new AppError(422, 'spectrum_unreadable', `${row.fileName} has fewer than two pixels: there is no line to measure.`);
   const resolution = resolutionElement(wavelength);

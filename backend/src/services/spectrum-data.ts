@@ -44,14 +44,18 @@ export function packSpectrumData(ctx: ServiceContext, spectrumId: number): Packe
   return { packed, etag };
 }
 
-function packStoredFile(ctx: ServiceContext, row: { sha256: string; fileName: string }): Buffer {
-  let spectrum;
+/** A stored spectrum file read again; a file that no longer reads is a 422 naming it, never a 500. */
+export function readStoredSpectrum(ctx: ServiceContext, row: { sha256: string; fileName: string }) {
   try {
-    spectrum = readSpectrum(readFileSync(ctx.store.pathOf(row.sha256)));
+    return readSpectrum(readFileSync(ctx.store.pathOf(row.sha256)));
   } catch (err) {
     if (err instanceof SpectrumReadError) throw new AppError(422, 'spectrum_unreadable', `${row.fileName} can no longer be read: ${err.message}`);
     throw err;
   }
+}
+
+function packStoredFile(ctx: ServiceContext, row: { sha256: string; fileName: string }): Buffer {
+  const spectrum = readStoredSpectrum(ctx, row);
   const n = spectrum.wavelength.length;
   const wavelength = spectrum.meta.medium === 'air' ? toVacuumArray(spectrum.wavelength) : spectrum.wavelength;
   const header = Buffer.from(

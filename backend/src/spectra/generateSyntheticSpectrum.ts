@@ -2,6 +2,7 @@ import { templateSetFor } from './buildTemplates';
 import { DEFAULT_LOG_STEP } from './logGrid';
 import { arbitraryFluxUnit } from './parseFluxUnit';
 import type { Spectrum, TemplateClass } from './types';
+import { mulberry32 } from './seededRandom';
 
 export interface SyntheticOptions {
   /** Template class; its first recipe of that class is used ('galaxy' → emission-line galaxy). */
@@ -20,17 +21,8 @@ export interface SyntheticOptions {
   maskedFraction?: number;
 }
 
-/** Deterministic 32-bit PRNG (mulberry32) so tests and demos reproduce exactly. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Deterministic so tests and demos reproduce exactly. */
+const rng = mulberry32;
 
 const DEFAULT_TEMPLATE: Record<TemplateClass, string> = {
   galaxy: 'galaxy-emission',

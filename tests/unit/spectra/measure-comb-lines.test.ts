@@ -2,19 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { lineByName } from '../../../backend/src/spectra/lineList';
 import { C_KMS } from '../../../backend/src/spectra/logGrid';
 import { measureCombLines, type MeasureInput } from '../../../backend/src/spectra/measureCombLines';
+import { gaussianFrom, mulberry32 } from '../../../backend/src/spectra/seededRandom';
 
-/** Seeded Gaussian noise (mulberry32 + Box–Muller), so every figure below reproduces. */
-function noise(seed: number): () => number {
-  let a = seed >>> 0;
-  const uniform = () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
-}
+/** Seeded Gaussian noise, so every figure below reproduces. */
+const noise = (seed: number) => gaussianFrom(mulberry32(seed));
 
 interface Feature {
   /** Observed centre, Å. */
