@@ -2,8 +2,10 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { inArray } from 'drizzle-orm';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { loadConfig } from '../../backend/src/config';
+import { jobs } from '../../backend/src/db/schema';
 import { startServer, type RunningServer } from '../../backend/src/server';
 
 export const CHROMIUM_PATH = '/usr/bin/chromium';
@@ -66,4 +68,23 @@ export async function signInThroughPage(page: Page, baseUrl: string, email: stri
   await page.getByLabel('Password', { exact: true }).fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL(/\/campaigns/);
+}
+
+/**
+ * Waits until the demo seed's scan jobs (ids 1 and 2 on a new database) are done and returns
+ * their states in the order asked, so a test can assert on them rather than time out later on an
+ * empty screen.
+ */
+export async function waitForDemoScans(server: E2eServer, jobIds: number[] = [1, 2], timeoutMs = 180_000): Promise<string[]> {
+  const db = server.ctx.db;
+  const states = () => {
+    const rows = db.select({ id: jobs.id, state: jobs.state }).from(jobs).where(inArray(jobs.id, jobIds)).all();
+    return jobIds.map((id) => rows.find((r) => r.id === id)?.state ?? 'missing');
+  };
+  for (const end = Date.now() + timeoutMs; Date.now() < end; ) {
+    const now = states();
+    if (now.every((s) => s === 'done')) return now;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  return states();
 }

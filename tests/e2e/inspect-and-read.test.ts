@@ -1,10 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { eq, inArray } from 'drizzle-orm';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { jobs } from '../../backend/src/db/schema';
-import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
+import { launchBrowser, signInThroughPage, startE2eServer, waitForDemoScans, type E2eServer } from './browser';
 
 const axePath = createRequire(import.meta.url).resolve('axe-core/axe.min.js');
 
@@ -15,13 +13,8 @@ beforeAll(async () => {
   // The demo campaigns with their 120 synthetic spectra, assigned to both demo readers.
   server = await startE2eServer({ demoSpectra: true });
   browser = await launchBrowser();
-  const db = server.ctx.db;
-  for (let i = 0; i < 1200; i++) {
-    const states = db.select({ state: jobs.state }).from(jobs).where(inArray(jobs.id, [1, 2])).all();
-    if (states.length === 2 && states.every((s) => s.state === 'done')) break;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  expect(db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, 1)).get()!.state).toBe('done');
+  // Both demo campaigns are scanned; the Lantern one (job 1) is the one these screens read.
+  expect((await waitForDemoScans(server, [1, 2], 120_000))[0]).toBe('done');
 }, 180_000);
 afterAll(async () => {
   await browser?.close();

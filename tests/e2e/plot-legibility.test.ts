@@ -6,7 +6,7 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 import { jobs, users } from '../../backend/src/db/schema';
 import { receiveUpload } from '../../backend/src/services/receive-upload';
 import { generateSyntheticSpectrum } from '../../backend/src/spectra/generateSyntheticSpectrum';
-import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
+import { launchBrowser, signInThroughPage, startE2eServer, waitForDemoScans, type E2eServer } from './browser';
 
 /*
  * The plot a reader reads at the detection limit: the demo's faint arc LNT-W01 (S/N ≈ 2 per
@@ -35,12 +35,7 @@ beforeAll(async () => {
   server = await startE2eServer({ demoSpectra: true });
   browser = await launchBrowser();
   // Job 1 scans the Lantern campaign's spectra, the faint arc among them.
-  const db = server.ctx.db;
-  for (let i = 0; i < 1800; i++) {
-    if (db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, 1)).get()?.state === 'done') break;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  expect(db.select({ state: jobs.state }).from(jobs).where(eq(jobs.id, 1)).get()!.state).toBe('done');
+  expect(await waitForDemoScans(server, [1])).toEqual(['done']);
   mkdirSync(SCREENS, { recursive: true });
   mkdirSync(ARTEFACTS, { recursive: true });
 }, 240_000);
