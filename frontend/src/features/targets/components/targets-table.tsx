@@ -32,12 +32,12 @@ const columns = helper.columns([
   helper.accessor((t) => orBlank(t.magnitude), { id: 'magnitude', header: 'Magnitude', ...blankLast, cell: (c) => num(c.getValue(), 2) }),
   helper.accessor((t) => orBlank(t.photoZ), { id: 'photoZ', header: () => (
       <>
-        Photo-<span className="normal-case">z</span> (68 %)
+        Catalogue photo-<span className="normal-case">z</span> (68 %)
       </>
     ), ...blankLast, cell: (c) => photoZ(c.row.original) }),
   helper.accessor((t) => orBlank(t.photoZFit?.z), { id: 'zPhot', header: () => (
       <>
-        Computed <span className="normal-case">z</span> (95 %)
+        Computed photo-<span className="normal-case">z</span> (95 %)
       </>
     ), ...blankLast, cell: (c) => {
       const fit = c.row.original.photoZFit;
