@@ -9,7 +9,7 @@ import { countConfusion, emptyConfusion, formatConfusion, type ConfusionMatrix }
 import { writeIndependentSky, type SkyTruth } from '../validation/independentSky/generateIndependentSky';
 import { formatHalf, readManifest, scoreRealSpectra, type HalfScore } from '../validation/realSpectraSplit';
 
-// `npm run accuracy -- [--quick] [--json] [--only real,generator,sky] [--per-case N] [--sky N] [--seed S] [--keep DIR]`
+// `npm run accuracy -- [--quick] [--json] [--only real,generator,sky] [--per-case N] [--sky N] [--seed S] [--keep DIR] [--misses]`
 // (i) the real spectra, tuning and validation halves; (ii) the engine's own synthetic generator per
 // class and S/N; (iii) the independent sky (backend/src/validation/independentSky). Seeded, reproducible.
 const args = process.argv.slice(2);
@@ -28,10 +28,10 @@ function count(name: string, fallback: number): number {
   if (!Number.isInteger(n) || n < 1) usage(`${name} needs a positive whole number`);
   return n;
 }
-const known = new Set(['--quick', '--json', '--only', '--per-case', '--sky', '--seed', '--keep']);
+const known = new Set(['--quick', '--json', '--misses', '--only', '--per-case', '--sky', '--seed', '--keep']);
 for (let i = 0; i < args.length; i++) {
   if (!known.has(args[i]!)) usage(`unknown argument ${args[i]}`);
-  if (!['--quick', '--json'].includes(args[i]!)) i++;
+  if (!['--quick', '--json', '--misses'].includes(args[i]!)) i++;
 }
 const quick = flag('--quick');
 const json = flag('--json');
@@ -41,6 +41,7 @@ const perCase = count('--per-case', quick ? 8 : 40);
 const skyCount = count('--sky', quick ? 60 : 1000);
 const seed = count('--seed', 2024);
 const keep = option('--keep');
+const listMisses = flag('--misses');
 
 /** |Δz|/(1 + z) ≤ 0.002: the redshift is right (the engine's tolerance for galaxies). */
 const RIGHT = 0.002;
@@ -189,6 +190,14 @@ if (only.has('sky')) {
   const nBreak = bright.filter((o) => o.truth.kind === 'quiescent' || o.truth.kind === 'post-starburst').length;
   print(`\nS/N ≥ 10: Lyman-break read as galaxy ${lbgAsGalaxy.length}/${nLbg}; 4000 Å-break galaxies (quiescent, post-starburst) read as Lyman-break ${breakAsLbg.length}/${nBreak}`);
   for (const o of [...lbgAsGalaxy, ...breakAsLbg]) print(`  ${o.truth.file} ${o.truth.subclass} z ${o.truth.z.toFixed(4)} S/N ${o.truth.snr.toFixed(1)} → ${o.found} z ${o.top ? o.top.z.toFixed(4) : '–'} ${o.top?.template ?? ''}`);
+  if (listMisses) {
+    // Every sky spectrum whose top solution is wrong, with the draw's notes and where the truth ranks.
+    print('\nmisses (file kind/subclass z S/N [notes] → top solution; rank of the right one)');
+    for (const o of outcomes.filter((x) => !x.right)) {
+      const t = o.truth;
+      print(`  ${t.file} ${t.subclass} z ${t.z.toFixed(4)} S/N ${t.snr.toFixed(1)} ${t.lambdaMin.toFixed(0)}–${t.lambdaMax.toFixed(0)} Å [${t.notes}] → ${o.found} ${o.top ? `${o.top.template} z ${o.top.z.toFixed(4)} Δv ${((299_792.458 * (o.top.z - t.z)) / (1 + t.z)).toFixed(0)} km/s` : o.readError ?? 'none'}`);
+    }
+  }
   const readErrors = outcomes.filter((o) => o.readError);
   if (readErrors.length > 0) {
     print(`\nfiles the readers refused: ${readErrors.length}`);
@@ -208,6 +217,6 @@ print(`total ${seconds(started)} s`);
 if (json) console.log(JSON.stringify({ ...out, totalSeconds: Number(seconds(started)) }));
 
 function usage(why: string): never {
-  console.error(`Usage: npm run accuracy -- [--quick] [--json] [--only real,generator,sky] [--per-case N] [--sky N] [--seed S] [--keep DIR]  (${why})`);
+  console.error(`Usage: npm run accuracy -- [--quick] [--json] [--only real,generator,sky] [--per-case N] [--sky N] [--seed S] [--keep DIR] [--misses]  (${why})`);
   process.exit(2);
 }

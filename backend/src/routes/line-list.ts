@@ -5,12 +5,12 @@ import { defineRoute } from '../http/define-route';
 import type { ServiceContext } from '../services/context';
 import { combLineClasses } from '../spectra/combLineClasses';
 import { LINES } from '../spectra/lineList';
-import { TEMPLATE_RECIPES } from '../spectra/templateRecipes';
+import { ENGINE_RECIPES } from '../spectra/templateRecipes';
 
 /** The rest-frame features of the comb, vacuum wavelengths in Å, with their sources and the classes whose templates draw them. */
 export function lineListRoutes(ctx: ServiceContext): Router {
   const router = Router();
-  const classes = combLineClasses(TEMPLATE_RECIPES, LINES);
+  const classes = combLineClasses(ENGINE_RECIPES, LINES);
   const lines = LINES.map((l) => ({ name: l.name, species: l.species, rest: l.rest, kind: l.kind, source: l.source, ...(l.widthA ? { widthA: l.widthA } : {}), ...classes.get(l.name)! }));
   defineRoute(ctx, router, {
     method: 'get',

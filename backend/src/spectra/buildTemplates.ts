@@ -3,7 +3,7 @@ import { highPass } from './highPass';
 import { DEFAULT_IGM_MODEL, meanIgmTransmission, type IgmModel } from './igmTransmission';
 import { TEMPLATE_LINES, type SpectralLine } from './lineList';
 import { C_KMS } from './logGrid';
-import { TEMPLATE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type ProximityZone, type TemplateRecipe } from './templateRecipes';
+import { ENGINE_RECIPES, type ComponentRecipe, type ContinuumRecipe, type ProximityZone, type TemplateRecipe } from './templateRecipes';
 import type { TemplateClass } from './types';
 
 /** Rest-frame range every template covers, Å: wide enough for 0 ≤ z ≤ 9 on optical–K-band data. */
@@ -51,6 +51,8 @@ export interface BuiltTemplate {
   class: TemplateClass;
   zMin: number;
   zMax: number;
+  /** Scanned over the whole range (false: a variant fitted only near candidates; see TemplateRecipe.refineOnly). */
+  scanned: boolean;
   basis: TemplateBasis[];
   bins: TemplateBin[];
   /** Lines the recipe uses, for reporting which features support a solution. */
@@ -104,7 +106,7 @@ export function buildTemplates(step: number, instrumentSigmaPx: number, continuu
   const length = Math.ceil(Math.log10(REST_MAX_A) / step) - h0 + 1;
   const lambda = new Float64Array(length);
   for (let j = 0; j < length; j++) lambda[j] = 10 ** ((h0 + j) * step);
-  const templates = TEMPLATE_RECIPES.map((r) => buildOne(r, lambda, step, instrumentSigmaPx, continuumWidthPx, model));
+  const templates = ENGINE_RECIPES.map((r) => buildOne(r, lambda, step, instrumentSigmaPx, continuumWidthPx, model));
   return { step, h0, length, continuumWidthPx, instrumentSigmaPx, igmModel: model, templates, key: `${step}|${instrumentSigmaPx}|${continuumWidthPx}|${model}`, products: new Map() };
 }
 
@@ -158,6 +160,7 @@ function buildOne(recipe: TemplateRecipe, lambda: Float64Array, step: number, si
     class: recipe.class,
     zMin: recipe.zMin,
     zMax: recipe.zMax,
+    scanned: !recipe.refineOnly,
     basis,
     bins,
     lines: [...used].sort((a, b) => a.rest - b.rest),

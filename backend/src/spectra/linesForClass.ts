@@ -1,10 +1,10 @@
 import { combLineClasses } from './combLineClasses';
 import { LINES, type SpectralLine } from './lineList';
-import { TEMPLATE_RECIPES } from './templateRecipes';
+import { ENGINE_RECIPES } from './templateRecipes';
 import type { SpectrumClass, TemplateClass } from './types';
 
 // The same derivation the comb draws from (combLineClasses): what is measured is what is shown.
-const CLASSES_OF_LINE = combLineClasses(TEMPLATE_RECIPES, LINES);
+const CLASSES_OF_LINE = combLineClasses(ENGINE_RECIPES, LINES);
 
 /**
  * The comb lines a solution of this class can show: those some template of the class draws. A

@@ -12,7 +12,8 @@ import { scanData, scanTemplates, type TemplateCurve, type TemplateRequest } fro
 import { checksSingleFeature, featureShare } from './singleFeatureCheck';
 import type { Spectrum, SpectrumClass, TemplateClass } from './types';
 import { ENGINE_VERSION } from './version';
-import { TEMPLATE_RECIPES } from './templateRecipes';
+import { ENGINE_RECIPES } from './templateRecipes';
+import { refineQuasarCandidates } from './refineQuasarBlueshift';
 
 export interface ScanOptions extends PrepareOptions {
   /** Redshift range searched (default 0 … 9). Star templates always stay near z = 0. */
@@ -144,6 +145,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const classes = options.classes;
   const requests: TemplateRequest[] = [];
   for (const t of set.templates) {
+    if (!t.scanned) continue;
     if (classes && !classes.includes(t.class)) continue;
     // Stars are Galactic: their templates cover only |z| ≤ 0.002 regardless of the range asked.
     if (t.class === 'star' && zMin > 0.002) continue;
@@ -153,7 +155,16 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   for (const c of curves) dropShiftsWithoutFeatures(c, prepared, data.chi2Null);
   addLymanBreakChecks(curves, prepared, igmModel);
   const maxSolutions = options.maxSolutions ?? 5;
-  const candidates = findMinima(curves, set.step, 4 * maxSolutions + 4);
+  const refined = refineQuasarCandidates(findMinima(curves, set.step, 4 * maxSolutions + 4), {
+    data,
+    set,
+    scanned: curves,
+    finishCurve: (c) => {
+      dropShiftsWithoutFeatures(c, prepared, data.chi2Null);
+      addLymanBreakChecks([c], prepared, igmModel);
+    },
+  });
+  const candidates = refined.candidates;
   const check = options.singleFeatureCheck ?? true;
   const bins = options.shapeCheck ?? true ? shapeBins(prepared) : undefined;
   // The checks too costly for every shift, run on candidates about to be chosen and on the
@@ -171,9 +182,11 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     const shape = bins ? shapeChi2(bins, prepared, set, t, shift, (lambda, z) => meanIgmTransmission(lambda, z, igmModel)) : undefined;
     return { single, share, shape };
   };
-  const curveOf = new Map(curves.map((c) => [c.template.id, c]));
+  // A candidate's curve: its template's, holding its shift (refined variants cover a narrow window each).
+  const allCurves = [...curves, ...refined.curves];
+  const curveOf = (cand: RawSolution) => allCurves.find((c) => c.template.id === cand.template && cand.shift >= c.sMin && cand.shift < c.sMin + c.chi2.length)!;
   const lazyChecks = (cand: RawSolution): number => {
-    const r = lazyAt(curveOf.get(cand.template)!, cand.shift);
+    const r = lazyAt(curveOf(cand), cand.shift);
     if (r.share !== undefined) cand.featureShare = r.share;
     if (r.single > 0) cand.penalty = r.single;
     if (r.shape !== undefined) cand.shapeChi2 = r.shape;
@@ -303,7 +316,7 @@ function addLymanBreakChecks(curves: TemplateCurve[], prepared: PreparedSpectrum
 }
 
 function continuumSlope(templateId: string): number {
-  const recipe = TEMPLATE_RECIPES.find((r) => r.id === templateId);
+  const recipe = ENGINE_RECIPES.find((r) => r.id === templateId);
   const continuum = recipe?.components.find((c) => c.continuum?.shape === 'power-law')?.continuum;
   return continuum?.shape === 'power-law' ? continuum.slope : -2;
 }

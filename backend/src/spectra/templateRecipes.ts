@@ -53,7 +53,55 @@ export interface TemplateRecipe {
   /** Use the line strengths listed under this recipe id instead of its own. */
   strengthKey?: string;
   components: ComponentRecipe[];
+  /**
+   * Built but not scanned over the whole range: a variant that refineQuasarBlueshift.ts fits only
+   * near the quasar candidates of the scan (set in code, never in templates.json).
+   */
+  refineOnly?: boolean;
 }
 
 /** Recipes from line-lists/templates.json; the JSON is the single source of truth. */
 export const TEMPLATE_RECIPES: readonly TemplateRecipe[] = data.templates as TemplateRecipe[];
+
+/**
+ * Blueshifts (km/s, toward us) of the quasar's high-ionisation group that the refinement fits
+ * (refineQuasarBlueshift.ts): 0 … 6000 in steps of 500. C IV blueshifts of quasars run from ≈ 0 to
+ * ≳ 5000 km/s (from memory: Richards et al. 2011; Meyer et al. 2019); the scan's two fixed
+ * templates sit at 2500 ('quasar') and 5000 ('quasar-strong-outflow') and stand for those steps.
+ */
+export const QUASAR_BLUESHIFTS_KMS: readonly number[] = Array.from({ length: 13 }, (_, k) => 500 * k);
+
+/** Template id of the quasar whose high-ionisation lines sit `blueshiftKms` blueward of systemic. */
+export function quasarTemplateId(blueshiftKms: number): string {
+  if (blueshiftKms === 2500) return 'quasar';
+  if (blueshiftKms === 5000) return 'quasar-strong-outflow';
+  return `quasar-blueshift-${blueshiftKms}`;
+}
+
+/** The high-ionisation blueshift (km/s) of a quasar template id, or undefined for other templates. */
+export function quasarBlueshiftOf(templateId: string): number | undefined {
+  return QUASAR_BLUESHIFTS_KMS.find((v) => quasarTemplateId(v) === templateId);
+}
+
+/**
+ * The quasar recipe with its high-ionisation group moved to each blueshift of the refinement grid
+ * that the two scanned quasars do not already hold: same continuum, lines, widths, strengths and
+ * proximity zone, only the group's velocity differs.
+ */
+function quasarBlueshiftRecipes(recipes: readonly TemplateRecipe[]): TemplateRecipe[] {
+  const base = recipes.find((r) => r.id === 'quasar');
+  if (!base) return [];
+  return QUASAR_BLUESHIFTS_KMS.filter((v) => !recipes.some((r) => r.id === quasarTemplateId(v))).map((v) => ({
+    ...base,
+    id: quasarTemplateId(v),
+    strengthKey: base.strengthKey ?? base.id,
+    refineOnly: true,
+    components: base.components.map((c) => ({
+      ...c,
+      ...(c.lineOffsets ? { lineOffsets: c.lineOffsets.map((o) => ({ ...o, velocityKms: -v, why: `The quasar's high-ionisation group at ${v} km/s blueward of systemic: a step of the fitted blueshift (refineQuasarBlueshift.ts).` })) } : {}),
+    })),
+  }));
+}
+
+/** Every template the engine builds: the recipes of templates.json and the quasar blueshift steps. */
+export const ENGINE_RECIPES: readonly TemplateRecipe[] = [...TEMPLATE_RECIPES, ...quasarBlueshiftRecipes(TEMPLATE_RECIPES)];
