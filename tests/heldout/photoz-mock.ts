@@ -23,6 +23,8 @@ export interface MockSource {
   z: number;
   flux: number[];
   err: number[];
+  /** What the mock drew (for diagnosis only; the draws do not depend on it). */
+  drawn?: { composite?: string; ebv?: number; mag?: number; beta?: number };
 }
 
 /** Ten HST + Spitzer bands and 5σ point-source depths (AB) of a deep legacy field (common practice, from memory). */
@@ -80,7 +82,8 @@ export function generateMockCatalogue(shared: string, curves: FilterCurve[], cou
     const s = readSpectrum(new Uint8Array(readFileSync(join(shared, 'composites', f))));
     return { x: s.wavelength, y: Float64Array.from(s.flux, (v, i) => (s.mask[i] ? NaN : (v * s.wavelength[i]! * s.wavelength[i]!))) };
   };
-  const lowz = ['KC96_bulge_template.fits', 'KC96_sc_template.fits', 'KC96_starb4_template.fits', 'KC96_starb5_template.fits', 'KC96_starb6_template.fits'].map(read);
+  const lowzFiles = ['KC96_bulge_template.fits', 'KC96_sc_template.fits', 'KC96_starb4_template.fits', 'KC96_starb5_template.fits', 'KC96_starb6_template.fits'];
+  const lowz = lowzFiles.map(read);
   const out: MockSource[] = [];
   const depthSigma = MOCK_BANDS.map(([, m5]) => nJyFromAb(m5) / 5);
 
@@ -97,7 +100,7 @@ export function generateMockCatalogue(shared: string, curves: FilterCurve[], cou
       flux.push(Number((truth + sigma * r.n()).toPrecision(6)));
       err.push(Number(sigma.toPrecision(4)));
     });
-    out.push({ id, kind, z, flux, err });
+    out.push({ id, kind, z, flux, err, drawn: { mag } });
   };
 
   for (let k = 0; k < counts.lbg; k++) {
@@ -150,6 +153,7 @@ export function generateMockCatalogue(shared: string, curves: FilterCurve[], cou
       fnu[i] = Math.max(0, Number.isFinite(v) ? v : 0) * calzettiTransmission(l, ebv);
     }
     observe(`lowz-${k}`, 'interloper', z, fnu, 1, 7, r.range(22.5, 26.5));
+    Object.assign(out[out.length - 1]!.drawn!, { composite: lowzFiles[t]!.replace(/_template\.fits$/, ''), ebv });
   }
   for (let k = 0; k < counts.flat; k++) {
     observe(`flat-${k}`, 'flat', 0, new Float64Array(REST.length).fill(1), 0, 7, r.range(24, 28));

@@ -5,7 +5,7 @@ import type { PhotoZTask } from './photoz-worker';
 
 const workerFile = new URL('./photoz-worker.ts', import.meta.url).href;
 
-/** Copies a grid's model arrays into SharedArrayBuffers, so every task shares them instead of copying ~1 MB. */
+/** Copies a grid's model arrays (models, squares, the pairs' cross products) into SharedArrayBuffers, so every task shares them instead of copying ~4 MB. */
 export function shareModelGrid(grid: ModelGrid): ModelGrid {
   const share = <T extends Float64Array | Uint8Array>(a: T): T => {
     const buf = new SharedArrayBuffer(a.byteLength);
@@ -13,7 +13,7 @@ export function shareModelGrid(grid: ModelGrid): ModelGrid {
     out.set(a);
     return out;
   };
-  return { ...grid, galaxy: share(grid.galaxy), galaxySquared: share(grid.galaxySquared), star: share(grid.star), starExtrapolated: share(grid.starExtrapolated) };
+  return { ...grid, galaxy: share(grid.galaxy), galaxySquared: share(grid.galaxySquared), pairProduct: share(grid.pairProduct), star: share(grid.star), starExtrapolated: share(grid.starExtrapolated) };
 }
 
 /**

@@ -29,11 +29,13 @@ export interface FitOptions {
   lowZ: number;
   /** Also return P(z) on the grid nodes (normalised to unit mass). */
   withPosterior: boolean;
+  /** Also return χ²(z), the best template's index per node (pairs after the single templates) and Σ ln σ²(z) (diagnosis). */
+  withProfile: boolean;
   /** Try the grid's two-template non-negative sums (templatePairs.ts) as well as single templates (true). */
   pairs: boolean;
 }
 
-export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', breakDeltaChi2: 4, lowZ: 2, withPosterior: false, pairs: true };
+export const DEFAULT_FIT_OPTIONS: FitOptions = { errorFloor: 0.03, extrapolatedFloor: 0.3, templateErrorScale: 1, prior: 'volume', breakDeltaChi2: 4, lowZ: 2, withPosterior: false, withProfile: false, pairs: true };
 
 /** One source's photometric redshift. χ² values are with the floored errors. */
 export interface PhotoZFit {
@@ -55,6 +57,8 @@ export interface PhotoZFit {
   /** Bands that carried a measurement (finite flux and positive error). */
   bands: number;
   posterior?: Float64Array;
+  /** With withProfile: χ²(z) on the grid nodes, the best model per node (< galaxyIds.length a template, else nt + pair) and Σ ln σ² per node. */
+  profile?: { chi2: Float64Array; best: Int32Array; lnDet: Float64Array };
 }
 
 /** Reusable per-thread buffers, so a catalogue fit allocates nothing per source. */
@@ -284,6 +288,7 @@ export function fitPhotoZ(grid: ModelGrid, flux: ArrayLike<number>, err: ArrayLi
     bands,
   };
   if (mix) result.galaxyMix = mix;
+  if (opt.withProfile) result.profile = { chi2: Float64Array.from(profile), best: Int32Array.from(bestT), lnDet: Float64Array.from(lnDet) };
   if (opt.withPosterior) result.posterior = Float64Array.from(mass, (p, k) => p / total / (edges[k + 1]! - edges[k]!));
   return result;
 }
@@ -347,7 +352,7 @@ export function fitCatalogue(grid: ModelGrid, flux: Float64Array, err: Float64Ar
     galaxyTemplate: new Int16Array(n), starTemplate: new Int16Array(n), bands: new Uint8Array(n),
   };
   const scratch = fitScratch(grid);
-  const opt = { ...options, withPosterior: false };
+  const opt = { ...options, withPosterior: false, withProfile: false };
   for (let i = 0; i < n; i++) {
     const r = fitPhotoZ(grid, flux.subarray(i * nb, (i + 1) * nb), err.subarray(i * nb, (i + 1) * nb), opt, scratch);
     out.z[i] = r.z;
