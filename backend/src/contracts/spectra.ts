@@ -69,6 +69,14 @@ export const scanSchema = z.object({
   /** Why the class is 'unknown' (engine ≥ 0.6.0). */
   unknownReason: z.string().optional(),
   solutions: z.array(solutionSchema),
+  /**
+   * The photo-z prior applied when the detail was read (the stored order above is the scan's own):
+   * the target's typed photo-z if it has one, else its computed P(z). `order` lists stored ranks
+   * (0-based) best first under the prior; `message` says when the prior moved the top solution.
+   */
+  photoZPrior: z
+    .object({ source: z.enum(['typed', 'computed']), order: z.array(z.number().int()), movedTop: z.boolean(), message: z.string() })
+    .optional(),
   lineMatches: lineMatchesSchema,
   meta: z.object({
     pixels: z.number(),

@@ -5,7 +5,8 @@ import type { Scan, SpectrumDetail } from '../contracts/spectra';
 import { preparedQuery } from '../db/prepared';
 import { assignments, campaigns, readings, scanResults, spectra, targets, users } from '../db/schema';
 import type { Actor, ServiceContext } from './context';
-import { fitsOf, photoZSummaryOf } from './photo-z-fits';
+import { fitsOf, photoZSummaryOf, posteriorOf } from './photo-z-fits';
+import { photoZPriorOf } from './solution-prior';
 import { toReadingView } from './submit-reading';
 
 // The inspection screen asks for a detail on every spectrum it opens: its reads are prepared once.
@@ -110,6 +111,7 @@ export function getSpectrumDetail(ctx: ServiceContext, actor: Actor, role: Campa
           ...unknownReasonOf(scan.meta),
           // JSON columns come back untyped; they hold what the scan stored (typed by its result).
           solutions: scan.solutions as Scan['solutions'],
+          ...priorOf(ctx, target, scan.solutions as Scan['solutions']),
           lineMatches: scan.lineMatches as Scan['lineMatches'],
           meta: withoutUnknownReason(scan.meta) as Scan['meta'],
           createdAt: scan.createdAt,
@@ -158,4 +160,11 @@ function withoutUnknownReason(meta: unknown): unknown {
 function photoZFitOf(ctx: ServiceContext, targetId: number) {
   const fit = fitsOf(ctx.db, [targetId]).get(targetId);
   return fit ? photoZSummaryOf(fit) : null;
+}
+
+function priorOf(ctx: ServiceContext, target: { id: number; photoZ: number | null; photoZLow: number | null; photoZHigh: number | null } | null, solutions: Scan['solutions']) {
+  if (!target) return {};
+  const fit = fitsOf(ctx.db, [target.id]).get(target.id);
+  const prior = photoZPriorOf(solutions as Parameters<typeof photoZPriorOf>[0], target, fit ? posteriorOf(fit) : null);
+  return prior ? { photoZPrior: prior } : {};
 }

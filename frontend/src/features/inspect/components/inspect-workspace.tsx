@@ -247,6 +247,11 @@ export function InspectWorkspace({ detail, nextId = null, arrays, curves, lines,
         <div className="flex min-w-0 flex-col gap-3">
           <Panel title="Solutions" className={OWN_PAINT}>
             {scan?.unknownReason ? <p className="mb-2 text-sm text-warning-700">Class unknown. {scan.unknownReason}</p> : null}
+            {scan?.photoZPrior ? (
+              <p className={`mb-2 text-sm ${scan.photoZPrior.movedTop ? 'text-warning-700' : 'text-ink-700'}`} data-testid="photoz-prior">
+                {scan.photoZPrior.message}. Solutions below are in the scan's own order.
+              </p>
+            ) : null}
             <SolutionsList solutions={solutions} store={store} target={detail.target} onSnap={snap} />
             <label className="mt-2 flex items-center gap-2 text-sm text-ink-700">
               <input type="checkbox" checked={showModel} onChange={(e) => setShowModel(e.target.checked)} />

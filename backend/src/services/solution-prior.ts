@@ -1,0 +1,36 @@
+import { rankWithPhotoZ } from '../spectra/rankWithPhotoZ';
+import { rankWithPz } from '../spectra/rankWithPz';
+import type { Solution } from '../spectra/scanSpectrum';
+import type { Scan } from '../contracts/spectra';
+
+interface TypedPhotoZ {
+  photoZ: number | null;
+  photoZLow: number | null;
+  photoZHigh: number | null;
+}
+
+/**
+ * The photo-z prior applied on read, so a catalogue imported after the scan takes effect without
+ * re-scanning and the stored ranking is never rewritten: typed photo-z first, else computed P(z).
+ */
+export function photoZPriorOf(solutions: readonly Solution[], target: TypedPhotoZ | null, pz: { z: number[]; p: number[] } | null): Scan['photoZPrior'] {
+  if (solutions.length === 0 || !target) return undefined;
+  const tagged = solutions.map((s, rank) => ({ ...s, template: `${rank}\u0000${s.template}` }));
+  let source: 'typed' | 'computed';
+  let ranked: Solution[];
+  if (target.photoZ !== null && target.photoZLow !== null && target.photoZHigh !== null) {
+    source = 'typed';
+    ranked = rankWithPhotoZ(tagged, { z: target.photoZ, lo: target.photoZLow, hi: target.photoZHigh });
+  } else if (pz && pz.p.some((v) => v > 0)) {
+    source = 'computed';
+    ranked = rankWithPz(tagged, pz);
+  } else return undefined;
+  const order = ranked.map((s) => Number(s.template.slice(0, s.template.indexOf('\u0000'))));
+  const movedTop = order[0] !== 0;
+  const label = source === 'typed' ? 'catalogue photo-z' : 'computed P(z)';
+  const top = solutions[order[0]!]!;
+  const message = movedTop
+    ? `photo-z prior (${label}) moved z = ${top.z.toFixed(4)} (scan rank ${order[0]! + 1}) above z = ${solutions[0]!.z.toFixed(4)}`
+    : `photo-z prior (${label}) kept the scan's best solution z = ${solutions[0]!.z.toFixed(4)}`;
+  return { source, order, movedTop, message };
+}
