@@ -20,6 +20,24 @@ function rememberedMapping(ctx: ServiceContext, campaignId: number, columns: str
 }
 
 /**
+ * The remembered mapping, completed with what the guess finds in columns it does not use: a
+ * catalogue that gains a photo-z or a band since the last import has them read, while every
+ * choice the lead made before stays.
+ */
+function withNewColumns(remembered: ColumnMapping, guessed: ColumnMapping | null): ColumnMapping {
+  if (!guessed) return remembered;
+  const { bands = [], ...fields } = remembered;
+  const taken = new Set([...Object.values(fields), ...bands.flatMap((b) => [b.flux, b.err])]);
+  const out: ColumnMapping = { ...remembered, bands: [...bands] };
+  const { bands: guessedBands = [], ...guessedFields } = guessed;
+  for (const [key, column] of Object.entries(guessedFields) as Array<[keyof typeof guessedFields, string]>) {
+    if (out[key] === undefined && !taken.has(column)) (out as Record<string, unknown>)[key] = column;
+  }
+  for (const b of guessedBands) if (!bands.some((x) => x.filter === b.filter) && !taken.has(b.flux) && !taken.has(b.err)) out.bands!.push(b);
+  return out;
+}
+
+/**
  * Imports a target catalogue. Without a mapping (or with `dryRun`) it only reports the columns,
  * the proposed mapping and the row errors, for the mapping step. With a valid mapping it
  * creates or updates targets by catalogue id — all rows or none — and links spectra that had no
@@ -40,7 +58,9 @@ export function importCatalogue(
     throw new AppError(400, 'catalogue_empty', 'The catalogue has no header line with column names.');
   }
   const known = knownFilterNames(ctx.db, campaignId);
-  const used = mapping ?? rememberedMapping(ctx, campaignId, parsed.columns) ?? guessMapping(parsed.columns, known);
+  const guessed = guessMapping(parsed.columns, known);
+  const remembered = rememberedMapping(ctx, campaignId, parsed.columns);
+  const used = mapping ?? (remembered ? withNewColumns(remembered, guessed) : guessed);
   const base = { columns: parsed.columns, mapping: used, rows: parsed.records.length, created: 0, updated: 0, linked: 0, photoZFits: 0 };
   if (!used) {
     return { ...base, dryRun: true, errors: [{ line: 1, column: null, message: 'No column looks like a catalogue id; choose one.' }] };
