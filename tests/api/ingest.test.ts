@@ -6,7 +6,7 @@ import { scanResults, spectra, storedFiles } from '../../backend/src/db/schema';
 import { readSpectrum } from '../../backend/src/spectra/readSpectrum';
 import { solutionModel } from '../../backend/src/spectra/solutionModel';
 import { brokenSpectrumFiles, syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
-import { createTestApp, type TestApp } from '../helpers/test-app';
+import { createTestApp, type TestApp, waitForJob } from '../helpers/test-app';
 
 let t: TestApp;
 let archive: Buffer;
@@ -17,15 +17,6 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(() => t.cleanup());
 
-async function waitForJob(agent: ReturnType<TestApp['agent']>, jobId: number) {
-  for (let i = 0; i < 600; i++) {
-    const res = await agent.get(`/api/jobs/${jobId}`);
-    expect(res.status).toBe(200);
-    if (['done', 'failed', 'cancelled'].includes(res.body.state)) return res.body;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`job ${jobId} did not finish`);
-}
 
 const countRows = (table: typeof spectra | typeof storedFiles | typeof scanResults) => t.ctx.db.select({ n: count() }).from(table).get()!.n;
 

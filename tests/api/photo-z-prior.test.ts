@@ -5,7 +5,7 @@ import { spectra } from '../../backend/src/db/schema';
 import { DEMO_BANDS, demoFluxes } from '../../backend/src/demo/demo-photometry';
 import type { DemoTarget } from '../../backend/src/demo/demo-scenario';
 import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
-import { createTestApp, type TestApp } from '../helpers/test-app';
+import { createTestApp, type TestApp, waitForJob } from '../helpers/test-app';
 
 // The engine's photo-z prior as a reader sees it (issue 12): applied when the spectrum detail is
 // read, from the typed catalogue photo-z if the target has one, else from the computed P(z), else
@@ -27,14 +27,6 @@ function catalogue(typed?: [number, number, number]): string {
   return `${header.join(',')}\n${row.join(',')}\n`;
 }
 
-async function waitForJob(agent: ReturnType<TestApp['agent']>, jobId: number) {
-  for (let i = 0; i < 600; i++) {
-    const res = await agent.get(`/api/jobs/${jobId}`);
-    if (['done', 'failed', 'cancelled'].includes(res.body.state)) return res.body;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`job ${jobId} did not finish`);
-}
 
 describe('photo-z prior on the spectrum detail', () => {
   it('is absent before a catalogue, computed P(z) after photometry, the typed photo-z when the catalogue gives one', { timeout: 120_000 }, async () => {

@@ -4,7 +4,7 @@ import { spectrumToCsv } from '../../backend/src/demo/spectrum-files';
 import { generateSyntheticSpectrum } from '../../backend/src/spectra/generateSyntheticSpectrum';
 import { concat, float32BE, header, padData } from '../unit/spectra/fits-writer';
 import { zip } from '../helpers/spectrum-archives';
-import { createTestApp, type TestApp } from '../helpers/test-app';
+import { createTestApp, type TestApp, waitForJob } from '../helpers/test-app';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -12,14 +12,6 @@ beforeAll(async () => {
 }, 60_000);
 afterAll(() => t.cleanup());
 
-async function waitForJob(agent: ReturnType<TestApp['agent']>, jobId: number) {
-  for (let i = 0; i < 600; i++) {
-    const res = await agent.get(`/api/jobs/${jobId}`);
-    if (['done', 'failed', 'cancelled'].includes(res.body.state)) return res.body;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`job ${jobId} did not finish`);
-}
 
 /** An echelle-pipeline-like FITS file: instrument, date and exposure in the primary header; object, position and unit on the extension. */
 function echelleFits(): Uint8Array {

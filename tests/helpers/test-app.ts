@@ -73,3 +73,17 @@ export async function waitForMail<T>(find: () => T | undefined, timeoutMs = 5000
     await new Promise((r) => setTimeout(r, 25));
   }
 }
+
+/**
+ * Polls a job until it is done, failed or cancelled and returns its view. A non-200 answer on
+ * the way is a failure of the test, not a reason to keep polling.
+ */
+export async function waitForJob(agent: ReturnType<TestApp['agent']>, jobId: number) {
+  for (let i = 0; i < 600; i++) {
+    const res = await agent.get(`/api/jobs/${jobId}`);
+    if (res.status !== 200) throw new Error(`GET /api/jobs/${jobId} answered ${res.status}: ${JSON.stringify(res.body)}`);
+    if (['done', 'failed', 'cancelled'].includes(res.body.state)) return res.body;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`job ${jobId} did not finish`);
+}

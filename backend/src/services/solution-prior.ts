@@ -15,17 +15,18 @@ interface TypedPhotoZ {
  */
 export function photoZPriorOf(solutions: readonly Solution[], target: TypedPhotoZ | null, pz: { z: number[]; p: number[] } | null): Scan['photoZPrior'] {
   if (solutions.length === 0 || !target) return undefined;
-  const tagged = solutions.map((s, rank) => ({ ...s, template: `${rank}\u0000${s.template}` }));
+  // Each solution carries its scan rank through the re-ranking, so the order can be reported.
+  const ranked0 = solutions.map((s, rank) => ({ ...s, rank }));
   let source: 'typed' | 'computed';
-  let ranked: Solution[];
+  let ranked: Array<(typeof ranked0)[number]>;
   if (target.photoZ !== null && target.photoZLow !== null && target.photoZHigh !== null) {
     source = 'typed';
-    ranked = rankWithPhotoZ(tagged, { z: target.photoZ, lo: target.photoZLow, hi: target.photoZHigh });
+    ranked = rankWithPhotoZ(ranked0, { z: target.photoZ, lo: target.photoZLow, hi: target.photoZHigh });
   } else if (pz && pz.p.some((v) => v > 0)) {
     source = 'computed';
-    ranked = rankWithPz(tagged, pz);
+    ranked = rankWithPz(ranked0, pz);
   } else return undefined;
-  const order = ranked.map((s) => Number(s.template.slice(0, s.template.indexOf('\u0000'))));
+  const order = ranked.map((s) => s.rank);
   const movedTop = order[0] !== 0;
   const label = source === 'typed' ? 'catalogue photo-z' : 'computed P(z)';
   const top = solutions[order[0]!]!;

@@ -12,7 +12,7 @@ export interface PhotoZPrior {
  * χ² − 2 ln w, with w = 1 inside the 68 % range and a Gaussian fall-off outside it whose σ is
  * the half-width of that range (in 1+z). Δχ² is recomputed on the new order from the scores.
  */
-export function rankWithPhotoZ(solutions: Solution[], prior: PhotoZPrior): Solution[] {
+export function rankWithPhotoZ<S extends Solution>(solutions: readonly S[], prior: PhotoZPrior): Array<S & { priorWeight: number }> {
   const halfWidth = Math.max(0.02, (prior.hi - prior.lo) / 2);
   const scored = solutions.map((s) => {
     const outside = s.z < prior.lo ? prior.lo - s.z : s.z > prior.hi ? s.z - prior.hi : 0;

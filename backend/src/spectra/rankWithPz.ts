@@ -40,7 +40,7 @@ export function pzWeight(pz: TabulatedPz, z: number): number {
  * 2 ln 1e6 ≈ 27.6, so a solution better by more than that in χ² still wins.
  * Δχ² is recomputed on the new order from the scores; priorWeight carries w.
  */
-export function rankWithPz(solutions: Solution[], pz: TabulatedPz): Solution[] {
+export function rankWithPz<S extends Solution>(solutions: readonly S[], pz: TabulatedPz): Array<S & { priorWeight: number }> {
   const scored = solutions.map((s) => {
     const weight = pzWeight(pz, s.z);
     return { s: { ...s, priorWeight: weight }, score: s.chi2 - 2 * Math.log(weight) };
