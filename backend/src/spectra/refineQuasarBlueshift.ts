@@ -34,6 +34,9 @@ export const REFINE_REACH = 0.1;
 export interface RefineContext {
   data: ScanData;
   set: TemplateSet;
+  /** The redshift range the scan was asked for: a refined solution stays inside it. */
+  zMin: number;
+  zMax: number;
   /** The scanned curves: their own shifts are reused for the blueshifts they hold. */
   scanned: TemplateCurve[];
   /** Applies the scan's own curve terms (shifts without features, the break-consistency χ²). */
@@ -74,8 +77,8 @@ export function refineQuasarCandidates(candidates: RawSolution[], ctx: RefineCon
   const replaced = new Map<RawSolution, RawSolution>();
   const curves: TemplateCurve[] = [];
   for (const cand of picked) {
-    const zLo = 10 ** ((cand.shift - windowPx) * step) - 1;
-    const zHi = 10 ** ((cand.shift + windowPx) * step) - 1;
+    const zLo = Math.max(ctx.zMin, 10 ** ((cand.shift - windowPx) * step) - 1);
+    const zHi = Math.min(ctx.zMax, 10 ** ((cand.shift + windowPx) * step) - 1);
     let best: { raw: RawSolution; score: number; curve: TemplateCurve } | undefined;
     for (const v of QUASAR_BLUESHIFTS_KMS) {
       const template = set.templates.find((t) => t.id === quasarTemplateId(v));

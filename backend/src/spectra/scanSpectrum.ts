@@ -158,6 +158,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const refined = refineQuasarCandidates(findMinima(curves, set.step, 4 * maxSolutions + 4), {
     data,
     set,
+    zMin,
+    zMax,
     scanned: curves,
     finishCurve: (c) => {
       dropShiftsWithoutFeatures(c, prepared, data.chi2Null);

@@ -31,4 +31,11 @@ describe('fitted quasar blueshift (refineQuasarBlueshift.ts)', () => {
     expect(Math.abs(dv(top.z, z))).toBeLessThan(300);
     expect(Math.abs(quasarBlueshiftOf(top.template)! - v)).toBeLessThanOrEqual(1000);
   });
+
+  it('keeps refined solutions inside the redshift range the scan was asked for', () => {
+    const spectrum = generateSyntheticSpectrum({ class: 'quasar', template: 'quasar-blueshift-0', z: 1.9, snr: 15, seed: 11, pixels: 4000, wavelengthMin: 3700, wavelengthMax: 9200 });
+    const solutions = scanSpectrum(spectrum, { zMin: 1.905, zMax: 3 }).solutions;
+    expect(solutions.length).toBeGreaterThan(0);
+    for (const s of solutions) expect(s.z).toBeGreaterThanOrEqual(1.905 - 1e-9);
+  });
 });
