@@ -31,7 +31,13 @@ export function photoZPriorOf(solutions: readonly Solution[], target: TypedPhoto
   const label = source === 'typed' ? 'catalogue photo-z' : 'computed P(z)';
   const top = solutions[order[0]!]!;
   const message = movedTop
-    ? `photo-z prior (${label}) moved z = ${top.z.toFixed(4)} (scan rank ${order[0]! + 1}) above z = ${solutions[0]!.z.toFixed(4)}`
-    : `photo-z prior (${label}) kept the scan's best solution z = ${solutions[0]!.z.toFixed(4)}`;
+    ? `photo-z prior (${label}) moved z = ${zText(top.z)} (scan rank ${order[0]! + 1}) above z = ${zText(solutions[0]!.z)}`
+    : `photo-z prior (${label}) kept the scan's best solution z = ${zText(solutions[0]!.z)}`;
   return { source, order, movedTop, message };
+}
+
+/** z to four decimals; a star's −0.00001 reads 0.0000, not −0.0000. */
+function zText(z: number): string {
+  const text = z.toFixed(4);
+  return text === '-0.0000' ? '0.0000' : text;
 }

@@ -32,4 +32,8 @@ describe('photoZPriorOf', () => {
     expect(photoZPriorOf(stored, noTyped, null)).toBeUndefined();
     expect(photoZPriorOf(stored, noTyped, { z: [0, 1], p: [0, 0] })).toBeUndefined();
   });
+  it('writes a star at z = −0.00001 as 0.0000, not −0.0000', () => {
+    const prior = photoZPriorOf([sol(-0.00001, 50), sol(1.2, 400)], { photoZ: 0, photoZLow: 0, photoZHigh: 0.05 }, null)!;
+    expect(prior.message).toBe("photo-z prior (catalogue photo-z) kept the scan's best solution z = 0.0000");
+  });
 });
