@@ -9,7 +9,7 @@ import autocannon from 'autocannon';
 import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
 
 /**
- * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--json]`
+ * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--arrivals spread|aligned] [--upload during|before] [--json]`
  *
  * Many signed-in readers on the routes the inspection screen uses, while a large upload is being
  * scanned on the same server: the reader's queue, a spectrum's detail, its arrays (/data) and its
@@ -31,6 +31,8 @@ const { values } = parseArgs({
     rate: { type: 'string', default: '2' },
     seconds: { type: 'string', default: '20' },
     ingest: { type: 'string', default: '2000' },
+    arrivals: { type: 'string', default: 'spread' },
+    upload: { type: 'string', default: 'during' },
     json: { type: 'boolean', default: false },
   },
 });
@@ -38,6 +40,10 @@ const readers = Number(values.readers);
 const rate = Number(values.rate);
 const seconds = Number(values.seconds);
 const ingestCount = Number(values.ingest);
+const arrivals = values.arrivals;
+const uploadWhen = values.upload;
+if (arrivals !== 'spread' && arrivals !== 'aligned') throw new Error('--arrivals is spread or aligned');
+if (uploadWhen !== 'during' && uploadWhen !== 'before') throw new Error('--upload is during or before');
 
 const dataDir = mkdtempSync(path.join(tmpdir(), 'redward-load-'));
 const archive = ingestCount > 0 ? zip(syntheticSpectrumFiles(ingestCount, { pixels: 4000, prefix: 'LOAD' })) : null;
@@ -98,21 +104,29 @@ try {
   const cookies: string[] = [];
   for (let i = 0; i < readers; i++) cookies.push(await signIn(i % 2 === 0 ? 'reader1@demo.test' : 'reader2@demo.test'));
 
-  let ingest: Promise<{ seconds: number; state: string; stored: number }> | null = null;
+  let ingest: Promise<{ seconds: number; uploadSeconds: number; state: string; stored: number }> | null = null;
   if (archive) {
     const form = new FormData();
     form.append('files', new Blob([new Uint8Array(archive)]), 'load.zip');
     const started = performance.now();
-    const upload = await fetch(`${origin}/api/campaigns/1/uploads`, { method: 'POST', headers: { cookie: leadCookie, origin }, body: form });
-    if (!upload.ok) throw new Error(`upload answered ${upload.status}: ${await upload.text()}`);
-    const { jobId } = (await upload.json()) as { jobId: number };
+    // The upload itself (receiving, expanding and storing the archive) is part of the ingest the
+    // readers share the server with: by default it is sent as they start, not before.
+    const uploaded = (async () => {
+      const upload = await fetch(`${origin}/api/campaigns/1/uploads`, { method: 'POST', headers: { cookie: leadCookie, origin }, body: form });
+      if (!upload.ok) throw new Error(`upload answered ${upload.status}: ${await upload.text()}`);
+      return { ...((await upload.json()) as { jobId: number }), uploadSeconds: (performance.now() - started) / 1000 };
+    })();
+    if (uploadWhen === 'before') await uploaded;
     ingest = (async () => {
+      const { jobId, uploadSeconds } = await uploaded;
       for (;;) {
         const p = await getJson<{ state: string; summary: { stored: number } }>(`/api/jobs/${jobId}`, leadCookie);
-        if (['done', 'failed', 'cancelled'].includes(p.state)) return { seconds: (performance.now() - started) / 1000, state: p.state, stored: p.summary.stored };
+        if (['done', 'failed', 'cancelled'].includes(p.state)) return { seconds: (performance.now() - started) / 1000, uploadSeconds, state: p.state, stored: p.summary.stored };
         await new Promise((r) => setTimeout(r, 500));
       }
     })();
+    // Awaited after the load; a failed upload must not end the process as an unhandled rejection first.
+    ingest.catch(() => undefined);
   }
 
   const routes: { name: string; path: () => string }[] = [
@@ -123,36 +137,50 @@ try {
     { name: 'spectra list', path: () => '/api/campaigns/1/spectra?pageSize=50' },
   ];
   // Connections are shared out over the routes; each connection keeps one reader's session.
+  // autocannon's rate limit restarts every connection's allowance on a 1 s timer started when the
+  // connection is made, and each connection then sends its `rate` requests back to back. With all
+  // connections of one instance made at once (--arrivals aligned, as this bench did until
+  // 2026-12-04), every reader fires in the same few milliseconds of each second: 100 requests
+  // arrive together and the last waits for the other 99, whatever the server's speed. Readers
+  // are independent people, so by default (--arrivals spread) each reader is its own one-connection
+  // instance started at its own phase, i / readers of a second: the same offered rate, spread out.
   const perRoute = Math.max(1, Math.floor(readers / routes.length));
   const runs = routes.map((route, r) => {
     const latencies: number[] = [];
     const cookie = cookies.slice(r * perRoute, (r + 1) * perRoute);
-    let next = 0;
-    return new Promise<RouteFigures>((resolve, reject) => {
-      const instance = autocannon(
-        {
-          url: origin,
-          connections: perRoute,
-          duration: seconds,
-          ...(rate > 0 ? { connectionRate: rate } : {}),
-          requests: [{ setupRequest: (req) => ({ ...req, method: 'GET', path: route.path(), headers: { cookie: cookie[next++ % cookie.length]! } }) }],
-        },
-        (err, result) => {
-          if (err) return reject(err);
-          latencies.sort((a, b) => a - b);
-          resolve({
-            route: route.name,
-            requests: latencies.length,
-            errors: result.errors + result.timeouts,
-            non2xx: result.non2xx,
-            p50: round(percentile(latencies, 0.5)),
-            p95: round(percentile(latencies, 0.95)),
-            p99: round(percentile(latencies, 0.99)),
-            max: round(latencies.at(-1) ?? Number.NaN),
-          });
-        },
-      );
-      instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
+    const drive = (connections: number, cookieAt: (n: number) => string, delayMs: number) =>
+      new Promise<{ errors: number; non2xx: number }>((resolve, reject) => {
+        setTimeout(() => {
+          let next = 0;
+          const instance = autocannon(
+            {
+              url: origin,
+              connections,
+              duration: seconds,
+              ...(rate > 0 ? { connectionRate: rate } : {}),
+              requests: [{ setupRequest: (req) => ({ ...req, method: 'GET', path: route.path(), headers: { cookie: cookieAt(next++) } }) }],
+            },
+            (err, result) => (err ? reject(err) : resolve({ errors: result.errors + result.timeouts, non2xx: result.non2xx })),
+          );
+          instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
+        }, delayMs);
+      });
+    const instances =
+      arrivals === 'aligned'
+        ? [drive(perRoute, (n) => cookie[n % cookie.length]!, 0)]
+        : cookie.map((c, i) => drive(1, () => c, rate > 0 ? (((r * perRoute + i) / (perRoute * routes.length)) * 1000) : 0));
+    return Promise.all(instances).then((results): RouteFigures => {
+      latencies.sort((a, b) => a - b);
+      return {
+        route: route.name,
+        requests: latencies.length,
+        errors: results.reduce((sum, x) => sum + x.errors, 0),
+        non2xx: results.reduce((sum, x) => sum + x.non2xx, 0),
+        p50: round(percentile(latencies, 0.5)),
+        p95: round(percentile(latencies, 0.95)),
+        p99: round(percentile(latencies, 0.99)),
+        max: round(latencies.at(-1) ?? Number.NaN),
+      };
     });
   });
   const cpuBefore = serverCpuMs();
@@ -164,7 +192,9 @@ try {
   const ingestResult = ingest ? await ingest : null;
 
   if (!values.json) {
-    console.log(`${readers} readers at ${rate > 0 ? `${rate} requests/s each` : 'no rate limit'} for ${seconds} s on ${availableParallelism()} cores, ${ingestCount}-spectrum upload being scanned meanwhile`);
+    console.log(
+      `${readers} readers at ${rate > 0 ? `${rate} requests/s each, arrivals ${arrivals}` : 'no rate limit'} for ${seconds} s on ${availableParallelism()} cores, ${ingestCount}-spectrum upload ${uploadWhen === 'during' ? 'sent as they start' : 'sent before they start'} and scanned meanwhile`,
+    );
     console.log('route          requests  errors  non-2xx   p50 ms   p95 ms   p99 ms   max ms');
     for (const f of figures) {
       console.log(
@@ -172,9 +202,9 @@ try {
       );
     }
     console.log(`server process CPU during the load: ${(serverCpu / 1000).toFixed(1)} s (all its threads, scans included) for ${requestsServed} requests; its web (main) thread ${(mainCpu / 1000).toFixed(1)} s = ${(mainCpu / requestsServed).toFixed(2)} ms a request, ingest work on that thread included`);
-    if (ingestResult) console.log(`ingest: ${ingestResult.stored} stored, ${ingestResult.state} after ${ingestResult.seconds.toFixed(1)} s`);
+    if (ingestResult) console.log(`ingest: upload answered after ${ingestResult.uploadSeconds.toFixed(1)} s; ${ingestResult.stored} stored, ${ingestResult.state} after ${ingestResult.seconds.toFixed(1)} s`);
   }
-  console.log(JSON.stringify({ readers, rate, seconds, cores: availableParallelism(), ingest: ingestResult, serverCpuSeconds: Number((serverCpu / 1000).toFixed(1)), mainThreadCpuMsPerRequest: Number((mainCpu / requestsServed).toFixed(2)), routes: figures }));
+  console.log(JSON.stringify({ readers, rate, arrivals, upload: uploadWhen, seconds, cores: availableParallelism(), ingest: ingestResult, serverCpuSeconds: Number((serverCpu / 1000).toFixed(1)), mainThreadCpuMsPerRequest: Number((mainCpu / requestsServed).toFixed(2)), routes: figures }));
 } finally {
   server.kill('SIGTERM');
   await new Promise((r) => server.once('exit', r));
