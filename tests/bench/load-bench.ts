@@ -9,7 +9,7 @@ import autocannon from 'autocannon';
 import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
 
 /**
- * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--arrivals spread|aligned] [--upload during|before] [--json]`
+ * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--arrivals spread|aligned] [--upload during|before] [--profile DIR] [--json]`
  *
  * Many signed-in readers on the routes the inspection screen uses, while a large upload is being
  * scanned on the same server: the reader's queue, a spectrum's detail, its arrays (/data) and its
@@ -33,6 +33,8 @@ const { values } = parseArgs({
     ingest: { type: 'string', default: '2000' },
     arrivals: { type: 'string', default: 'spread' },
     upload: { type: 'string', default: 'during' },
+    /** Write CPU profiles of the server's threads (node --cpu-prof) into this folder. */
+    profile: { type: 'string' },
     json: { type: 'boolean', default: false },
   },
 });
@@ -51,7 +53,11 @@ const archive = ingestCount > 0 ? zip(syntheticSpectrumFiles(ingestCount, { pixe
 const port = await freePort();
 const origin = `http://127.0.0.1:${port}`;
 const root = fileURLToPath(new URL('../..', import.meta.url));
-const server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'backend/src/cli/api-server.ts')], {
+// The server has no SIGTERM handler of its own; a profile is only written when it exits normally.
+const profileArgs = values.profile
+  ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(values.profile)}`, '--import', "data:text/javascript,process.once('SIGTERM',()=>process.exit(0))"]
+  : [];
+const server = spawn(process.execPath, [...profileArgs, '--import', 'tsx', path.join(root, 'backend/src/cli/api-server.ts')], {
   cwd: root,
   env: { ...process.env, DATA_DIR: dataDir, API_PORT: String(port), LOG_LEVEL: 'silent', MAIL_CATCHER_PORT: '0', UPLOAD_MAX_TOTAL_MB: '4096', UPLOAD_MAX_FILE_MB: '4096' },
   stdio: ['ignore', 'ignore', 'inherit'],
