@@ -2,10 +2,11 @@ import { rmSync } from 'node:fs';
 import { eq } from 'drizzle-orm';
 import { campaigns, jobItems, jobs, storedFiles } from '../db/schema';
 import { AppError, badRequest } from '../http/errors';
-import { ArchiveRefusedError, expandArchive } from '../ingest/expand-archive';
+import { ArchiveRefusedError } from '../ingest/expand-archive';
 import { safeFileName } from '../ingest/safe-file-name';
 import { isZipFileName } from '../jobs/accepted-files';
 import type { BlobStore } from '../storage/blob-store';
+import { commitOffThread, expandArchiveOffThread, hashFileOffThread } from '../storage/store-thread';
 import type { Actor, ServiceContext } from './context';
 import { recordAudit } from './record-audit';
 
@@ -55,7 +56,8 @@ export async function receiveUpload(
     for (const file of files) {
       const name = safeFileName(file.originalName);
       if (isZipFileName(name)) {
-        const expanded = await expandArchive(file.tempFile, name, store, ctx.config.uploads.archive);
+        // Inflating and hashing run on the store's thread, not the web thread (issue 13).
+        const expanded = await expandArchiveOffThread(file.tempFile, name, store, ctx.config.uploads.archive);
         rmSync(file.tempFile, { force: true });
         if (expanded.length === 0) throw badRequest(`${name} contains no files.`, 'archive_empty');
         for (const e of expanded) {
@@ -65,7 +67,7 @@ export async function receiveUpload(
           staged.push({ tempFile: e.tempFile, entry: { fileName, sha256: e.sha256, sizeBytes: e.sizeBytes } });
         }
       } else {
-        const { sha256, sizeBytes } = await store.hashFile(file.tempFile);
+        const { sha256, sizeBytes } = await hashFileOffThread(store, file.tempFile);
         staged.push({ tempFile: file.tempFile, entry: { fileName: name, sha256, sizeBytes } });
         if (sizeBytes === 0) throw emptyFile(name);
       }
@@ -80,7 +82,10 @@ export async function receiveUpload(
     throw err;
   }
   // Only now, with every file accepted, does anything enter the store.
-  for (const s of staged) store.commitHashed(s.tempFile, s.entry.sha256, s.entry.sizeBytes);
+  await commitOffThread(
+    store,
+    staged.map((s) => ({ tempFile: s.tempFile, sha256: s.entry.sha256, sizeBytes: s.entry.sizeBytes })),
+  );
 
   const entries = staged.map((s) => s.entry);
   const campaign = ctx.db.select({ zMin: campaigns.zMin, zMax: campaigns.zMax, gridStep: campaigns.gridStep }).from(campaigns).where(eq(campaigns.id, campaignId)).get()!;
