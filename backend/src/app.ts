@@ -4,6 +4,7 @@ import { fileURLToPath } from 'node:url';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
+import { requestActivity } from './http/request-activity';
 import { csrfGuard } from './http/csrf';
 import { errorMiddleware } from './http/error-middleware';
 import { notFound } from './http/errors';
@@ -44,6 +45,7 @@ export function createApp(ctx: ServiceContext, sessionPassword: string): Express
   app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
 
   const api = express.Router();
+  api.use(requestActivity.middleware);
   api.use(express.json({ limit: '1mb' }));
   api.use(csrfGuard(ctx.config.publicUrl));
   api.use(sessionMiddleware(ctx, sessionPassword));

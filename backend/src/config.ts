@@ -37,6 +37,8 @@ const envSchema = z.object({
   SCAN_THREADS: z.coerce.number().int().positive().max(64).optional(),
   /** Wall-clock limit of one file's scan; past it the item fails and its worker thread is replaced. */
   SCAN_TIME_LIMIT_S: z.coerce.number().positive().max(3600).default(60),
+  /** 1: while people's requests are being answered, scans leave one core to the web thread (issue 13). */
+  SCAN_YIELD_TO_WEB: z.enum(['0', '1']).default('1'),
   /** Run the background job runner in this process (tests and the import command may not). */
   JOB_RUNNER: flag.default(true),
   /** How long a runner's claim on a job lasts without renewal; after a crash the job waits this long. */
@@ -84,6 +86,8 @@ export interface Config {
     runner: boolean;
     scanThreads: number | undefined;
     scanTimeLimitMs: number;
+    /** Scans use one thread fewer while API requests are being answered (at least one thread). */
+    yieldToWeb: boolean;
     leaseMs: number;
     queue: { kind: 'sqlite' } | { kind: 'redis'; url: string };
     /** Only for remote workers (`npm run jobs` with a Redis queue). */
@@ -144,6 +148,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       runner: e.JOB_RUNNER,
       scanThreads: e.SCAN_THREADS,
       scanTimeLimitMs: e.SCAN_TIME_LIMIT_S * 1000,
+      yieldToWeb: e.SCAN_YIELD_TO_WEB === '1',
       leaseMs: e.JOB_LEASE_SECONDS * 1000,
       queue: e.JOB_QUEUE === 'sqlite' ? { kind: 'sqlite' } : { kind: 'redis', url: e.JOB_QUEUE },
       worker: { serverUrl: e.REDWARD_SERVER_URL?.replace(/\/$/, ''), token: e.REDWARD_WORKER_TOKEN },

@@ -24,6 +24,6 @@ export interface JobQueue {
 }
 
 export function createJobQueue(ctx: ServiceContext, store: BlobStore, pool: ScanPool): JobQueue {
-  const { queue, leaseMs } = ctx.config.jobs;
-  return queue.kind === 'redis' ? new RedisJobQueue(ctx, queue.url, { leaseMs }) : new JobRunner(ctx, store, pool, { leaseMs });
+  const { queue, leaseMs, yieldToWeb } = ctx.config.jobs;
+  return queue.kind === 'redis' ? new RedisJobQueue(ctx, queue.url, { leaseMs }) : new JobRunner(ctx, store, pool, { leaseMs, yieldToWeb });
 }

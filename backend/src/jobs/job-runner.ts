@@ -1,5 +1,6 @@
 import { and, eq, isNotNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
+import { requestActivity } from '../http/request-activity';
 import { jobs, targets } from '../db/schema';
 import type { LinkableTarget } from '../ingest/link-target';
 import type { ServiceContext } from '../services/context';
@@ -18,6 +19,11 @@ export interface JobRunnerOptions {
   resultBatch?: number;
   /** Longest a finished scan waits for others to share its transaction, ms (default 100). */
   resultBatchWaitMs?: number;
+  /**
+   * While API requests are being answered, one scan thread fewer takes items (never fewer than
+   * one), so a core stays for the web thread; an idle server scans on every thread.
+   */
+  yieldToWeb?: boolean;
 }
 
 /**
@@ -93,8 +99,15 @@ export class JobRunner implements JobQueue {
       const queue = pendingItems(db, job.id);
       let cancelled = false;
       const results = new ResultBatch(db, itemContext, this.options.resultBatch ?? 8, this.options.resultBatchWaitMs ?? 100);
-      const worker = async () => {
-        for (let item = queue.shift(); item; item = queue.shift()) {
+      const threads = this.pool.threads;
+      const worker = async (index: number) => {
+        for (;;) {
+          // The last of several threads waits while people are being answered (the item stays queued).
+          if (this.options.yieldToWeb && threads > 1 && index === threads - 1) {
+            while (this.running && queue.length > 0 && requestActivity.busy()) await new Promise((r) => setTimeout(r, 50));
+          }
+          const item = queue.shift();
+          if (!item) return;
           if (!this.running) return;
           if (isCancelRequested(db, job.id)) {
             cancelled = true;
@@ -104,7 +117,7 @@ export class JobRunner implements JobQueue {
         }
       };
       try {
-        await Promise.all(Array.from({ length: this.pool.threads }, worker));
+        await Promise.all(Array.from({ length: threads }, (_, index) => worker(index)));
       } finally {
         // What was scanned is kept even when the job stops on an error.
         results.flush();
