@@ -6,7 +6,7 @@ import type { LinkableTarget } from '../ingest/link-target';
 import type { ServiceContext } from '../services/context';
 import type { BlobStore } from '../storage/blob-store';
 import { claimNextJob, finishJob, isCancelRequested, pendingItems, renewLease, requeueExpiredJobs, type JobItemRow, type JobRow } from './job-store';
-import { finishWithoutScan, recordItemResult, scanSettingsOf, type ItemContext, type JobSettings } from './process-item';
+import { finishWithoutScan, recordItemResult, scanSettingsOf, type ItemContext, type JobSettings, type ResultContext } from './process-item';
 import type { JobQueue } from './job-queue';
 import type { ScanPool } from './scan-pool';
 import type { ScanTaskResult } from './scan-worker';
@@ -171,7 +171,7 @@ export class ResultBatch {
 
   constructor(
     private readonly db: Db,
-    private readonly rc: ItemContext,
+    private readonly rc: ResultContext,
     private readonly maxItems: number,
     private readonly maxWaitMs: number,
   ) {}
