@@ -9,7 +9,7 @@ import autocannon from 'autocannon';
 import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
 
 /**
- * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--arrivals spread|aligned] [--upload during|before] [--profile DIR] [--json]`
+ * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--arrivals spread|aligned] [--upload during|before] [--steady-after 5] [--profile DIR] [--json]`
  *
  * Many signed-in readers on the routes the inspection screen uses, while a large upload is being
  * scanned on the same server: the reader's queue, a spectrum's detail, its arrays (/data) and its
@@ -33,6 +33,8 @@ const { values } = parseArgs({
     ingest: { type: 'string', default: '2000' },
     arrivals: { type: 'string', default: 'spread' },
     upload: { type: 'string', default: 'during' },
+    /** Also print the figures without the first N seconds (the server's caches start cold). */
+    'steady-after': { type: 'string', default: '5' },
     /** Write CPU profiles of the server's threads (node --cpu-prof) into this folder. */
     profile: { type: 'string' },
     json: { type: 'boolean', default: false },
@@ -44,6 +46,7 @@ const seconds = Number(values.seconds);
 const ingestCount = Number(values.ingest);
 const arrivals = values.arrivals;
 const uploadWhen = values.upload;
+const steadyAfterMs = Number(values['steady-after']) * 1000;
 if (arrivals !== 'spread' && arrivals !== 'aligned') throw new Error('--arrivals is spread or aligned');
 if (uploadWhen !== 'during' && uploadWhen !== 'before') throw new Error('--upload is during or before');
 
@@ -78,6 +81,8 @@ async function getJson<T>(url: string, cookie: string): Promise<T> {
 
 interface RouteFigures {
   route: string;
+  /** p95 of the requests answered after the first --steady-after seconds. */
+  steadyP95: number;
   requests: number;
   errors: number;
   non2xx: number;
@@ -151,8 +156,10 @@ try {
   // are independent people, so by default (--arrivals spread) each reader is its own one-connection
   // instance started at its own phase, i / readers of a second: the same offered rate, spread out.
   const perRoute = Math.max(1, Math.floor(readers / routes.length));
+  const loadStarted = performance.now();
   const runs = routes.map((route, r) => {
     const latencies: number[] = [];
+    const steady: number[] = [];
     const cookie = cookies.slice(r * perRoute, (r + 1) * perRoute);
     const drive = (connections: number, cookieAt: (n: number) => string, delayMs: number) =>
       new Promise<{ errors: number; non2xx: number }>((resolve, reject) => {
@@ -168,7 +175,10 @@ try {
             },
             (err, result) => (err ? reject(err) : resolve({ errors: result.errors + result.timeouts, non2xx: result.non2xx })),
           );
-          instance.on('response', (_client, _status, _bytes, responseTime) => latencies.push(responseTime));
+          instance.on('response', (_client, _status, _bytes, responseTime) => {
+            latencies.push(responseTime);
+            if (performance.now() - loadStarted >= steadyAfterMs) steady.push(responseTime);
+          });
         }, delayMs);
       });
     const instances =
@@ -177,8 +187,10 @@ try {
         : cookie.map((c, i) => drive(1, () => c, rate > 0 ? (((r * perRoute + i) / (perRoute * routes.length)) * 1000) : 0));
     return Promise.all(instances).then((results): RouteFigures => {
       latencies.sort((a, b) => a - b);
+      steady.sort((a, b) => a - b);
       return {
         route: route.name,
+        steadyP95: round(percentile(steady, 0.95)),
         requests: latencies.length,
         errors: results.reduce((sum, x) => sum + x.errors, 0),
         non2xx: results.reduce((sum, x) => sum + x.non2xx, 0),
@@ -201,10 +213,10 @@ try {
     console.log(
       `${readers} readers at ${rate > 0 ? `${rate} requests/s each, arrivals ${arrivals}` : 'no rate limit'} for ${seconds} s on ${availableParallelism()} cores, ${ingestCount}-spectrum upload ${uploadWhen === 'during' ? 'sent as they start' : 'sent before they start'} and scanned meanwhile`,
     );
-    console.log('route          requests  errors  non-2xx   p50 ms   p95 ms   p99 ms   max ms');
+    console.log(`route          requests  errors  non-2xx   p50 ms   p95 ms   p99 ms   max ms   p95 after ${steadyAfterMs / 1000} s`);
     for (const f of figures) {
       console.log(
-        `${f.route.padEnd(14)} ${String(f.requests).padStart(8)} ${String(f.errors).padStart(7)} ${String(f.non2xx).padStart(8)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${f.max.toFixed(1).padStart(8)}`,
+        `${f.route.padEnd(14)} ${String(f.requests).padStart(8)} ${String(f.errors).padStart(7)} ${String(f.non2xx).padStart(8)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${f.max.toFixed(1).padStart(8)} ${f.steadyP95.toFixed(1).padStart(8)}`,
       );
     }
     console.log(`server process CPU during the load: ${(serverCpu / 1000).toFixed(1)} s (all its threads, scans included) for ${requestsServed} requests; its web (main) thread ${(mainCpu / 1000).toFixed(1)} s = ${(mainCpu / requestsServed).toFixed(2)} ms a request, ingest work on that thread included`);
