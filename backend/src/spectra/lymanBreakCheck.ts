@@ -22,6 +22,8 @@ export interface BreakCheckOptions {
   slope: number;
   /** Mean IGM model for T(z) (default Inoue et al. 2014). */
   igmModel?: IgmModel;
+  /** Factor on the term (the scan's misfit scale; default 1). */
+  weight?: number;
 }
 
 /** Rest windows, Å: the classic Lyα-forest band between Lyβ and Lyα, and a line-poor band red of N V (common practice). */
@@ -173,5 +175,6 @@ export function addBreakChi2(chi2: Float64Array, sMin: number, sums: WindowSums,
   const ratio = continuumRatio(options);
   const edges = windowEdges(sums.step);
   const model = options.igmModel ?? DEFAULT_IGM_MODEL;
-  for (let i = 0; i < chi2.length; i++) chi2[i]! += breakChi2AtShift(sums, sMin + i, ratio, edges, model);
+  const weight = options.weight ?? 1;
+  for (let i = 0; i < chi2.length; i++) chi2[i]! += weight * breakChi2AtShift(sums, sMin + i, ratio, edges, model);
 }
