@@ -75,48 +75,70 @@ export function photometryOf(db: Pick<Db, 'select'>, targetIds: readonly number[
   return { filters, byTarget };
 }
 
+export type NewFitRow = typeof photoZFits.$inferInsert;
+
+/**
+ * Fits the photometric redshifts of these targets from their stored photometry, without writing:
+ * one row per target with photometry and a usable fit. Reads only, so a job can fit outside its
+ * write transaction.
+ */
+export function computePhotoZFits(db: Pick<Db, 'select'>, campaignId: number, targetIds: readonly number[], now: string): NewFitRow[] {
+  const { filters, byTarget } = photometryOf(db, targetIds);
+  if (byTarget.size === 0) return [];
+  const grid = modelGridFor(filterCurves(db, campaignId, filters));
+  const scratch = fitScratch(grid);
+  const templateSet = templateSetDescription();
+  const out: NewFitRow[] = [];
+  for (const [targetId, { flux, err }] of byTarget) {
+    const fit = fitPhotoZ(grid, flux, err, { withPosterior: true }, scratch);
+    if (fit.bands === 0 || !Number.isFinite(fit.pLowZ)) continue;
+    const posterior = Float32Array.from(fit.posterior!);
+    out.push({
+      targetId,
+      z: fit.z,
+      z68Low: fit.z68[0],
+      z68High: fit.z68[1],
+      z95Low: fit.z95[0],
+      z95High: fit.z95[1],
+      pLowZ: fit.pLowZ,
+      fitClass: fit.class,
+      starChi2: fit.starChi2,
+      galaxyChi2: fit.galaxyChi2,
+      galaxyTemplate: fit.galaxyTemplate,
+      starTemplate: fit.starTemplate,
+      filters: filters.filter((_, b) => Number.isFinite(flux[b]!) && err[b]! > 0),
+      templateSet,
+      gridZMax: PHOTOZ_Z_MAX,
+      gridStep: PHOTOZ_STEP,
+      posterior: Buffer.from(posterior.buffer, posterior.byteOffset, posterior.byteLength),
+      computedAt: now,
+    });
+  }
+  return out;
+}
+
+/** Removes the fits of these targets (their photometry changed, or is about to be refitted). */
+export function deletePhotoZFits(tx: Pick<Db, 'delete'>, targetIds: readonly number[]): void {
+  for (let i = 0; i < targetIds.length; i += 500) tx.delete(photoZFits).where(inArray(photoZFits.targetId, targetIds.slice(i, i + 500))).run();
+}
+
+/**
+ * Replaces the fits of `targetIds` by `rows` (a target without a row is left without a fit).
+ * Idempotent: storing the same rows twice leaves one fit per target.
+ */
+export function storePhotoZFits(tx: Pick<Db, 'insert' | 'delete'>, targetIds: readonly number[], rows: readonly NewFitRow[]): number {
+  deletePhotoZFits(tx, targetIds);
+  for (let i = 0; i < rows.length; i += 100) tx.insert(photoZFits).values(rows.slice(i, i + 100)).run();
+  return rows.length;
+}
+
 /**
  * Recomputes the photometric redshifts of these targets from their stored photometry, replacing
  * their fits (a target left without photometry loses its fit). Runs inside the caller's
  * transaction. Returns how many fits were stored.
  */
 export function refitPhotoZ(tx: Tx, campaignId: number, targetIds: readonly number[], now: string): number {
-  for (let i = 0; i < targetIds.length; i += 500) tx.delete(photoZFits).where(inArray(photoZFits.targetId, targetIds.slice(i, i + 500))).run();
-  const { filters, byTarget } = photometryOf(tx, targetIds);
-  if (byTarget.size === 0) return 0;
-  const grid = modelGridFor(filterCurves(tx, campaignId, filters));
-  const scratch = fitScratch(grid);
-  const templateSet = templateSetDescription();
-  let stored = 0;
-  for (const [targetId, { flux, err }] of byTarget) {
-    const fit = fitPhotoZ(grid, flux, err, { withPosterior: true }, scratch);
-    if (fit.bands === 0 || !Number.isFinite(fit.pLowZ)) continue;
-    const posterior = Float32Array.from(fit.posterior!);
-    tx.insert(photoZFits)
-      .values({
-        targetId,
-        z: fit.z,
-        z68Low: fit.z68[0],
-        z68High: fit.z68[1],
-        z95Low: fit.z95[0],
-        z95High: fit.z95[1],
-        pLowZ: fit.pLowZ,
-        fitClass: fit.class,
-        starChi2: fit.starChi2,
-        galaxyChi2: fit.galaxyChi2,
-        galaxyTemplate: fit.galaxyTemplate,
-        starTemplate: fit.starTemplate,
-        filters: filters.filter((_, b) => Number.isFinite(flux[b]!) && err[b]! > 0),
-        templateSet,
-        gridZMax: PHOTOZ_Z_MAX,
-        gridStep: PHOTOZ_STEP,
-        posterior: Buffer.from(posterior.buffer, posterior.byteOffset, posterior.byteLength),
-        computedAt: now,
-      })
-      .run();
-    stored += 1;
-  }
-  return stored;
+  return storePhotoZFits(tx, targetIds, computePhotoZFits(tx, campaignId, targetIds, now));
 }
 
 type FitRow = typeof photoZFits.$inferSelect;
