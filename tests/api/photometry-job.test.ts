@@ -6,9 +6,10 @@ import { count, countDistinct, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loadShippedFilters } from '../../backend/src/cli/photoz-data';
 import { loadConfig } from '../../backend/src/config';
-import { jobItems, jobs, photoZFits, targetPhotometry, targets } from '../../backend/src/db/schema';
+import { campaignFilters, jobItems, jobs, photoZFits, targetPhotometry, targets } from '../../backend/src/db/schema';
 import { DEMO_BANDS, demoFluxes } from '../../backend/src/demo/demo-photometry';
 import { demoCatalogueCsv, TIDEWATER_TARGETS, type DemoTarget } from '../../backend/src/demo/demo-scenario';
+import { JobRunner } from '../../backend/src/jobs/job-runner';
 import { PHOTOZ_JOB_CHUNK } from '../../backend/src/jobs/photoz-job';
 import { createRedward, type Redward } from '../../backend/src/server';
 import { importCatalogue } from '../../backend/src/services/import-catalogue';
@@ -169,5 +170,33 @@ describe('a photo-z job cut short by kill -9', () => {
     expect(db.select({ n: count() }).from(jobItems).where(eq(jobItems.jobId, jobId)).get()!.n).toBe(6);
     const fits = db.select({ n: count(), targets: countDistinct(photoZFits.targetId) }).from(photoZFits).get()!;
     expect(fits).toEqual({ n: N, targets: N });
+  });
+});
+
+describe('a photo-z job whose filter curve is gone before it runs', () => {
+  let q: TestApp;
+  beforeAll(async () => {
+    q = await createTestApp({ PHOTOZ_JOB_THRESHOLD: '1', JOB_RUNNER: '0', SCAN_THREADS: '1' });
+  });
+  afterAll(() => q.cleanup());
+
+  it('fails the item with a message naming the filter, ends the job, and leaves the targets without a fit', { timeout: 60_000 }, async () => {
+    const lead = await q.signIn('lead@demo.test');
+    const curve = ['# box filter', ...Array.from({ length: 21 }, (_, i) => `${40000 + 250 * i} ${i === 0 || i === 20 ? 0 : 0.9}`)].join('\n');
+    expect((await lead.post('/api/campaigns/2/filters').field('name', 'box_f400').attach('files', Buffer.from(curve), 'box.txt')).status).toBe(201);
+    const res = await upload(lead, 2, 'id,flux_box_f400,err_box_f400\nOWN-1,120,10\nOWN-2,80,10\n');
+    expect(res.status, JSON.stringify(res.body)).toBe(202);
+    // The curve disappears from the database before any runner takes the job.
+    q.ctx.db.delete(campaignFilters).run();
+    const runner = new JobRunner(q.ctx, q.ctx.store, q.ctx.scanPool, { leaseMs: 5000, idlePollMs: 50 });
+    runner.start();
+    try {
+      const job = await waitForJob(lead, res.body.photoZJobId);
+      expect(job).toMatchObject({ state: 'done', done: 1, total: 1, failure: null });
+      expect(job.errors).toEqual([{ file: 'photo-z of catalogue targets 1–2 of 2', code: 'photoz_failed', message: 'The photo-z fit of these targets stopped on an error: unknown filter box_f400' }]);
+    } finally {
+      await runner.stop();
+    }
+    expect(q.ctx.db.select().from(photoZFits).all()).toEqual([]);
   });
 });

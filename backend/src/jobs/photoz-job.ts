@@ -2,12 +2,12 @@ import { and, count, eq, inArray, lt, lte, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { jobItems, jobs, targets } from '../db/schema';
 import type { ServiceContext } from '../services/context';
-import { computePhotoZFits, storePhotoZFits } from '../services/photo-z-fits';
+import { photoZFitInput, photoZFitRows, storePhotoZFits, type NewFitRow } from '../services/photo-z-fits';
 import type { JobItemRow, JobRow } from './job-store';
 
 /**
- * Targets fitted per item: ≈ 0.2 s of fitting at ≈ 1,100 sources/s, so the web server answers
- * other requests between two items, and a crash redoes at most this many fits.
+ * Targets fitted per item: ≈ 0.2 s of fitting at ≈ 1,100 sources/s on a scan-pool thread, so a
+ * crash redoes at most this many fits and the web thread only reads and writes each item.
  */
 export const PHOTOZ_JOB_CHUNK = 200;
 
@@ -51,23 +51,26 @@ function targetsOfItem(db: Pick<Db, 'select'>, job: JobRow, item: JobItemRow): n
 }
 
 /**
- * Fits one item's targets and stores their fits together with the item's end, in one
- * transaction: a crash leaves the item pending (refitted on resume, replacing nothing twice) or
- * finished with every fit stored. The fit runs before the write transaction (reads only), so
- * other writers wait only for the inserts.
+ * Fits one item's targets on a scan-pool thread and stores their fits together with the item's
+ * end, in one transaction: a crash leaves the item pending (refitted on resume, replacing nothing
+ * twice) or finished with every fit stored. The fit runs before the write transaction, so other
+ * writers wait only for the inserts, and off the web thread, so requests are answered meanwhile.
  */
 export async function processPhotoZItem(ctx: ServiceContext, job: JobRow, item: JobItemRow): Promise<void> {
-  // Between two items the event loop serves requests (an await alone yields only to microtasks).
-  await new Promise((resolve) => setImmediate(resolve));
   const { db } = ctx;
   const settings = job.settings as unknown as PhotoZJobSettings;
   const ids = targetsOfItem(db, job, item);
-  let rows;
+  let rows: NewFitRow[] = [];
   try {
-    rows = computePhotoZFits(db, job.campaignId, ids, ctx.now().toISOString());
+    const input = photoZFitInput(db, job.campaignId, ids);
+    if (input) {
+      const result = await ctx.scanPool.photoZ({ curves: input.curves, flux: input.flux, err: input.err });
+      if (!result.ok) throw new Error(result.message);
+      rows = photoZFitRows(input, result.fits, ctx.now().toISOString());
+    }
   } catch (err) {
     ctx.logger.error({ err, jobId: job.id, itemId: item.id }, 'photo-z fit failed');
-    finishPhotoZItem(db, item, 'failed', 'photoz_failed', `The photo-z fit of these targets stopped on an unexpected error: ${(err as Error).message}`);
+    finishPhotoZItem(db, item, 'failed', 'photoz_failed', `The photo-z fit of these targets stopped on an error: ${(err as Error).message}`);
     return;
   }
   db.transaction((tx) => {
