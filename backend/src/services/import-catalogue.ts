@@ -77,10 +77,11 @@ export function importCatalogue(
       tx.select({ id: targets.catalogueId }).from(targets).where(eq(targets.campaignId, campaignId)).all().map((r) => r.id),
     );
     const now = ctx.now().toISOString();
-    for (const { photometry: _, ...row } of rows) {
-      const values = { ...row, campaignId, updatedAt: now };
+    // Upserted 200 rows a statement (≈ 13 values a row, well under SQLite's 32,766 variables).
+    const values = rows.map(({ photometry: _, ...row }) => ({ ...row, campaignId, updatedAt: now }));
+    for (let i = 0; i < values.length; i += 200) {
       tx.insert(targets)
-        .values(values)
+        .values(values.slice(i, i + 200))
         .onConflictDoUpdate({
           target: [targets.campaignId, targets.catalogueId],
           set: {
