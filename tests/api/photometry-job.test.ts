@@ -200,3 +200,41 @@ describe('a photo-z job whose filter curve is gone before it runs', () => {
     expect(q.ctx.db.select().from(photoZFits).all()).toEqual([]);
   });
 });
+
+describe('imports made while a photo-z job waits', () => {
+  let q: TestApp;
+  beforeAll(async () => {
+    q = await createTestApp({ PHOTOZ_JOB_THRESHOLD: '2', JOB_RUNNER: '0', SCAN_THREADS: '1' });
+  });
+  afterAll(() => q.cleanup());
+
+  it('keep a later import’s own fit, and leave to the job the targets a later import gave no fluxes', { timeout: 60_000 }, async () => {
+    const lead = await q.signIn('lead@demo.test');
+    const big = await upload(lead, 1, catalogue(SOURCES, 21));
+    expect(big.status).toBe(202);
+    // Before the job runs, an hour later: new fluxes for the dwarf (fitted in that request) and only a new priority for the dropout.
+    q.clock.advanceHours(1);
+    const refluxed = await upload(lead, 1, catalogue([SOURCES[2]!], 22));
+    expect(refluxed.body).toMatchObject({ photoZFits: 1, photoZJobId: null });
+    const idOf = (c: string) => q.ctx.db.select({ id: targets.id }).from(targets).where(eq(targets.catalogueId, c)).get()!.id;
+    const starFit = q.ctx.db.select().from(photoZFits).where(eq(photoZFits.targetId, idOf('STAR-1'))).get()!;
+    const priorityOnly = await upload(lead, 1, 'id,priority\nDROP-1,5\n');
+    expect(priorityOnly.status, JSON.stringify(priorityOnly.body)).toBe(200);
+    expect(q.ctx.db.select().from(photoZFits).where(eq(photoZFits.targetId, idOf('DROP-1'))).get()).toBeUndefined();
+
+    const runner = new JobRunner(q.ctx, q.ctx.store, q.ctx.scanPool, { leaseMs: 5000, idlePollMs: 50 });
+    runner.start();
+    try {
+      expect((await waitForJob(lead, big.body.photoZJobId)).state).toBe('done');
+    } finally {
+      await runner.stop();
+    }
+    // The dwarf's fit is still the one its own import stored (same row), not the job's from the older fluxes.
+    expect(q.ctx.db.select().from(photoZFits).where(eq(photoZFits.targetId, idOf('STAR-1'))).get()).toEqual(starFit);
+    // The dropout got its fit from the job.
+    const drop = q.ctx.db.select().from(photoZFits).where(eq(photoZFits.targetId, idOf('DROP-1'))).get()!;
+    expect(drop.z95Low).toBeLessThanOrEqual(DROPOUT_Z);
+    expect(drop.z95High).toBeGreaterThanOrEqual(DROPOUT_Z);
+    expect(q.ctx.db.select().from(photoZFits).all()).toHaveLength(3);
+  });
+});

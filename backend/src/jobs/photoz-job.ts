@@ -1,6 +1,6 @@
-import { and, count, eq, inArray, lt, lte, sql } from 'drizzle-orm';
+import { and, count, eq, gt, inArray, lt, max, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { jobItems, jobs, targets } from '../db/schema';
+import { jobItems, jobs, targetPhotometry } from '../db/schema';
 import type { ServiceContext } from '../services/context';
 import { photoZFitInput, photoZFitRows, storePhotoZFits, type NewFitRow } from '../services/photo-z-fits';
 import type { JobItemRow, JobRow } from './job-store';
@@ -15,8 +15,11 @@ export const PHOTOZ_JOB_CHUNK = 200;
 export interface PhotoZJobSettings {
   targetIds: number[];
   chunk: number;
-  /** The import's time: a target imported again after it is left to that later import. */
-  queuedAt: string;
+  /**
+   * The largest photometry row id when the job was queued (ids only grow): a target with a newer
+   * row had its fluxes replaced by a later import, which fits it (in its request or its own job).
+   */
+  photometryUpTo: number;
 }
 
 type Tx = Pick<Db, 'insert' | 'select' | 'update' | 'delete'>;
@@ -26,10 +29,11 @@ type Tx = Pick<Db, 'insert' | 'select' | 'update' | 'delete'>;
  * `ceil(n / chunk)` items, in the caller's transaction. Returns the job id; the caller wakes the
  * runner after its transaction commits.
  */
-export function queuePhotoZJob(tx: Tx, campaignId: number, createdBy: number, targetIds: readonly number[], queuedAt: string): number {
+export function queuePhotoZJob(tx: Tx, campaignId: number, createdBy: number, targetIds: readonly number[]): number {
   const chunk = PHOTOZ_JOB_CHUNK;
   const n = Math.ceil(targetIds.length / chunk);
-  const settings: PhotoZJobSettings = { targetIds: [...targetIds], chunk, queuedAt };
+  const photometryUpTo = tx.select({ id: max(targetPhotometry.id) }).from(targetPhotometry).get()?.id ?? 0;
+  const settings: PhotoZJobSettings = { targetIds: [...targetIds], chunk, photometryUpTo };
   const job = tx
     .insert(jobs)
     .values({ kind: 'photoz', campaignId, createdBy, total: n, settings: settings as unknown as Record<string, unknown> })
@@ -75,22 +79,22 @@ export async function processPhotoZItem(ctx: ServiceContext, job: JobRow, item: 
   }
   db.transaction((tx) => {
     if (tx.select({ state: jobItems.state }).from(jobItems).where(eq(jobItems.id, item.id)).get()?.state !== 'pending') return;
-    // A target imported again since this job was queued was refitted by that import (in its
-    // request, or by its own job): its newer fit stays.
-    const current = new Set(
+    // A target whose fluxes a later import replaced is that import's to fit (in its request, or
+    // by its own job, which runs after this one): its fit is left as it is.
+    const replaced = new Set(
       ids.length === 0
         ? []
         : tx
-            .select({ id: targets.id })
-            .from(targets)
-            .where(and(inArray(targets.id, ids), lte(targets.updatedAt, settings.queuedAt)))
+            .selectDistinct({ id: targetPhotometry.targetId })
+            .from(targetPhotometry)
+            .where(and(inArray(targetPhotometry.targetId, ids), gt(targetPhotometry.id, settings.photometryUpTo)))
             .all()
             .map((t) => t.id),
     );
     storePhotoZFits(
       tx,
-      ids.filter((id) => current.has(id)),
-      rows.filter((r) => current.has(r.targetId)),
+      ids.filter((id) => !replaced.has(id)),
+      rows.filter((r) => !replaced.has(r.targetId)),
     );
     finishPhotoZItem(tx, item, 'done');
   });

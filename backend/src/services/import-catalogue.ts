@@ -113,7 +113,7 @@ export function importCatalogue(
       const withBands = ids.filter((_, i) => rows[i]!.photometry.length > 0);
       if (withBands.length > ctx.config.photoZJobThreshold) {
         deletePhotoZFits(tx, ids);
-        photoZJobId = queuePhotoZJob(tx, campaignId, actor.id, withBands, now);
+        photoZJobId = queuePhotoZJob(tx, campaignId, actor.id, withBands);
       } else photoZFits = refitPhotoZ(tx, campaignId, ids, now);
     }
     tx.insert(catalogueMappings)
