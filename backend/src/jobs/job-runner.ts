@@ -4,6 +4,7 @@ import type { LinkableTarget } from '../ingest/link-target';
 import type { ServiceContext } from '../services/context';
 import type { BlobStore } from '../storage/blob-store';
 import { claimNextJob, finishJob, isCancelRequested, pendingItems, renewLease, requeueExpiredJobs, type JobRow } from './job-store';
+import { processPhotoZItem } from './photoz-job';
 import { processItem, type JobSettings } from './process-item';
 import type { JobQueue } from './job-queue';
 import type { ScanPool } from './scan-pool';
@@ -93,7 +94,7 @@ export class JobRunner implements JobQueue {
             cancelled = true;
             return;
           }
-          await processItem(itemContext, item);
+          await (job.kind === 'photoz' ? processPhotoZItem(this.ctx, job, item) : processItem(itemContext, item));
         }
       };
       await Promise.all(Array.from({ length: this.pool.threads }, worker));
