@@ -1,5 +1,6 @@
 import { templateSetFor, type TemplateSet } from './buildTemplates';
 import { shapeBins, shapeChi2 } from './continuumShapeCheck';
+import { forestChi2, forestSums } from './forestStructureCheck';
 import { DEFAULT_IGM_MODEL, meanIgmTransmission, type IgmModel } from './igmTransmission';
 import { interloperAlternatives, type Interloper } from './interloperCheck';
 import { findMinima, pickDistinct, type RawSolution } from './findSolutions';
@@ -37,6 +38,8 @@ export interface ScanOptions extends PrepareOptions {
   igmModel?: IgmModel;
   /** Add the χ² of the unfiltered continuum shape in coarse bins to each candidate (continuumShapeCheck.ts; default true). */
   shapeCheck?: boolean;
+  /** Penalise quasar and Lyman-break solutions whose Lyα forest is too smooth (forestStructureCheck.ts; default: on when the file carried its errors). */
+  forestCheck?: boolean;
 }
 
 /** A feature of the line list at a solution's redshift, inside the observed range. */
@@ -77,6 +80,8 @@ export interface Solution {
   singleFeaturePenalty?: number;
   /** χ² of the continuum shape in coarse bins, before continuum removal (included in chi2). */
   shapeChi2?: number;
+  /** Quasars and Lyman-break sources: χ² added because the Lyα forest is too smooth (forestStructureCheck.ts; included in chi2). */
+  forestChi2?: number;
   /**
    * Lyman-break solutions only: the interloper alternatives (a 4000 Å/Balmer-break galaxy at the
    * mirror redshift, cool stars, brown dwarfs and carbon stars at z = 0) with Δχ² against this one.
@@ -174,7 +179,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const bins = options.shapeCheck ?? true ? shapeBins(prepared) : undefined;
   // The checks too costly for every shift, run on candidates about to be chosen and on the
   // interloper alternatives: the single-feature cap and the unfiltered continuum shape.
-  const lazyAt = (curve: TemplateCurve, shift: number): { single: number; share?: number; shape?: number } => {
+  const forest = (options.forestCheck ?? !spectrum.meta.errorsEstimated) ? forestSums(prepared) : undefined;
+  const lazyAt = (curve: TemplateCurve, shift: number): { single: number; share?: number; shape?: number; forest: number } => {
     const t = curve.template;
     let single = 0;
     let share: number | undefined;
@@ -185,7 +191,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
       single = f.penalty;
     }
     const shape = bins ? misfit * shapeChi2(bins, prepared, set, t, shift, (lambda, z) => meanIgmTransmission(lambda, z, igmModel)) : undefined;
-    return { single, share, shape };
+    const hasForest = forest && (t.class === 'quasar' || t.class === 'lyman-break');
+    return { single, share, shape, forest: hasForest ? misfit * forestChi2(forest, shiftToZ(shift, set.step), igmModel) : 0 };
   };
   // A candidate's curve: its template's, holding its shift (refined variants cover a narrow window each).
   const allCurves = [...curves, ...refined.curves];
@@ -195,16 +202,17 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     if (r.share !== undefined) cand.featureShare = r.share;
     if (r.single > 0) cand.penalty = r.single;
     if (r.shape !== undefined) cand.shapeChi2 = r.shape;
-    return r.single + (r.shape ?? 0);
+    if (r.forest > 0) cand.forestChi2 = r.forest;
+    return r.single + (r.shape ?? 0) + r.forest;
   };
   const raw = pickDistinct(candidates, set.step, maxSolutions, lazyChecks);
   const solutions: Solution[] = raw.map((s, k) => {
     // The fit's own χ² (without the single-feature penalty, which only re-ranks) per degree of freedom.
     const dof = Math.max(1, usable - s.amplitudes.filter((a) => a > 0).length);
-    const reducedChi2 = (s.chi2 - (s.penalty ?? 0) - (s.shapeChi2 ?? 0)) / dof;
+    const reducedChi2 = (s.chi2 - (s.penalty ?? 0) - (s.shapeChi2 ?? 0) - (s.forestChi2 ?? 0)) / dof;
     const lazyTotal = (curve: TemplateCurve, shift: number): number => {
       const r = lazyAt(curve, shift);
-      return r.single + (r.shape ?? 0);
+      return r.single + (r.shape ?? 0) + r.forest;
     };
     const interlopers = s.class === 'lyman-break' ? interloperAlternatives(s.z, s.chi2, curves, set.step, lazyTotal) : undefined;
     return {
@@ -216,11 +224,12 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
       template: s.template,
       chi2: s.chi2,
       deltaChi2: k + 1 < raw.length ? raw[k + 1]!.chi2 - s.chi2 : null,
-      detectionChi2: data.chi2Null - (s.chi2 - (s.shapeChi2 ?? 0)),
+      detectionChi2: data.chi2Null - (s.chi2 - (s.shapeChi2 ?? 0) - (s.forestChi2 ?? 0)),
       lines: linesInRange(set, s.template, s.z, prepared),
       ...(s.featureShare !== undefined ? { featureShare: s.featureShare } : {}),
       ...(s.penalty ? { singleFeaturePenalty: s.penalty } : {}),
       ...(s.shapeChi2 !== undefined ? { shapeChi2: s.shapeChi2 } : {}),
+      ...(s.forestChi2 ? { forestChi2: s.forestChi2 } : {}),
       ...(interlopers ? { interlopers } : {}),
     };
   });
