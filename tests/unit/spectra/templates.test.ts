@@ -33,6 +33,13 @@ describe('template recipes as built', () => {
     const broad = g.basis.findIndex((b) => b.label === 'broad Balmer');
     expect(broad).toBeGreaterThanOrEqual(0);
     expect(g.basis[broad]!.synthetic).toBe(false);
+    // Hγ and Hδ ride with broad Hα and Hβ (engine 0.6.5): a lone broad Hβ is no Seyfert.
+    const v = g.basis[broad]!.unfiltered;
+    const peakNear = (rest: number) => Math.max(...Array.from({ length: 21 }, (_, k) => v[at(rest) - 10 + k]!));
+    const between = v[at(4600)]!;
+    expect(peakNear(4341.68)).toBeGreaterThan(10 * Math.abs(between));
+    expect(peakNear(4341.68) / peakNear(4862.68)).toBeGreaterThan(0.3);
+    expect(peakNear(4341.68) / peakNear(4862.68)).toBeLessThan(0.6);
     expect(g.bins.map((b) => [b.zLo, b.zHi, b.basis.includes(broad)])).toEqual([
       [0, 0.5, true],
       [0.5, 9, false],
