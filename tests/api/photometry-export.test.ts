@@ -75,3 +75,33 @@ it("checks the spectrum's own synthetic photometry against the catalogue in the 
   const scaled = check.bands.map((b: { ratio: number }) => b.ratio / check.medianRatio).sort((a: number, b: number) => a - b);
   expect(scaled[Math.floor(scaled.length / 2)]).toBeCloseTo(1, 6);
 });
+
+it('states the photo-z prior convention in every export, with the records under each prior, as the spectrum detail applies it', async () => {
+  const observer = await t.signIn('observer@demo.test');
+  const detail = await observer.get(`/api/spectra/${ids[0]}`);
+  expect(detail.status).toBe(200);
+  // No typed photo-z, a computed fit: the detail ranks with the computed P(z), and the export counts it so.
+  expect(detail.body.scan.photoZPrior.source).toBe('computed');
+  const csv = await observer.get('/api/campaigns/1/confirmed?format=csv');
+  expect(csv.text).toMatch(/^# photo_z_prior: photo-z prior: typed \| computed P\(z\) \| none\. .*typed catalogue photo-z .* else with the P\(z\) Redward computed .* else with none; .*readers' confirmed value, which no prior changes$/m);
+  expect(csv.text).toMatch(/^# photo_z_prior_records: typed 0, computed P\(z\) 1, none 0 \(of 1 current confirmed records in the campaign, at export\)$/m);
+  const votable = await observer.get('/api/campaigns/1/confirmed?format=votable');
+  expect(votable.text).toMatch(/<INFO name="photo_z_prior_records" value="typed 0, computed P\(z\) 1, none 0 /);
+  const ecsv = await observer.get('/api/campaigns/1/confirmed?format=ecsv');
+  expect(ecsv.text).toMatch(/^# {3}photo_z_prior: "photo-z prior: typed \| computed P\(z\) \| none\./m);
+  const fits = await observer.get('/api/campaigns/1/confirmed?format=fits').buffer(true).parse((res, cb) => {
+    const chunks: Buffer[] = [];
+    res.on('data', (c: Buffer) => chunks.push(c));
+    res.on('end', () => cb(null, Buffer.concat(chunks)));
+  });
+  const header = (fits.body as Buffer).toString('latin1').replace(/(.{80})/g, '$1\n');
+  expect(header).toMatch(/^COMMENT Prior records: typed 0, computed P\(z\) 1, none 0/m);
+
+  // The catalogue now types a photo-z for the target: it wins over the computed P(z), in the detail and the export alike.
+  const lead = await t.signIn('lead@demo.test');
+  const typed = await lead.post('/api/campaigns/1/targets').attach('files', Buffer.from('id,zphot,zphot_l68,zphot_u68\nPHX-0001,1.02,0.95,1.1\n'), 'typed.csv');
+  expect(typed.status, JSON.stringify(typed.body)).toBe(200);
+  expect((await observer.get(`/api/spectra/${ids[0]}`)).body.scan.photoZPrior.source).toBe('typed');
+  const after = await observer.get('/api/campaigns/1/confirmed?format=csv');
+  expect(after.text).toMatch(/^# photo_z_prior_records: typed 1, computed P\(z\) 0, none 0 /m);
+});

@@ -38,7 +38,7 @@ export interface E2eServer extends RunningServer {
  * A real Redward on a free port with a fresh data folder and demo data. PUBLIC_URL must be
  * known before boot so the links in invitation e-mails point at this server.
  */
-export async function startE2eServer(options: { demoSpectra?: boolean } = {}): Promise<E2eServer> {
+export async function startE2eServer(options: { demoSpectra?: boolean; env?: Record<string, string> } = {}): Promise<E2eServer> {
   const dataDir = mkdtempSync(path.join(tmpdir(), 'redward-e2e-'));
   const port = await freePort();
   const server = await startServer(
@@ -50,6 +50,7 @@ export async function startE2eServer(options: { demoSpectra?: boolean } = {}): P
       MAIL_CATCHER_PORT: '0',
       LOG_LEVEL: 'silent',
       REDWARD_DEMO_SPECTRA: options.demoSpectra ? '1' : '0',
+      ...options.env,
     }),
   );
   return {

@@ -12,7 +12,8 @@ export type JobError = z.infer<typeof jobErrorSchema>;
 
 export const jobProgressSchema = z.object({
   id: z.number().int(),
-  kind: z.enum(['ingest', 'scan']),
+  /** ingest: an upload; scan: a re-scan; photoz: the photo-z fit of a large catalogue import. */
+  kind: z.enum(['ingest', 'scan', 'photoz']),
   campaignId: z.number().int(),
   state: jobStateSchema,
   done: z.number().int(),

@@ -40,6 +40,8 @@ export const solutionSchema = z.object({
   singleFeaturePenalty: z.number().optional(),
   /** χ² of the unfiltered continuum shape in coarse bins (included in chi2; engine ≥ 0.6.0). */
   shapeChi2: z.number().optional(),
+  /** Quasars and Lyman-break sources: χ² of a Lyα forest too smooth for its redshift (included in chi2; engine ≥ 0.6.6). */
+  forestChi2: z.number().optional(),
   /** Lyman-break solutions: the interloper alternatives with Δχ² against this solution (> 0 favours it). */
   interlopers: z
     .array(z.object({ kind: z.enum(['4000-break', 'cool-star', 'brown-dwarf', 'carbon-star']), label: z.string(), template: z.string(), z: z.number(), deltaChi2: z.number() }))

@@ -61,6 +61,11 @@ export const catalogueImportResultSchema = z.object({
   linked: z.number().int(),
   /** Targets whose photometric redshift was computed from their band fluxes by this import. */
   photoZFits: z.number().int(),
+  /**
+   * A large import (more rows with photometry than the server's threshold) fits its photo-z in
+   * this job instead (answered 202); its progress is at /api/jobs/:id. Null when fitted here.
+   */
+  photoZJobId: z.number().int().nullable(),
   errors: z.array(catalogueRowErrorSchema),
 });
 export type CatalogueImportResult = z.infer<typeof catalogueImportResultSchema>;

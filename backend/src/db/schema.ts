@@ -170,7 +170,7 @@ export const jobs = sqliteTable(
   'jobs',
   {
     id: integer('id').primaryKey({ autoIncrement: true }),
-    kind: text('kind', { enum: ['ingest', 'scan'] }).notNull(),
+    kind: text('kind', { enum: ['ingest', 'scan', 'photoz'] }).notNull(),
     campaignId: integer('campaign_id').notNull().references(() => campaigns.id),
     createdBy: integer('created_by').references(() => users.id),
     state: text('state', { enum: JOB_STATES }).notNull().default('queued'),

@@ -40,6 +40,18 @@ export function assumptionEntries(a: ExportAssumptions): Entry[] {
     ['lya_caveat', LYA_NOTE],
     ['nulls', NULL_NOTE],
     ...photometricRedshiftEntries(a),
+    ...photoZPriorEntries(a),
+  ];
+}
+
+/** The photo-z prior statement and its counts, e.g. "typed 3, computed P(z) 2, none 1 (of 6 current confirmed records, at export)". */
+export function photoZPriorEntries(a: ExportAssumptions): Entry[] {
+  const p = a.photoZPrior;
+  if (!p) return [];
+  const { typed, computed, none } = p.records;
+  return [
+    ['photo_z_prior', p.convention],
+    ['photo_z_prior_records', `typed ${typed}, computed P(z) ${computed}, none ${none} (of ${typed + computed + none} current confirmed records in the campaign, at export)`],
   ];
 }
 

@@ -1,4 +1,4 @@
-import { DERIVED_NOTE, LINES_NOTE, LYA_NOTE, NULL_NOTE, ROUNDING_NOTE } from './assumptionEntries';
+import { DERIVED_NOTE, LINES_NOTE, LYA_NOTE, NULL_NOTE, photoZPriorEntries, ROUNDING_NOTE } from './assumptionEntries';
 import { buildExportTable } from './buildExportTable';
 import type { ColumnKind } from './confirmedColumns';
 import { csvRecord } from './csvField';
@@ -44,6 +44,7 @@ export function toEcsv(rows: readonly ConfirmedRow[], assumptions: ExportAssumpt
     `  lya_caveat: ${yamlString(LYA_NOTE)}`,
     `  nulls: ${yamlString(NULL_NOTE)}`,
     ...(a.photometricRedshift ? [`  photometric_redshift: {filters: ${yamlString(a.photometricRedshift.filters)}, templates: ${yamlString(a.photometricRedshift.templates)}, method: ${yamlString(a.photometricRedshift.method)}}`] : []),
+    ...photoZPriorEntries(a).map(([key, value]) => `  ${key}: ${yamlString(value)}`),
     'schema: astropy-2.0',
   ];
   const header = yaml.map((line) => `# ${line}\n`).join('');

@@ -1,4 +1,4 @@
-import { DERIVED_NOTE, LINES_NOTE, LYA_NOTE, NULL_NOTE, ROUNDING_NOTE } from './assumptionEntries';
+import { DERIVED_NOTE, LINES_NOTE, LYA_NOTE, NULL_NOTE, photoZPriorEntries, ROUNDING_NOTE } from './assumptionEntries';
 import { buildExportTable, type Cell } from './buildExportTable';
 import type { ColumnKind, ExportColumn } from './confirmedColumns';
 import { fitsAscii } from './fitsAscii';
@@ -82,6 +82,7 @@ function tableHeader(layouts: Layout[], rowWidth: number, rows: number, a: Expor
     ...commentaryCards('COMMENT', `Caveat: ${LYA_NOTE}.`),
     ...commentaryCards('COMMENT', `Nulls: NaN in D columns, TNULLn in K and J columns, a leading NUL in A columns; ${NULL_NOTE}.`),
     ...(a.photometricRedshift ? commentaryCards('COMMENT', `z_phot columns: filters ${a.photometricRedshift.filters}; ${a.photometricRedshift.templates}; ${a.photometricRedshift.method}.`) : []),
+    ...photoZPriorEntries(a).flatMap(([key, value]) => commentaryCards('COMMENT', `${key === 'photo_z_prior' ? 'Prior' : 'Prior records'}: ${value}.`)),
     ...commentaryCards('COMMENT', "Text is ASCII: accents dropped (NFKD), tabs and line breaks become spaces, other characters '?'."),
   );
   return cards;

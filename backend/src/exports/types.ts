@@ -84,6 +84,11 @@ export interface ExportAssumptions {
   software: string;
   /** How the z_phot columns were computed: the filter set(s) and the template set, in words. */
   photometricRedshift?: { filters: string; templates: string; method: string };
+  /**
+   * Which photo-z prior ranks the engine's solutions that readers see (the convention, in words),
+   * and how many of the campaign's current confirmed records fall under each, at export time.
+   */
+  photoZPrior?: { convention: string; records: { typed: number; computed: number; none: number } };
 }
 
 /** A member of an image family that has no confirmed redshift yet. */

@@ -6,6 +6,7 @@ import type { LinkableTarget } from '../ingest/link-target';
 import type { ServiceContext } from '../services/context';
 import type { BlobStore } from '../storage/blob-store';
 import { claimNextJob, finishJob, isCancelRequested, pendingItems, renewLease, requeueExpiredJobs, type JobItemRow, type JobRow } from './job-store';
+import { processPhotoZItem } from './photoz-job';
 import { finishWithoutScan, recordItemResult, scanSettingsOf, type ItemContext, type JobSettings, type ResultContext } from './process-item';
 import type { JobQueue } from './job-queue';
 import type { ScanPool } from './scan-pool';
@@ -113,7 +114,8 @@ export class JobRunner implements JobQueue {
             cancelled = true;
             return;
           }
-          await scanItem(itemContext, item, results);
+          // A photo-z item writes its own fits in its own transaction; scans go through the batch.
+          await (job.kind === 'photoz' ? processPhotoZItem(this.ctx, job, item) : scanItem(itemContext, item, results));
         }
       };
       try {

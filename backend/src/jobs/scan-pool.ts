@@ -1,11 +1,14 @@
 import { availableParallelism } from 'node:os';
 import { MessageChannel } from 'node:worker_threads';
 import { Piscina } from 'piscina';
+import type { PhotoZTask, PhotoZTaskResult } from './photoz-fit-task';
 import type { ModelTask, ModelTaskResult, ScanTask, ScanTaskResult } from './scan-worker';
 
 export interface ScanPool {
   run(task: ScanTask): Promise<ScanTaskResult>;
   model(task: ModelTask): Promise<ModelTaskResult>;
+  /** Fits one photo-z job item's sources (with P(z)) off the web thread. */
+  photoZ(task: PhotoZTask): Promise<PhotoZTaskResult>;
   readonly threads: number;
   destroy(): Promise<void>;
 }
@@ -45,6 +48,8 @@ export function createScanPool(threads = availableParallelism(), options: ScanPo
       })) as Promise<ScanTaskResult>,
     model: (task) =>
       runLimited(pool, task, 'runModelTask', timeLimitMs, () => ({ ok: false, message: `Rebuilding the model took longer than ${limit} and was stopped.` })) as Promise<ModelTaskResult>,
+    photoZ: (task) =>
+      runLimited(pool, task, 'runPhotoZTask', timeLimitMs, () => ({ ok: false, message: `Fitting these targets took longer than ${limit} and was stopped.` })) as Promise<PhotoZTaskResult>,
     destroy: () => pool.destroy(),
   };
 }
@@ -53,7 +58,7 @@ export function createScanPool(threads = availableParallelism(), options: ScanPo
  * Runs one task with a wall-clock limit that starts when a thread begins it (the worker posts on
  * `started`), so time spent queued or starting a thread does not count against the file.
  */
-async function runLimited<T extends ScanTask | ModelTask, R>(pool: Piscina, task: T, name: string | undefined, limitMs: number, onTimeout: () => R): Promise<R> {
+async function runLimited<T extends ScanTask | ModelTask | PhotoZTask, R>(pool: Piscina, task: T, name: string | undefined, limitMs: number, onTimeout: () => R): Promise<R> {
   const controller = new AbortController();
   const { port1, port2 } = new MessageChannel();
   let timer: NodeJS.Timeout | undefined;

@@ -10,6 +10,9 @@ import type { FluxUnit, SpectrumMeta } from '../spectra/types';
 import { lowerThisThreadPriority } from './lower-thread-priority';
 import { packCurves } from './scan-curves';
 
+// Photo-z job items run on the same threads (jobs/photoz-job.ts).
+export { runPhotoZTask } from './photoz-fit-task';
+
 // Scans yield the core to the web thread whenever it has requests to answer (issue 13).
 lowerThisThreadPriority();
 

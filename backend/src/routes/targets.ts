@@ -49,6 +49,11 @@ export function targetRoutes(ctx: ServiceContext): Router {
           const n = result.errors.length;
           throw new AppError(400, 'catalogue_invalid', `${n} problem${n === 1 ? '' : 's'} in the catalogue (first on line ${result.errors[0]!.line}: ${result.errors[0]!.message}); nothing was imported.`, {}, result);
         }
+        // Targets and photometry are stored; the photo-z fit runs as a job: 202 with its id.
+        if (result.photoZJobId !== null) {
+          res.status(202).json(catalogueImportResultSchema.parse(result));
+          return undefined;
+        }
         return result;
       } finally {
         for (const f of files) rmSync(f.tempFile, { force: true });

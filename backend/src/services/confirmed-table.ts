@@ -5,7 +5,8 @@ import { qualified } from '../db/qualified';
 import { campaigns, confirmedRedshifts, disagreements, photoZFits, readings, scanResults, spectra, targets, users } from '../db/schema';
 import type { Solution } from '../contracts/spectra';
 import type { ConfirmedRow, ExportAssumptions } from '../exports';
-import { campaignPhotoZProvenance, fitsOf } from './photo-z-fits';
+import { campaignPhotoZProvenance, fitsOf, posteriorOf } from './photo-z-fits';
+import { PHOTOZ_PRIOR_NOTE, photoZPriorSource } from './solution-prior';
 import { PLANCK18 } from '../spectra/flatLcdm';
 import { ENGINE_VERSION } from '../spectra/version';
 import type { StoredLineMeasurements } from '../contracts/line-measurements';
@@ -161,7 +162,29 @@ export function exportAssumptions(ctx: ServiceContext, campaignId: number): Expo
     exportedAt: ctx.now().toISOString(),
     software: `Redward ${ctx.config.version} / ${ENGINE_VERSION}`,
     ...campaignPhotoZProvenance(ctx.db, campaignId),
+    photoZPrior: { convention: PHOTOZ_PRIOR_NOTE, records: photoZPriorRecords(ctx, campaignId) },
   };
+}
+
+/**
+ * How many current confirmed records have a target ranked by each photo-z prior, decided by the
+ * same rule the spectrum detail applies (photoZPriorSource): typed, computed P(z) or none.
+ */
+function photoZPriorRecords(ctx: ServiceContext, campaignId: number): { typed: number; computed: number; none: number } {
+  const found = ctx.db
+    .select({ t: { id: targets.id, photoZ: targets.photoZ, photoZLow: targets.photoZLow, photoZHigh: targets.photoZHigh } })
+    .from(confirmedRedshifts)
+    .innerJoin(spectra, eq(spectra.id, confirmedRedshifts.spectrumId))
+    .leftJoin(targets, eq(targets.id, spectra.targetId))
+    .where(and(eq(spectra.campaignId, campaignId), eq(confirmedRedshifts.isCurrent, true)))
+    .all();
+  const fits = fitsOf(ctx.db, [...new Set(found.flatMap(({ t }) => (t ? [t.id] : [])))]);
+  const counts = { typed: 0, computed: 0, none: 0 };
+  for (const { t } of found) {
+    const fit = t ? fits.get(t.id) : undefined;
+    counts[photoZPriorSource(t, fit ? posteriorOf(fit) : null)] += 1;
+  }
+  return counts;
 }
 
 /** Image-family members that have a spectrum but no current confirmed redshift yet. */

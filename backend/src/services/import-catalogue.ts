@@ -6,7 +6,8 @@ import { linkTarget } from '../ingest/link-target';
 import { guessMapping, parseCatalogueText, readCatalogueRows } from '../ingest/read-catalogue';
 import type { Actor, ServiceContext } from './context';
 import { knownFilterNames } from './photo-z-filters';
-import { refitPhotoZ } from './photo-z-fits';
+import { queuePhotoZJob } from '../jobs/photoz-job';
+import { deletePhotoZFits, refitPhotoZ } from './photo-z-fits';
 import { recordAudit } from './record-audit';
 
 /** The campaign's remembered mapping, when every column it names is in this catalogue. */
@@ -44,6 +45,9 @@ function withNewColumns(remembered: ColumnMapping, guessed: ColumnMapping | null
  * target yet. Targets are updated in place, so readings on their spectra are untouched. Band
  * fluxes in the mapping replace those targets' photometry and their photometric redshifts are
  * computed in the same transaction; the mapping is remembered for the campaign's next import.
+ * Above `config.photoZJobThreshold` rows with photometry, the fits are left to a photo-z job
+ * queued in the same transaction (`photoZJobId`): the targets' old fits are removed with their
+ * old photometry, so no fit ever disagrees with the stored fluxes.
  */
 export function importCatalogue(
   ctx: ServiceContext,
@@ -61,22 +65,23 @@ export function importCatalogue(
   const guessed = guessMapping(parsed.columns, known);
   const remembered = rememberedMapping(ctx, campaignId, parsed.columns);
   const used = mapping ?? (remembered ? withNewColumns(remembered, guessed) : guessed);
-  const base = { columns: parsed.columns, mapping: used, rows: parsed.records.length, created: 0, updated: 0, linked: 0, photoZFits: 0 };
+  const base = { columns: parsed.columns, mapping: used, rows: parsed.records.length, created: 0, updated: 0, linked: 0, photoZFits: 0, photoZJobId: null };
   if (!used) {
     return { ...base, dryRun: true, errors: [{ line: 1, column: null, message: 'No column looks like a catalogue id; choose one.' }] };
   }
   const { targets: rows, errors } = readCatalogueRows(parsed, used, new Set(known));
   if (dryRun || errors.length > 0) return { ...base, dryRun: true, errors };
 
-  return ctx.db.transaction((tx) => {
+  const result = ctx.db.transaction((tx) => {
     const existing = new Set(
       tx.select({ id: targets.catalogueId }).from(targets).where(eq(targets.campaignId, campaignId)).all().map((r) => r.id),
     );
     const now = ctx.now().toISOString();
-    for (const { photometry: _, ...row } of rows) {
-      const values = { ...row, campaignId, updatedAt: now };
+    // Upserted 200 rows a statement (≈ 13 values a row, well under SQLite's 32,766 variables).
+    const values = rows.map(({ photometry: _, ...row }) => ({ ...row, campaignId, updatedAt: now }));
+    for (let i = 0; i < values.length; i += 200) {
       tx.insert(targets)
-        .values(values)
+        .values(values.slice(i, i + 200))
         .onConflictDoUpdate({
           target: [targets.campaignId, targets.catalogueId],
           set: {
@@ -98,13 +103,18 @@ export function importCatalogue(
 
     const all = tx.select({ id: targets.id, catalogueId: targets.catalogueId, ra: targets.ra, dec: targets.dec }).from(targets).where(eq(targets.campaignId, campaignId)).all();
     let photoZFits = 0;
+    let photoZJobId: number | null = null;
     if ((used.bands ?? []).length > 0) {
       const idOf = new Map(all.map((t) => [t.catalogueId, t.id]));
       const ids = rows.map((r) => idOf.get(r.catalogueId)!);
       for (let i = 0; i < ids.length; i += 500) tx.delete(targetPhotometry).where(inArray(targetPhotometry.targetId, ids.slice(i, i + 500))).run();
       const bands = rows.flatMap((r, i) => r.photometry.map((b) => ({ ...b, targetId: ids[i]! })));
       for (let i = 0; i < bands.length; i += 500) tx.insert(targetPhotometry).values(bands.slice(i, i + 500)).run();
-      photoZFits = refitPhotoZ(tx, campaignId, ids, now);
+      const withBands = ids.filter((_, i) => rows[i]!.photometry.length > 0);
+      if (withBands.length > ctx.config.photoZJobThreshold) {
+        deletePhotoZFits(tx, ids);
+        photoZJobId = queuePhotoZJob(tx, campaignId, actor.id, withBands);
+      } else photoZFits = refitPhotoZ(tx, campaignId, ids, now);
     }
     tx.insert(catalogueMappings)
       .values({ campaignId, mapping: used, updatedAt: now })
@@ -128,8 +138,10 @@ export function importCatalogue(
       subjectType: 'campaign',
       subjectId: campaignId,
       campaignId,
-      after: { rows: rows.length, created, updated: rows.length - created, linked, photoZFits, mapping: used },
+      after: { rows: rows.length, created, updated: rows.length - created, linked, photoZFits, photoZJobId, mapping: used },
     });
-    return { ...base, dryRun: false, created, updated: rows.length - created, linked, photoZFits, errors: [] };
+    return { ...base, dryRun: false, created, updated: rows.length - created, linked, photoZFits, photoZJobId, errors: [] };
   });
+  if (result.photoZJobId !== null) ctx.wakeJobRunner();
+  return result;
 }

@@ -2,26 +2,15 @@ import { eq, inArray } from 'drizzle-orm';
 import type { PhotoZSummary } from '../contracts/targets';
 import type { Db } from '../db/client';
 import { photoZFits, targetPhotometry, targets } from '../db/schema';
-import { photoZTemplates } from '../photoz/analyticTemplates';
 import type { FilterCurve } from '../photoz/filterCurve';
-import { DEFAULT_FIT_OPTIONS, fitPhotoZ, fitScratch } from '../photoz/fitPhotoZ';
-import { PHOTOZ_IGM_MODEL } from '../photoz/igm';
-import { buildModelGrid, redshiftGrid, type ModelGrid } from '../photoz/modelGrid';
-import { effectiveWavelength } from '../photoz/photometry';
+import { DEFAULT_FIT_OPTIONS } from '../photoz/fitPhotoZ';
+import { redshiftGrid } from '../photoz/modelGrid';
 import { filterCurves } from './photo-z-filters';
+import { fitSources, PHOTOZ_STEP, PHOTOZ_Z_MAX, templateSetDescription, type SourceFit } from './photo-z-grid';
+
+export { modelGridFor, PHOTOZ_STEP, PHOTOZ_Z_MAX, templateSetDescription } from './photo-z-grid';
 
 type Tx = Pick<Db, 'select' | 'insert' | 'delete'>;
-
-/** The fit's redshift grid: 0 ≤ z ≤ 12 in steps of 0.006 in ln(1 + z) (the photo-z core's default). */
-export const PHOTOZ_Z_MAX = 12;
-export const PHOTOZ_STEP = 0.006;
-
-/** The template set in one line, stored with each fit and stated in exports. */
-export function templateSetDescription(): string {
-  const set = photoZTemplates();
-  const count = (kind: string) => set.templates.filter((t) => t.kind === kind).length;
-  return `Redward photo-z templates: ${count('lyman-break')} Lyman-break (UV slope -2.6 to -1.4, with and without Lya), ${count('low-z')} low-z 4000 A-break mixes with Calzetti dust, ${count('star')} cool dwarfs and carbon stars; mean IGM ${PHOTOZ_IGM_MODEL}`;
-}
 
 /** What every computed photo-z assumed, for the SED panel and exports. */
 export function photoZAssumptions(): string[] {
@@ -30,22 +19,6 @@ export function photoZAssumptions(): string[] {
     `P(z) on 0 <= z <= ${PHOTOZ_Z_MAX} (step ${PHOTOZ_STEP} in ln(1+z)) with a flat prior; intervals are equal-tail 68 % and 95 %; pLowZ = P(z < ${DEFAULT_FIT_OPTIONS.lowZ})`,
     `errors floored at ${Math.round(DEFAULT_FIT_OPTIONS.errorFloor * 100)} % of each flux in quadrature; non-detections fitted as measured fluxes; one non-negative amplitude per template`,
   ];
-}
-
-const grids = new Map<string, ModelGrid>();
-const MAX_GRIDS = 8;
-
-/** A model grid per filter set, built once (≈ 0.7 s for ten bands) and kept for the process. */
-export function modelGridFor(curves: FilterCurve[]): ModelGrid {
-  // A campaign's own curve may share a name with another campaign's: the key carries its shape.
-  const key = curves.map((c) => `${c.name}:${c.wavelength.length}:${effectiveWavelength(c).toFixed(3)}`).join('|');
-  let grid = grids.get(key);
-  if (!grid) {
-    grid = buildModelGrid(photoZTemplates(), curves, redshiftGrid(PHOTOZ_Z_MAX, PHOTOZ_STEP));
-    if (grids.size >= MAX_GRIDS) grids.delete(grids.keys().next().value!);
-    grids.set(key, grid);
-  }
-  return grid;
 }
 
 export interface TargetBands {
@@ -75,48 +48,97 @@ export function photometryOf(db: Pick<Db, 'select'>, targetIds: readonly number[
   return { filters, byTarget };
 }
 
+export type NewFitRow = typeof photoZFits.$inferInsert;
+
+/** What a photo-z fit of some targets needs, read from the database: curves, fluxes in band order. */
+export interface PhotoZFitInput {
+  filters: string[];
+  curves: FilterCurve[];
+  targetIds: number[];
+  /** Row-major, targetIds.length × filters.length; NaN where a band was not observed. */
+  flux: Float64Array;
+  err: Float64Array;
+}
+
+/** The stored photometry of these targets as fit input; null when none of them has any. */
+export function photoZFitInput(db: Pick<Db, 'select'>, campaignId: number, targetIds: readonly number[]): PhotoZFitInput | null {
+  const { filters, byTarget } = photometryOf(db, targetIds);
+  if (byTarget.size === 0) return null;
+  const ids = [...byTarget.keys()];
+  const nb = filters.length;
+  const flux = new Float64Array(ids.length * nb);
+  const err = new Float64Array(ids.length * nb);
+  ids.forEach((id, i) => {
+    flux.set(byTarget.get(id)!.flux, i * nb);
+    err.set(byTarget.get(id)!.err, i * nb);
+  });
+  return { filters, curves: filterCurves(db, campaignId, filters), targetIds: ids, flux, err };
+}
+
+/** The fits as rows to store, one per target with a usable fit (a source without bands gets none). */
+export function photoZFitRows(input: PhotoZFitInput, fits: readonly SourceFit[], now: string): NewFitRow[] {
+  const templateSet = templateSetDescription();
+  const nb = input.filters.length;
+  const out: NewFitRow[] = [];
+  fits.forEach((fit, i) => {
+    if (fit.bands === 0 || !Number.isFinite(fit.pLowZ)) return;
+    const flux = input.flux.subarray(i * nb, (i + 1) * nb);
+    const err = input.err.subarray(i * nb, (i + 1) * nb);
+    out.push({
+      targetId: input.targetIds[i]!,
+      z: fit.z,
+      z68Low: fit.z68[0],
+      z68High: fit.z68[1],
+      z95Low: fit.z95[0],
+      z95High: fit.z95[1],
+      pLowZ: fit.pLowZ,
+      fitClass: fit.class,
+      starChi2: fit.starChi2,
+      galaxyChi2: fit.galaxyChi2,
+      galaxyTemplate: fit.galaxyTemplate,
+      starTemplate: fit.starTemplate,
+      filters: input.filters.filter((_, b) => Number.isFinite(flux[b]!) && err[b]! > 0),
+      templateSet,
+      gridZMax: PHOTOZ_Z_MAX,
+      gridStep: PHOTOZ_STEP,
+      posterior: Buffer.from(fit.posterior.buffer, fit.posterior.byteOffset, fit.posterior.byteLength),
+      computedAt: now,
+    });
+  });
+  return out;
+}
+
+/**
+ * Fits the photometric redshifts of these targets from their stored photometry on this thread,
+ * without writing: one row per target with photometry and a usable fit.
+ */
+export function computePhotoZFits(db: Pick<Db, 'select'>, campaignId: number, targetIds: readonly number[], now: string): NewFitRow[] {
+  const input = photoZFitInput(db, campaignId, targetIds);
+  return input ? photoZFitRows(input, fitSources(input.curves, input.flux, input.err), now) : [];
+}
+
+/** Removes the fits of these targets (their photometry changed, or is about to be refitted). */
+export function deletePhotoZFits(tx: Pick<Db, 'delete'>, targetIds: readonly number[]): void {
+  for (let i = 0; i < targetIds.length; i += 500) tx.delete(photoZFits).where(inArray(photoZFits.targetId, targetIds.slice(i, i + 500))).run();
+}
+
+/**
+ * Replaces the fits of `targetIds` by `rows` (a target without a row is left without a fit).
+ * Idempotent: storing the same rows twice leaves one fit per target.
+ */
+export function storePhotoZFits(tx: Pick<Db, 'insert' | 'delete'>, targetIds: readonly number[], rows: readonly NewFitRow[]): number {
+  deletePhotoZFits(tx, targetIds);
+  for (let i = 0; i < rows.length; i += 100) tx.insert(photoZFits).values(rows.slice(i, i + 100)).run();
+  return rows.length;
+}
+
 /**
  * Recomputes the photometric redshifts of these targets from their stored photometry, replacing
  * their fits (a target left without photometry loses its fit). Runs inside the caller's
  * transaction. Returns how many fits were stored.
  */
 export function refitPhotoZ(tx: Tx, campaignId: number, targetIds: readonly number[], now: string): number {
-  for (let i = 0; i < targetIds.length; i += 500) tx.delete(photoZFits).where(inArray(photoZFits.targetId, targetIds.slice(i, i + 500))).run();
-  const { filters, byTarget } = photometryOf(tx, targetIds);
-  if (byTarget.size === 0) return 0;
-  const grid = modelGridFor(filterCurves(tx, campaignId, filters));
-  const scratch = fitScratch(grid);
-  const templateSet = templateSetDescription();
-  let stored = 0;
-  for (const [targetId, { flux, err }] of byTarget) {
-    const fit = fitPhotoZ(grid, flux, err, { withPosterior: true }, scratch);
-    if (fit.bands === 0 || !Number.isFinite(fit.pLowZ)) continue;
-    const posterior = Float32Array.from(fit.posterior!);
-    tx.insert(photoZFits)
-      .values({
-        targetId,
-        z: fit.z,
-        z68Low: fit.z68[0],
-        z68High: fit.z68[1],
-        z95Low: fit.z95[0],
-        z95High: fit.z95[1],
-        pLowZ: fit.pLowZ,
-        fitClass: fit.class,
-        starChi2: fit.starChi2,
-        galaxyChi2: fit.galaxyChi2,
-        galaxyTemplate: fit.galaxyTemplate,
-        starTemplate: fit.starTemplate,
-        filters: filters.filter((_, b) => Number.isFinite(flux[b]!) && err[b]! > 0),
-        templateSet,
-        gridZMax: PHOTOZ_Z_MAX,
-        gridStep: PHOTOZ_STEP,
-        posterior: Buffer.from(posterior.buffer, posterior.byteOffset, posterior.byteLength),
-        computedAt: now,
-      })
-      .run();
-    stored += 1;
-  }
-  return stored;
+  return storePhotoZFits(tx, targetIds, computePhotoZFits(tx, campaignId, targetIds, now));
 }
 
 type FitRow = typeof photoZFits.$inferSelect;

@@ -11,8 +11,11 @@ export interface ShiftCorrelator {
   readonly size: number;
   /** Prepares a real buffer of length `size` (its half spectrum, k = 0 … size/2, for the FFT path). */
   prepare(buffer: Float64Array): Float64Array;
-  /** Two correlations at once, each over its own lag window; the second may be omitted. */
-  pair(d1: Float64Array, x1: Float64Array, w1: LagWindow, d2?: Float64Array, x2?: Float64Array, w2?: LagWindow): [Float64Array, Float64Array | undefined];
+  /**
+   * Two correlations at once, each over its own lag window; the second may be omitted. Results go
+   * into `out1` / `out2` when given (at least the window's count long), else into new arrays.
+   */
+  pair(d1: Float64Array, x1: Float64Array, w1: LagWindow, d2?: Float64Array, x2?: Float64Array, w2?: LagWindow, out1?: Float64Array, out2?: Float64Array): [Float64Array, Float64Array | undefined];
 }
 
 /** Lags ℓ0 … ℓ0 + count − 1 of a correlation. */
@@ -46,7 +49,7 @@ function makeFftCorrelator(size: number): ShiftCorrelator {
       f.realTransform(out as unknown as number[], buffer as unknown as number[]);
       return out.slice(0, size + 2);
     },
-    pair(d1, x1, w1, d2, x2, w2) {
+    pair(d1, x1, w1, d2, x2, w2, out1, out2) {
       const two = d2 !== undefined && x2 !== undefined && w2 !== undefined;
       // conj(D)·X of two real signals is Hermitian: A(N−k) = conj(A(k)). Each half-spectrum product
       // is computed once and the packed P = A₁ + i·A₂ is written at k and at N − k.
@@ -73,10 +76,10 @@ function makeFftCorrelator(size: number): ShiftCorrelator {
         }
       }
       f.inverseTransform(result as unknown as number[], product as unknown as number[]);
-      const c1 = new Float64Array(w1.count);
+      const c1 = out1 ?? new Float64Array(w1.count);
       for (let l = 0; l < w1.count; l++) c1[l] = result[2 * (w1.l0 + l)]!;
       if (!two) return [c1, undefined];
-      const c2 = new Float64Array(w2.count);
+      const c2 = out2 ?? new Float64Array(w2.count);
       for (let l = 0; l < w2.count; l++) c2[l] = result[2 * (w2.l0 + l) + 1]!;
       return [c1, c2];
     },
@@ -85,8 +88,8 @@ function makeFftCorrelator(size: number): ShiftCorrelator {
 
 /** Direct O(N · count) correlator with the same interface (buffers used as they are). */
 export function directCorrelator(size: number): ShiftCorrelator {
-  const corr = (d: Float64Array, x: Float64Array, l0: number, count: number) => {
-    const out = new Float64Array(count);
+  const corr = (d: Float64Array, x: Float64Array, l0: number, count: number, into?: Float64Array) => {
+    const out = into ?? new Float64Array(count);
     let first = 0;
     while (first < size && d[first] === 0) first++;
     let last = size - 1;
@@ -132,8 +135,8 @@ export function directCorrelator(size: number): ShiftCorrelator {
     method: 'direct',
     size,
     prepare: (b) => b,
-    pair(d1, x1, w1, d2, x2, w2) {
-      return [corr(d1, x1, w1.l0, w1.count), d2 && x2 && w2 ? corr(d2, x2, w2.l0, w2.count) : undefined];
+    pair(d1, x1, w1, d2, x2, w2, out1, out2) {
+      return [corr(d1, x1, w1.l0, w1.count, out1), d2 && x2 && w2 ? corr(d2, x2, w2.l0, w2.count, out2) : undefined];
     },
   };
 }

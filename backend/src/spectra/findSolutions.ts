@@ -19,6 +19,8 @@ export interface RawSolution {
   featureShare?: number;
   /** χ² of the unfiltered continuum shape in coarse bins (continuumShapeCheck.ts; included in chi2). */
   shapeChi2?: number;
+  /** χ² of a too-smooth Lyα forest (forestStructureCheck.ts; included in chi2). */
+  forestChi2?: number;
 }
 
 /** Minima closer than this in log10(1+z) (≈ 1000 km/s; 15 pixels of the default grid) are one solution. */

@@ -22,6 +22,8 @@ export interface BreakCheckOptions {
   slope: number;
   /** Mean IGM model for T(z) (default Inoue et al. 2014). */
   igmModel?: IgmModel;
+  /** Factor on the term (the scan's misfit scale; default 1). */
+  weight?: number;
 }
 
 /** Rest windows, Å: the classic Lyα-forest band between Lyβ and Lyα, and a line-poor band red of N V (common practice). */
@@ -101,14 +103,14 @@ function tabulatedTransmission(z: number, model: IgmModel): number {
 /** The transmission per integer shift of a grid step, filled once per (step, model) (shifts up to z = 12). */
 const byShift = new Map<string, Float64Array>();
 
-function transmissionAtShift(step: number, s: number, model: IgmModel): number {
+function transmissionTable(step: number, model: IgmModel): Float64Array {
   const key = `${step}|${model}`;
   let table = byShift.get(key);
   if (!table) {
     table = Float64Array.from({ length: Math.ceil(Math.log10(13) / step) + 1 }, (_, k) => tabulatedTransmission(10 ** (k * step) - 1, model));
     byShift.set(key, table);
   }
-  return table[Math.min(Math.max(s, 0), table.length - 1)]!;
+  return table;
 }
 
 const blueOut = new Float64Array(2);
@@ -119,11 +121,11 @@ const redOut = new Float64Array(2);
  * blue window is not covered. Window edges are rest-window grid positions plus s, so no logarithm
  * is taken per shift.
  */
-function breakChi2AtShift(sums: WindowSums, s: number, ratio: number, edges: WindowEdges, model: IgmModel): number {
+function breakChi2AtShift(sums: WindowSums, s: number, ratio: number, edges: WindowEdges, transmission: Float64Array): number {
   const base = s - sums.g0;
   if (!windowMean(sums, Math.ceil(edges.blueLo + base), Math.floor(edges.blueHi + base) + 1, blueOut)) return 0;
   const hasRed = windowMean(sums, Math.ceil(edges.redLo + base), Math.floor(edges.redHi + base) + 1, redOut);
-  const t = transmissionAtShift(sums.step, s, model);
+  const t = transmission[Math.min(Math.max(s, 0), transmission.length - 1)]!;
   const blueMean = blueOut[0]!;
   // Without the red window only the blue level is known: the break still says it must be near zero.
   const redMean = hasRed ? Math.max(0, redOut[0]!) : 0;
@@ -165,13 +167,14 @@ function continuumRatio(options: BreakCheckOptions): number {
  * @example breakChi2(sums, 6.6, { slope: -2 }) // large for a spectrum with flux at 8000–9000 Å
  */
 export function breakChi2(sums: WindowSums, z: number, options: BreakCheckOptions): number {
-  return breakChi2AtShift(sums, Math.round(Math.log10(1 + z) / sums.step), continuumRatio(options), windowEdges(sums.step), options.igmModel ?? DEFAULT_IGM_MODEL);
+  return breakChi2AtShift(sums, Math.round(Math.log10(1 + z) / sums.step), continuumRatio(options), windowEdges(sums.step), transmissionTable(sums.step, options.igmModel ?? DEFAULT_IGM_MODEL));
 }
 
 /** Adds χ²_break to a template's χ²(s) curve (shifts sMin …) in place. */
 export function addBreakChi2(chi2: Float64Array, sMin: number, sums: WindowSums, options: BreakCheckOptions): void {
   const ratio = continuumRatio(options);
   const edges = windowEdges(sums.step);
-  const model = options.igmModel ?? DEFAULT_IGM_MODEL;
-  for (let i = 0; i < chi2.length; i++) chi2[i]! += breakChi2AtShift(sums, sMin + i, ratio, edges, model);
+  const transmission = transmissionTable(sums.step, options.igmModel ?? DEFAULT_IGM_MODEL);
+  const weight = options.weight ?? 1;
+  for (let i = 0; i < chi2.length; i++) chi2[i]! += weight * breakChi2AtShift(sums, sMin + i, ratio, edges, transmission);
 }

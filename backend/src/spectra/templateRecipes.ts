@@ -88,6 +88,9 @@ export function quasarBlueshiftOf(templateId: string): number | undefined {
  * that the two scanned quasars do not already hold: same continuum, lines, widths, strengths and
  * proximity zone, only the group's velocity differs.
  */
+/** The high-ionisation blueshift of the 'quasar' recipe, km/s: its line offsets are that step's. */
+const BASE_BLUESHIFT_KMS = 2500;
+
 function quasarBlueshiftRecipes(recipes: readonly TemplateRecipe[]): TemplateRecipe[] {
   const base = recipes.find((r) => r.id === 'quasar');
   if (!base) return [];
@@ -98,7 +101,8 @@ function quasarBlueshiftRecipes(recipes: readonly TemplateRecipe[]): TemplateRec
     refineOnly: true,
     components: base.components.map((c) => ({
       ...c,
-      ...(c.lineOffsets ? { lineOffsets: c.lineOffsets.map((o) => ({ ...o, velocityKms: -v, why: `The quasar's high-ionisation group at ${v} km/s blueward of systemic: a step of the fitted blueshift (refineQuasarBlueshift.ts).` })) } : {}),
+      // Each offset group scales with the step (C III] keeps its share of C IV's blueshift).
+      ...(c.lineOffsets ? { lineOffsets: c.lineOffsets.map((o) => ({ ...o, velocityKms: (o.velocityKms * v) / BASE_BLUESHIFT_KMS, why: `The quasar's high-ionisation group at ${v} km/s blueward of systemic (lines of a smaller share in proportion): a step of the fitted blueshift (refineQuasarBlueshift.ts).` })) } : {}),
     })),
   }));
 }

@@ -4,7 +4,8 @@ import { jobItems, jobs } from '../../db/schema';
 import type { ServiceContext } from '../../services/context';
 import { workerItemOf } from '../../services/worker-items';
 import type { JobQueue } from '../job-queue';
-import { allItemsFinished, claimNextJob, finishJob, renewLease, requeueExpiredJobs, type JobRow } from '../job-store';
+import { allItemsFinished, claimNextJob, finishJob, isCancelRequested, renewLease, requeueExpiredJobs, type JobRow } from '../job-store';
+import { runPhotoZItems } from '../photoz-job';
 import { finishWithoutScan, recordItemResult, type JobSettings, type ResultContext } from '../process-item';
 import { bullConnection } from './bullmq-connection';
 import { bullJobIdOf, itemIdOfBullJob, SCAN_QUEUE } from './queue-names';
@@ -118,6 +119,8 @@ export class RedisJobQueue implements JobQueue {
 
   /** Adds every pending item of the job to BullMQ, in batches, finishing the ones that need no scan. */
   private async dispatch(job: JobRow): Promise<void> {
+    // Photo-z fits run here (remote workers only scan); checkHeld ends the job.
+    if (job.kind === 'photoz') return runPhotoZItems(this.ctx, job, () => this.running && !isCancelRequested(this.ctx.db, job.id));
     const rc = this.resultContext(job);
     let after = 0;
     for (;;) {

@@ -14,9 +14,10 @@ function kc96(name: 'elliptical' | 's0' | 'bulge' | 'sa'): RealSed {
 /**
  * A quiescent galaxy: the real KC96 elliptical, S0, bulge or Sa composite (gradual 4000 Å breaks of
  * old populations) at redshift z, tilted by (λ/5500)^t with t in −0.5…0.5 (dust, calibration).
- * Returns the subclass name.
+ * Returns the subclass name and the composite's red end (rest Å): the bulge stops at 7550 Å, and
+ * the spectrum's window must stop there too (past it the composite has no flux to give).
  */
-export function quiescentGalaxy(g: FineGrid, z: number, random: Random): string {
+export function quiescentGalaxy(g: FineGrid, z: number, random: Random): { subclass: string; redEndRest: number } {
   const name = random.pick(['elliptical', 's0', 'bulge', 'sa'] as const);
   const sed = kc96(name);
   const tilt = random.uniform(-0.5, 0.5);
@@ -25,7 +26,7 @@ export function quiescentGalaxy(g: FineGrid, z: number, random: Random): string 
     const rest = g.lambda[i]! / (1 + z);
     g.flux[i] = sedAt(sed, rest, hint) * (rest / 5500) ** tilt;
   }
-  return `quiescent-kc96-${name}`;
+  return { subclass: `quiescent-kc96-${name}`, redEndRest: sed.wavelength[sed.wavelength.length - 1]! };
 }
 
 /** Rest vacuum Balmer lines with rest EWs (Å) of an A-star population (Hδ ≈ 5–9 Å in post-starbursts). */

@@ -177,7 +177,14 @@ function median(values: number[]): number {
 /** Fills the fine grid with the planned source; returns its subclass and notes. */
 function drawSource(g: FineGrid, p: Plan, random: Random): { subclass: string; notes: string } {
   switch (p.kind) {
-    case 'quiescent': return { subclass: quiescentGalaxy(g, p.z, random), notes: '' };
+    case 'quiescent': {
+      const q = quiescentGalaxy(g, p.z, random);
+      // A window past the composite's red end would show flux falling to zero there, as no galaxy
+      // does (the KC96 bulge ends at 7550 Å rest; before this, bulges at z < 0.3 ended in a fake
+      // cliff that emission-line and quasar templates fitted): the window stops 1 % short of it.
+      p.range = [p.range[0], Math.min(p.range[1], 0.99 * q.redEndRest * (1 + p.z))];
+      return { subclass: q.subclass, notes: '' };
+    }
     case 'post-starburst': return { subclass: postStarburstGalaxy(g, p.z, random), notes: '' };
     case 'emission-line': return { subclass: emissionLineGalaxy(g, p.z, random), notes: '' };
     case 'quasar': {

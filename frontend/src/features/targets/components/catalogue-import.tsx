@@ -8,6 +8,7 @@ import { Stats } from '@/components/ui/stats';
 import { formatCount } from '@/lib/format';
 import { useCheckCatalogue } from '../api/import-catalogue';
 import { MappingStep } from './mapping-step';
+import { PhotoZJobProgress } from './photo-z-job-progress';
 
 /**
  * Catalogue import in three steps: choose a file (the server reads it and proposes a
@@ -44,8 +45,10 @@ export function CatalogueImport({ campaignId, onImported }: { campaignId: number
             { term: 'Created', value: formatCount(imported.created) },
             { term: 'Updated', value: formatCount(imported.updated) },
             { term: 'Spectra linked', value: formatCount(imported.linked) },
+            ...(imported.photoZJobId === null ? [{ term: 'Photo-z computed', value: formatCount(imported.photoZFits) }] : []),
           ]}
         />
+        {imported.photoZJobId !== null ? <PhotoZJobProgress campaignId={campaignId} jobId={imported.photoZJobId} /> : null}
         <div>
           <Button variant="secondary" onClick={restart}>
             Import another catalogue
