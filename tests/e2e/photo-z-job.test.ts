@@ -1,8 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { loadShippedFilters } from '../../backend/src/cli/photoz-data';
-import { DEMO_BANDS, demoFluxes } from '../../backend/src/demo/demo-photometry';
-import type { DemoTarget } from '../../backend/src/demo/demo-scenario';
+import { demoCatalogueCsv, demoSource } from '../helpers/demo-catalogue';
 import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
 
 let server: E2eServer;
@@ -18,20 +16,13 @@ afterAll(async () => {
   await server?.cleanup();
 });
 
-const FILTERS = DEMO_BANDS.map((b) => b.filter);
-const source = (id: string, truth: DemoTarget['truth'], mag: number): DemoTarget => ({ id, ra: 214.3, dec: 8.71, mag, truth, photoZ: 1, priority: 1, instrument: 'demo-grism' });
 // Invented: a z = 6.2 dropout with Lyα, a z = 1.3 old dusty galaxy and a cool dwarf.
 const SOURCES = [
-  source('JOB-DROP-1', { class: 'lyman-break', template: 'lyman-break-lya', z: 6.2, snr: 6 }, 25.6),
-  source('JOB-LOWZ-1', { class: 'galaxy', template: 'galaxy-absorption', z: 1.3, snr: 6 }, 24.6),
-  source('JOB-STAR-1', { class: 'star', template: 'star-cool', z: 0, snr: 6 }, 24.6),
+  demoSource('JOB-DROP-1', { class: 'lyman-break', template: 'lyman-break-lya', z: 6.2, snr: 6 }, 25.6),
+  demoSource('JOB-LOWZ-1', { class: 'galaxy', template: 'galaxy-absorption', z: 1.3, snr: 6 }, 24.6),
+  demoSource('JOB-STAR-1', { class: 'star', template: 'star-cool', z: 0, snr: 6 }, 24.6),
 ];
 
-function catalogue(): string {
-  const fluxes = demoFluxes(SOURCES, loadShippedFilters(FILTERS), 2027);
-  const header = ['id', 'ra', 'dec', ...FILTERS.flatMap((f) => [`flux_${f}`, `err_${f}`])];
-  return [header.join(','), ...SOURCES.map((s, i) => [s.id, s.ra, s.dec, ...FILTERS.flatMap((_, b) => [fluxes[i]!.flux[b], fluxes[i]!.err[b]])].join(','))].join('\n') + '\n';
-}
 
 it('a large catalogue import shows its photo-z job on the Targets screen, then the computed z in the table', async () => {
   const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
@@ -40,7 +31,7 @@ it('a large catalogue import shows its photo-z job on the Targets screen, then t
   await signInThroughPage(page, server.url, 'lead@demo.test');
 
   await page.goto(`${server.url}/campaigns/2/targets`);
-  await page.getByLabel('Choose a catalogue').setInputFiles({ name: 'large.csv', mimeType: 'text/csv', buffer: Buffer.from(catalogue()) });
+  await page.getByLabel('Choose a catalogue').setInputFiles({ name: 'large.csv', mimeType: 'text/csv', buffer: Buffer.from(demoCatalogueCsv(SOURCES, 2027)) });
   await expect.poll(() => page.getByRole('group', { name: /^Band \d+$/ }).count(), { timeout: 15_000 }).toBe(10);
   await page.getByRole('button', { name: 'Import targets' }).click();
   await expect.poll(() => page.locator('dl[aria-label="Catalogue import result"]').textContent(), { timeout: 30_000 }).toMatch(/Created\s*3/);

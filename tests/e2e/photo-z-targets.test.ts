@@ -1,8 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
-import { loadShippedFilters } from '../../backend/src/cli/photoz-data';
-import { DEMO_BANDS, demoFluxes } from '../../backend/src/demo/demo-photometry';
-import type { DemoTarget } from '../../backend/src/demo/demo-scenario';
+import { demoCatalogueCsv, demoSource } from '../helpers/demo-catalogue';
 import { spectrumToCsv } from '../../backend/src/demo/spectrum-files';
 import { generateSyntheticSpectrum } from '../../backend/src/spectra/generateSyntheticSpectrum';
 import { launchBrowser, signInThroughPage, startE2eServer, type E2eServer } from './browser';
@@ -19,16 +17,9 @@ afterAll(async () => {
   await server?.cleanup();
 });
 
-const FILTERS = DEMO_BANDS.map((b) => b.filter);
-const source = (id: string, truth: DemoTarget['truth'], mag: number): DemoTarget => ({ id, ra: 214.3, dec: 8.71, mag, truth, photoZ: 1, priority: 1, instrument: 'demo-grism' });
 // Invented: a z = 6.2 dropout with Lyα, and a z = 1.3 old dusty galaxy.
-const SOURCES = [source('E2E-DROP-1', { class: 'lyman-break', template: 'lyman-break-lya', z: 6.2, snr: 6 }, 25.6), source('E2E-LOWZ-1', { class: 'galaxy', template: 'galaxy-absorption', z: 1.3, snr: 6 }, 24.6)];
+const SOURCES = [demoSource('E2E-DROP-1', { class: 'lyman-break', template: 'lyman-break-lya', z: 6.2, snr: 6 }, 25.6), demoSource('E2E-LOWZ-1', { class: 'galaxy', template: 'galaxy-absorption', z: 1.3, snr: 6 }, 24.6)];
 
-function catalogue(): string {
-  const fluxes = demoFluxes(SOURCES, loadShippedFilters(FILTERS), 2026);
-  const header = ['id', 'ra', 'dec', ...FILTERS.flatMap((f) => [`flux_${f}`, `err_${f}`])];
-  return [header.join(','), ...SOURCES.map((s, i) => [s.id, s.ra, s.dec, ...FILTERS.flatMap((_, b) => [fluxes[i]!.flux[b], fluxes[i]!.err[b]])].join(','))].join('\n') + '\n';
-}
 
 it('a lead imports a catalogue with fluxes, sees the P(z) and SED of a dropout, opens its spectrum and sees P(z) on the χ²(z) strip', async () => {
   const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
@@ -38,7 +29,7 @@ it('a lead imports a catalogue with fluxes, sees the P(z) and SED of a dropout, 
 
   // Import: the flux_/err_ columns are proposed as nJy bands of the shipped filters.
   await page.goto(`${server.url}/campaigns/2/targets`);
-  await page.getByLabel('Choose a catalogue').setInputFiles({ name: 'tidewater-photometry.csv', mimeType: 'text/csv', buffer: Buffer.from(catalogue()) });
+  await page.getByLabel('Choose a catalogue').setInputFiles({ name: 'tidewater-photometry.csv', mimeType: 'text/csv', buffer: Buffer.from(demoCatalogueCsv(SOURCES, 2026)) });
   const bands = page.getByRole('group', { name: /^Band \d+$/ });
   await expect.poll(() => bands.count(), { timeout: 15_000 }).toBe(10);
   await expect(bands.first().getByLabel('Filter').inputValue()).resolves.toBe('acs_wfc_f435w');
