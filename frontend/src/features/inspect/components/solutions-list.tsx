@@ -69,6 +69,11 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
                   One feature carries {Math.round(100 * s.featureShare)} % of the evidence: demoted
                 </span>
               ) : null}
+              {s.forestChi2 ? (
+                <span className="mt-0.5 block text-xs text-warning-700" title="Between Lyβ and Lyα the spectrum is as smooth as a continuum, where a source at this redshift shows a ragged Lyα forest: χ² added to this solution.">
+                  Lyα forest too smooth for this z: χ² + <span className="num">{Math.round(s.forestChi2).toLocaleString('en')}</span>
+                </span>
+              ) : null}
               {s.interlopers && s.interlopers.length > 0 ? <InterloperLine interlopers={s.interlopers} /> : null}
               {lines.length > 0 ? (
                 <span className="mt-0.5 block text-xs text-ink-600">
