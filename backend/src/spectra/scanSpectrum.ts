@@ -178,7 +178,8 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
   const check = options.singleFeatureCheck ?? true;
   const bins = options.shapeCheck ?? true ? shapeBins(prepared) : undefined;
   // The checks too costly for every shift, run on candidates about to be chosen and on the
-  // interloper alternatives: the single-feature cap and the unfiltered continuum shape.
+  // interloper alternatives: the single-feature cap, the unfiltered continuum shape and the
+  // forest structure of quasar and Lyman-break candidates.
   const forest = (options.forestCheck ?? !spectrum.meta.errorsEstimated) ? forestSums(prepared) : undefined;
   const lazyAt = (curve: TemplateCurve, shift: number): { single: number; share?: number; shape?: number; forest: number } => {
     const t = curve.template;
@@ -337,7 +338,8 @@ function addLymanBreakChecks(curves: TemplateCurve[], prepared: PreparedSpectrum
  * evidence they stand for, and a Lyman break that fits an old galaxy's 4000 Å break a little better
  * in the filtered data outvotes a blue side far too bright for the forest. Multiplying the checks by
  * this factor is the same as inflating the pixel errors until the best fit is acceptable (common
- * practice in template fitting), without changing the χ² the scan reports.
+ * practice in template fitting); the filtered χ² itself is left as it is, and the χ² a solution
+ * reports includes the checks as multiplied.
  */
 function misfitScale(curves: TemplateCurve[], usable: number): number {
   let best = Infinity;
