@@ -7,7 +7,7 @@ import type { ServiceContext } from '../services/context';
 import type { BlobStore } from '../storage/blob-store';
 import { claimNextJob, finishJob, isCancelRequested, pendingItems, renewLease, requeueExpiredJobs, type JobItemRow, type JobRow } from './job-store';
 import { processPhotoZItem } from './photoz-job';
-import { finishWithoutScan, recordItemResult, scanSettingsOf, type ItemContext, type JobSettings, type ResultContext } from './process-item';
+import { processItem, recordItemResult, type ItemContext, type JobSettings, type ResultContext } from './process-item';
 import type { JobQueue } from './job-queue';
 import type { ScanPool } from './scan-pool';
 import type { ScanTaskResult } from './scan-worker';
@@ -115,7 +115,7 @@ export class JobRunner implements JobQueue {
             return;
           }
           // A photo-z item writes its own fits in its own transaction; scans go through the batch.
-          await (job.kind === 'photoz' ? processPhotoZItem(this.ctx, job, item) : scanItem(itemContext, item, results));
+          await (job.kind === 'photoz' ? processPhotoZItem(this.ctx, job, item) : processItem(itemContext, item, (i, r) => results.add(i, r)));
         }
       };
       try {
@@ -142,17 +142,6 @@ function loadTargets(ctx: ServiceContext, campaignId: number): LinkableTarget[] 
     .from(targets)
     .where(and(eq(targets.campaignId, campaignId), isNotNull(targets.catalogueId)))
     .all();
-}
-
-/**
- * One item of an ingest or re-scan job on this machine's scan pool: `processItem`'s steps, with
- * the result handed to the batch instead of written at once. Items that need no scan (a
- * duplicate, a file of another type) are finished straight away as before.
- */
-async function scanItem(ic: ItemContext, item: JobItemRow, results: ResultBatch): Promise<void> {
-  if (finishWithoutScan(ic, item)) return;
-  const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), ...scanSettingsOf(ic.settings), fileName: item.fileName });
-  results.add(item, result);
 }
 
 /**

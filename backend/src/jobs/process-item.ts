@@ -35,12 +35,13 @@ export interface ItemContext extends ResultContext {
  * Carries one item of an ingest or re-scan job to its end on this machine's scan pool (the
  * embedded queue). Everything an item changes is written in one transaction together with the
  * item's own state, so a crash leaves it either untouched (pending, redone on resume) or
- * finished — never half-stored, never twice.
+ * finished — never half-stored, never twice. `record` writes the result (the job runner passes
+ * its ResultBatch, which writes several to a transaction; the default writes this one alone).
  */
-export async function processItem(ic: ItemContext, item: JobItemRow): Promise<void> {
+export async function processItem(ic: ItemContext, item: JobItemRow, record: (item: JobItemRow, result: ScanTaskResult) => void = (i, r) => recordItemResult(ic, i, r)): Promise<void> {
   if (finishWithoutScan(ic, item)) return;
   const result = await ic.pool.run({ filePath: ic.store.pathOf(item.sha256!), ...scanSettingsOf(ic.settings), fileName: item.fileName });
-  recordItemResult(ic, item, result);
+  record(item, result);
 }
 
 /** The engine settings an item is scanned with (the job's, fixed when it was queued). */

@@ -1,4 +1,4 @@
-import { blueTransmission } from './lymanBreakCheck';
+import { tabulatedTransmission } from './lymanBreakCheck';
 import { DEFAULT_IGM_MODEL, type IgmModel } from './igmTransmission';
 import type { PreparedSpectrum } from './prepareSpectrum';
 
@@ -93,7 +93,7 @@ function windowStat(sums: ForestSums, z: number, rest: readonly [number, number]
 
 /** The forest's measured excess variance at z, its floor and error (undefined where it cannot be judged). */
 export function forestStructure(sums: ForestSums, z: number, model: IgmModel = DEFAULT_IGM_MODEL): { v: number; floor: number; sigma: number } | undefined {
-  const t = blueTransmission(z, model);
+  const t = tabulatedTransmission(z, model);
   if (t < MIN_TRANSMISSION) return undefined;
   const blue = windowStat(sums, z, BLUE_REST);
   const red = windowStat(sums, z, RED_REST);

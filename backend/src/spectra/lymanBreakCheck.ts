@@ -88,7 +88,7 @@ export function blueTransmission(z: number, model: IgmModel = DEFAULT_IGM_MODEL)
 const T_STEP = 0.01;
 const tTables = new Map<IgmModel, Float64Array>();
 
-function tabulatedTransmission(z: number, model: IgmModel): number {
+export function tabulatedTransmission(z: number, model: IgmModel): number {
   let table = tTables.get(model);
   if (!table) {
     table = Float64Array.from({ length: Math.round(12 / T_STEP) + 2 }, (_, k) => blueTransmission(k * T_STEP, model));
