@@ -71,4 +71,18 @@ describe('independent sky', () => {
     expect(media.size).toBe(2);
     expect(layouts.size).toBeGreaterThanOrEqual(3);
   }, 60_000);
+
+  it.skipIf(!present)('every quasar window holds Lyα and ≥ 200 Å of continuum redward of it; fluxes stay finite and sane', () => {
+    // Seed 31 #378 (z = 6.98, 4112–8733 Å) was all Gunn–Peterson trough, and its normalisation to a
+    // continuum of 5 blew the last light up to 2.7e29 (engine χ² ≈ 1e24).
+    for (const k of [378, 84, 186]) {
+      const { truth, bytes } = generateSkySpectrum(31, k);
+      expect(truth.kind, `#${k}`).toBe('quasar');
+      expect(truth.lambdaMax, `#${k}`).toBeGreaterThan(1215.67 * (1 + truth.z) + 200);
+      const s = readSpectrum(bytes);
+      let peak = 0;
+      for (const f of s.flux) peak = Math.max(peak, Math.abs(f));
+      expect(peak, `#${k}`).toBeLessThan(1e4);
+    }
+  }, 60_000);
 });

@@ -90,7 +90,11 @@ function plan(random: Random): Plan {
     case 'emission-line': return { ...base, z: random.uniform(0.01, 1.6), range: opticalRange(random) };
     case 'quasar': {
       const z = random.chance(0.7) ? random.uniform(0.15, 4.5) : random.uniform(4.5, 7.0);
-      const range: [number, number] = z > 5.7 && random.chance(0.5) ? (random.chance(0.5) ? [9950, 22_000] : [5500, 10_200]) : opticalRange(random);
+      let range: [number, number] = z > 5.7 && random.chance(0.5) ? (random.chance(0.5) ? [9950, 22_000] : [5500, 10_200]) : opticalRange(random);
+      // A window that ends short of Lyα holds only the Gunn–Peterson trough: no spectrum anyone
+      // would take of a quasar, and the mock's normalisation blew its last light up to ≈ 1e29.
+      // Such a window moves to the red arm that holds Lyα (no random draw: the rest stays as drawn).
+      if (REST.lyAlpha * (1 + z) > range[1] - 300) range = REST.lyAlpha * (1 + z) < 9900 ? [5500, 10_200] : [9950, 22_000];
       return { ...base, z, range };
     }
     case 'lyman-break': {
