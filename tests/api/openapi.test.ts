@@ -71,6 +71,10 @@ describe('the OpenAPI document', () => {
     expect(Object.keys((campaign.properties as { campaign: { properties: object } }).campaign.properties)).toContain('gridStep');
     const upload = doc.paths['/api/campaigns/{id}/uploads']!.post!.responses['202']!.content!['application/json'].schema;
     expect(upload.required).toEqual(['jobId', 'files', 'entries', 'bytes']);
+    // A catalogue import answers 200 when fitted in the request, 202 when the fit became a job.
+    const targetImport = doc.paths['/api/campaigns/{id}/targets']!.post!.responses;
+    expect(Object.keys(targetImport).sort()).toEqual(['200', '202', 'default']);
+    expect(targetImport['202']!.content!['application/json'].schema.required).toContain('photoZJobId');
     const queue = doc.paths['/api/me/queue']!.get!.responses['200']!.content!['application/json'].schema;
     expect(queue.type).toBe('array');
   });

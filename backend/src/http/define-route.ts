@@ -27,6 +27,11 @@ export interface RouteSpec<B, Q> {
    * test app), checked before it is sent. Routes that stream files, binary or events leave it out.
    */
   response?: z.ZodType;
+  /**
+   * Other success statuses the handler sets itself (`res.status(…)`) with the same `response`
+   * schema, documented beside `status`: e.g. 202 when part of the work continues as a job.
+   */
+  alsoAnswers?: ReadonlyArray<{ status: number; description: string }>;
   handle: (input: RouteInput<B, Q>) => unknown;
 }
 
@@ -38,6 +43,7 @@ export interface RouteDoc {
   query?: z.ZodType;
   response?: z.ZodType;
   status: number;
+  alsoAnswers?: ReadonlyArray<{ status: number; description: string }>;
 }
 
 /** Every route defined for an application, for the OpenAPI document; one list per context. */
@@ -71,6 +77,7 @@ export function defineRoute<B = undefined, Q = undefined>(ctx: ServiceContext, r
     ...(spec.query ? { query: spec.query } : {}),
     ...(spec.response ? { response: spec.response } : {}),
     status: spec.status ?? 200,
+    ...(spec.alsoAnswers ? { alsoAnswers: spec.alsoAnswers } : {}),
   });
   const run = async (req: Request, res: Response, next: NextFunction) => {
     try {

@@ -49,6 +49,9 @@ export function buildOpenApi(docs: readonly RouteDoc[], version: string) {
         [String(d.status)]: d.response
           ? { description: 'Success', content: { 'application/json': { schema: jsonSchema(d.response) } } }
           : { description: 'Success' },
+        ...Object.fromEntries(
+          (d.alsoAnswers ?? []).map((a) => [String(a.status), { description: a.description, ...(d.response ? { content: { 'application/json': { schema: jsonSchema(d.response) } } } : {}) }]),
+        ),
         default: { description: 'An error, as one sentence and a stable code', content: { 'application/json': { schema: jsonSchema(errorResponseSchema) } } },
       },
       ...(d.access.kind === 'public' ? { security: [] } : {}),

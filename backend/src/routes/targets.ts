@@ -25,6 +25,7 @@ export function targetRoutes(ctx: ServiceContext): Router {
     access: access.campaign('lead'),
     query: importQuerySchema,
     response: catalogueImportResultSchema,
+    alsoAnswers: [{ status: 202, description: 'Targets and photometry stored; with more than PHOTOZ_JOB_THRESHOLD rows with photometry the photo-z fit runs as a job, whose id is photoZJobId' }],
     handle: async ({ req, res, user, campaign, query }) => {
       const files = await receiveFiles(req, res, ctx.store, { ...ctx.config.uploads, maxFiles: 1, maxFileBytes: MAX_CATALOGUE_BYTES });
       try {
