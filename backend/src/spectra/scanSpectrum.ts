@@ -349,11 +349,12 @@ function misfitScale(curves: TemplateCurve[], usable: number): number {
 
 /**
  * Beyond this the checks' own 10–20 % error allowances are no better than the scan's fit: a bright
- * real M9 dwarf composite (χ²/dof ≈ 300 against our analytic cool-star template) would otherwise be
- * read from a 1 % difference in continuum shape. Chosen on the tuning sky (seed 31), where KC96
- * bulges at S/N 10–15 sit at 15–20.
+ * real M9 dwarf (χ²/dof ≈ 300 against our analytic cool-star template; independent sky seed 31
+ * #480) is read as a galaxy at z = 1.2 from a small difference in continuum shape once the scale
+ * passes ≈ 85. KC96 bulges at S/N 10–15 sit at 15–20; one at S/N 20 (χ²/dof ≈ 80, seed 5151 #72)
+ * needs ≥ 42 not to be read as a Lyman break at the mirror z. 30 until engine 0.6.8.
  */
-const MAX_MISFIT_SCALE = 30;
+const MAX_MISFIT_SCALE = 60;
 
 function continuumSlope(templateId: string): number {
   const recipe = ENGINE_RECIPES.find((r) => r.id === templateId);
