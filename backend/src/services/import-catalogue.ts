@@ -30,6 +30,45 @@ const insertBand = preparedQuery((db) =>
     .prepare(),
 );
 
+/**
+ * One target upserted by campaign and catalogue id, prepared once (as insertBand); placeholders
+ * bound in column places go through the column's own mapping (`extra` as JSON).
+ */
+const upsertTarget = preparedQuery((db) =>
+  db
+    .insert(targets)
+    .values({
+      campaignId: sql.placeholder('campaignId'),
+      catalogueId: sql.placeholder('catalogueId'),
+      ra: sql.placeholder('ra'),
+      dec: sql.placeholder('dec'),
+      magnitude: sql.placeholder('magnitude'),
+      photoZ: sql.placeholder('photoZ'),
+      photoZLow: sql.placeholder('photoZLow'),
+      photoZHigh: sql.placeholder('photoZHigh'),
+      imageFamily: sql.placeholder('imageFamily'),
+      priority: sql.placeholder('priority'),
+      extra: sql.placeholder('extra'),
+      updatedAt: sql.placeholder('updatedAt'),
+    })
+    .onConflictDoUpdate({
+      target: [targets.campaignId, targets.catalogueId],
+      set: {
+        ra: sql`excluded.ra`,
+        dec: sql`excluded.dec`,
+        magnitude: sql`excluded.magnitude`,
+        photoZ: sql`excluded.photo_z`,
+        photoZLow: sql`excluded.photo_z_low`,
+        photoZHigh: sql`excluded.photo_z_high`,
+        imageFamily: sql`excluded.image_family`,
+        priority: sql`excluded.priority`,
+        extra: sql`excluded.extra`,
+        updatedAt: sql`excluded.updated_at`,
+      },
+    })
+    .prepare(),
+);
+
 /** The campaign's remembered mapping, when every column it names is in this catalogue. */
 function rememberedMapping(ctx: ServiceContext, campaignId: number, columns: string[]): ColumnMapping | null {
   const row = ctx.db.select({ mapping: catalogueMappings.mapping }).from(catalogueMappings).where(eq(catalogueMappings.campaignId, campaignId)).get();
@@ -97,28 +136,8 @@ export function importCatalogue(
       tx.select({ id: targets.catalogueId }).from(targets).where(eq(targets.campaignId, campaignId)).all().map((r) => r.id),
     );
     const now = ctx.now().toISOString();
-    // Upserted 200 rows a statement (≈ 13 values a row, well under SQLite's 32,766 variables).
-    const values = rows.map(({ photometry: _, ...row }) => ({ ...row, campaignId, updatedAt: now }));
-    for (let i = 0; i < values.length; i += 200) {
-      tx.insert(targets)
-        .values(values.slice(i, i + 200))
-        .onConflictDoUpdate({
-          target: [targets.campaignId, targets.catalogueId],
-          set: {
-            ra: sql`excluded.ra`,
-            dec: sql`excluded.dec`,
-            magnitude: sql`excluded.magnitude`,
-            photoZ: sql`excluded.photo_z`,
-            photoZLow: sql`excluded.photo_z_low`,
-            photoZHigh: sql`excluded.photo_z_high`,
-            imageFamily: sql`excluded.image_family`,
-            priority: sql`excluded.priority`,
-            extra: sql`excluded.extra`,
-            updatedAt: now,
-          },
-        })
-        .run();
-    }
+    const upsert = upsertTarget(ctx.db);
+    for (const { photometry: _, ...row } of rows) upsert.run({ ...row, campaignId, updatedAt: now });
     const created = rows.filter((r) => !existing.has(r.catalogueId)).length;
 
     const all = tx.select({ id: targets.id, catalogueId: targets.catalogueId, ra: targets.ra, dec: targets.dec }).from(targets).where(eq(targets.campaignId, campaignId)).all();
