@@ -3,6 +3,7 @@ import { shapeBins, shapeChi2 } from './continuumShapeCheck';
 import { forestChi2, forestSums } from './forestStructureCheck';
 import { DEFAULT_IGM_MODEL, meanIgmTransmission, type IgmModel } from './igmTransmission';
 import { interloperAlternatives, type Interloper } from './interloperCheck';
+import { informationWeightedChi2 } from './lineMisfit';
 import { findMinima, pickDistinct, type RawSolution } from './findSolutions';
 import { C_KMS, shiftToZ } from './logGrid';
 import { addBreakChi2, windowSums } from './lymanBreakCheck';
@@ -207,6 +208,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     return r.single + (r.shape ?? 0) + r.forest;
   };
   const raw = pickDistinct(candidates, set.step, maxSolutions, lazyChecks);
+  const lineMisfit = (s: RawSolution): number => informationWeightedChi2(data, set, curveOf(s).template, s.shift, s.amplitudes);
   const solutions: Solution[] = raw.map((s, k) => {
     // The fit's own χ² (without the single-feature penalty, which only re-ranks) per degree of freedom.
     const dof = Math.max(1, usable - s.amplitudes.filter((a) => a > 0).length);
@@ -218,7 +220,7 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
     const interlopers = s.class === 'lyman-break' ? interloperAlternatives(s.z, s.chi2, curves, set.step, lazyTotal) : undefined;
     return {
       z: s.z,
-      zErr: withSubPixelFloor(s.zErr * Math.sqrt(Math.max(1, reducedChi2)), s.z, set.step),
+      zErr: withSubPixelFloor(s.zErr * Math.sqrt(Math.max(1, reducedChi2, lineMisfit(s))), s.z, set.step),
       ...(systematicError(s.z, s.class) !== undefined ? { zSysErr: systematicError(s.z, s.class)! } : {}),
       reducedChi2,
       class: s.class,
