@@ -70,6 +70,10 @@ it('a reader drags the comb, snaps to the top solution and saves a graded readin
   // The top solution shows its fit's χ² per degree of freedom, as the scan stored it.
   const top = page.getByRole('button', { name: /^Solution\s*1\s*:/ });
   await expect.poll(() => top.textContent()).toContain(`χ²/dof ${detail.scan.solutions[0].reducedChi2.toFixed(2)}`);
+  // Every solution of a class with line offsets (Lyman-break galaxies, quasars) shows its systematic error beside zErr; the others show none.
+  const solutions: Array<{ zSysErr?: number }> = detail.scan.solutions;
+  const withSys = solutions.filter((s) => s.zSysErr !== undefined).length;
+  await expect.poll(async () => (await page.getByRole('button', { name: /^Solution\s*\d+\s*:/ }).allTextContents()).filter((t) => / sys/.test(t)).length).toBe(withSys);
   await top.click();
   await expect.poll(() => trialZ.inputValue()).toBe(topZ.toFixed(5));
 

@@ -47,6 +47,11 @@ export function SolutionsList({ solutions, store, target, onSnap }: Props) {
                 </span>
                 <span className="num font-medium text-ink-900">
                   z = {formatRedshift(s.z)} <span className="text-ink-500">± {formatRedshiftError(s.zErr)}</span>
+                  {s.zSysErr !== undefined ? (
+                    <span className="text-ink-500" title="Systematic error: the lines that set this class's redshift sit off the systemic redshift by amounts that vary from object to object (Lyα and interstellar lines of Lyman-break galaxies, blueshifted high-ionisation lines of quasars)">
+                      {' '}± {formatRedshiftError(s.zSysErr)} sys
+                    </span>
+                  ) : null}
                 </span>
                 <Badge tone={s.class === 'quasar' ? 'blue' : s.class === 'galaxy' ? 'ember' : s.class === 'lyman-break' ? 'success' : 'ink'}>{cls}</Badge>
                 <span className="text-xs text-ink-600">{s.template}</span>
