@@ -3,10 +3,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { generateSyntheticSpectrum } from '../spectra/generateSyntheticSpectrum';
 import { readSpectrum } from '../spectra/readSpectrum';
+import { prepareSpectrum } from '../spectra/prepareSpectrum';
 import { scanSpectrum, type Solution } from '../spectra/scanSpectrum';
 import type { SpectrumClass, TemplateClass } from '../spectra/types';
 import { countConfusion, emptyConfusion, formatConfusion, type ConfusionMatrix } from '../validation/confusionMatrix';
 import { writeIndependentSky, type SkyTruth } from '../validation/independentSky/generateIndependentSky';
+import { bestLineSnr, LINE_DETECTION_SIGMA } from '../validation/lineVisibility';
 import { formatHalf, readManifest, scoreRealSpectra, type HalfScore } from '../validation/realSpectraSplit';
 
 // `npm run accuracy -- [--quick] [--json] [--only real,generator,sky] [--per-case N] [--sky N] [--seed S] [--keep DIR] [--misses]`
@@ -133,7 +135,8 @@ if (only.has('generator')) {
 if (only.has('sky')) {
   const t = Date.now();
   const dir = keep ?? mkdtempSync(join(tmpdir(), 'redward-sky-'));
-  interface Outcome { truth: SkyTruth; found: SpectrumClass; top?: Solution; right: boolean; right3: boolean; catastrophic: boolean; readError?: string }
+  /** lineSnr: emission-line galaxies only, the best strong line's S/N at the true z (lineVisibility.ts). */
+  interface Outcome { truth: SkyTruth; found: SpectrumClass; top?: Solution; right: boolean; right3: boolean; catastrophic: boolean; readError?: string; lineSnr?: number }
   const outcomes: Outcome[] = [];
   let generateMs = 0;
   let last = Date.now();
@@ -142,10 +145,12 @@ if (only.has('sky')) {
     const truth = s.truth;
     let outcome: Outcome;
     try {
-      const r = scanSpectrum(readSpectrum(new Uint8Array(readFileSync(path))));
+      const spectrum = readSpectrum(new Uint8Array(readFileSync(path)));
+      const r = scanSpectrum(spectrum);
       const dz = (x: Solution) => Math.abs(x.z - truth.z) / (1 + truth.z);
       const top = r.solutions[0];
       outcome = { truth, found: r.class, top, right: !!top && dz(top) <= RIGHT, right3: r.solutions.slice(0, 3).some((x) => dz(x) <= RIGHT), catastrophic: !top || dz(top) > CATASTROPHIC };
+      if (truth.kind === 'emission-line') outcome.lineSnr = bestLineSnr(prepareSpectrum(spectrum), truth.z);
     } catch (e) {
       outcome = { truth, found: 'unknown', right: false, right3: false, catastrophic: true, readError: (e as Error).message };
     }
@@ -179,6 +184,13 @@ if (only.has('sky')) {
   print('\nby kind (all S/N)');
   const kinds = [...new Set(outcomes.map((o) => o.truth.kind))].sort();
   for (const k of kinds) summarise(k, 'all', outcomes.filter((o) => o.truth.kind === k));
+  // Emission-line galaxies whose every strong line is below 5σ at the true z show nothing to claim.
+  const lineless = outcomes.filter((o) => o.lineSnr !== undefined && o.lineSnr < LINE_DETECTION_SIGMA);
+  const withFeatures = outcomes.filter((o) => !lineless.includes(o));
+  print(
+    `\nemission-line galaxies with no strong line ≥ ${LINE_DETECTION_SIGMA}σ at the true z: ${lineless.length} of ${outcomes.filter((o) => o.lineSnr !== undefined).length} (right z: ${lineless.filter((o) => o.right).length}; "unknown": ${lineless.filter((o) => o.found === 'unknown').length}); ` +
+      `top≤${RIGHT} over the other ${withFeatures.length} spectra: ${pct(withFeatures.filter((o) => o.right).length, withFeatures.length)}`,
+  );
   const confusion: ConfusionMatrix = emptyConfusion();
   for (const o of outcomes) countConfusion(confusion, o.truth.class, o.found);
   print('');
@@ -195,7 +207,7 @@ if (only.has('sky')) {
     print('\nmisses (file kind/subclass z S/N [notes] → top solution; rank of the right one)');
     for (const o of outcomes.filter((x) => !x.right)) {
       const t = o.truth;
-      print(`  ${t.file} ${t.subclass} z ${t.z.toFixed(4)} S/N ${t.snr.toFixed(1)} ${t.lambdaMin.toFixed(0)}–${t.lambdaMax.toFixed(0)} Å [${t.notes}] → ${o.found} ${o.top ? `${o.top.template} z ${o.top.z.toFixed(4)} Δv ${((299_792.458 * (o.top.z - t.z)) / (1 + t.z)).toFixed(0)} km/s` : o.readError ?? 'none'}`);
+      print(`  ${t.file} ${t.subclass} z ${t.z.toFixed(4)} S/N ${t.snr.toFixed(1)}${o.lineSnr !== undefined ? ` (best line ${o.lineSnr.toFixed(1)}σ)` : ''} ${t.lambdaMin.toFixed(0)}–${t.lambdaMax.toFixed(0)} Å [${t.notes}] → ${o.found} ${o.top ? `${o.top.template} z ${o.top.z.toFixed(4)} Δv ${((299_792.458 * (o.top.z - t.z)) / (1 + t.z)).toFixed(0)} km/s` : o.readError ?? 'none'}`);
     }
   }
   const readErrors = outcomes.filter((o) => o.readError);
@@ -208,7 +220,8 @@ if (only.has('sky')) {
     count: skyCount, seed, table, confusion,
     snr10: { lymanBreakAsGalaxy: lbgAsGalaxy.length, lymanBreak: nLbg, breakGalaxyAsLymanBreak: breakAsLbg.length, breakGalaxies: nBreak },
     readErrors: readErrors.map((o) => ({ file: o.truth.file, message: o.readError })),
-    files: outcomes.map((o) => ({ ...o.truth, found: o.found, foundZ: o.top?.z ?? null, zErr: o.top?.zErr ?? null, template: o.top?.template ?? null, right: o.right })),
+    withoutLineless: { lineless: lineless.length, spectra: withFeatures.length, top1: withFeatures.filter((o) => o.right).length },
+    files: outcomes.map((o) => ({ ...o.truth, found: o.found, foundZ: o.top?.z ?? null, zErr: o.top?.zErr ?? null, template: o.top?.template ?? null, right: o.right, ...(o.lineSnr !== undefined ? { lineSnr: o.lineSnr } : {}) })),
     seconds: Number(seconds(t)), generateSeconds: generateMs / 1000,
   };
 }
