@@ -268,6 +268,9 @@ export function scanSpectrum(spectrum: Spectrum, options: ScanOptions = {}): Sca
  * sidelobes of the continuum filter (a line just past the red end leaves a broad dip inside it):
  * that is no evidence, so those shifts get the zero model's χ².
  */
+/** Lyα, Å (vacuum; lines.json). */
+const LY_ALPHA_A = 1215.67;
+
 function dropShiftsWithoutFeatures(c: TemplateCurve, prepared: PreparedSpectrum, chi2Null: number): void {
   const n = c.chi2.length;
   const covered = new Int32Array(n + 1);
@@ -283,6 +286,15 @@ function dropShiftsWithoutFeatures(c: TemplateCurve, prepared: PreparedSpectrum,
   for (let i = 0; i < n; i++) {
     running += covered[i]!;
     if (running === 0) c.chi2[i] = chi2Null;
+  }
+  // A Lyman-break solution is a claim about the break: where Lyα lies outside the data, what is
+  // left is a UV continuum with absorption lines, which matches a quasar's troughs between its
+  // broad lines or intervening absorbers (the near-infrared arm of J1212+0505, z = 6.44, read as
+  // a Lyman-break source at 6.07 once Si IV and C IV joined the template) as well as a galaxy.
+  if (c.template.class === 'lyman-break') {
+    const a = Math.ceil(Math.log10(wavelengthMin / LY_ALPHA_A) / step) - c.sMin;
+    const b = Math.floor(Math.log10(wavelengthMax / LY_ALPHA_A) / step) - c.sMin;
+    for (let i = 0; i < n; i++) if (i < a || i > b) c.chi2[i] = chi2Null;
   }
 }
 

@@ -1,2 +1,2 @@
 /** Stable identifier of the engine's behaviour; stored with every scan so results can be traced. */
-export const ENGINE_VERSION = 'redward-engine/0.6.9';
+export const ENGINE_VERSION = 'redward-engine/0.6.10';
