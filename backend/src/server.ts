@@ -13,13 +13,14 @@ import { createSmtpMailer } from './mail/mailer';
 import type { ServiceContext } from './services/context';
 import { loadSessionSecret } from './session-secret';
 import { BlobStore } from './storage/blob-store';
+import { createSpectrumDataThread } from './storage/data-thread';
 
 export interface Redward {
   app: Express;
   ctx: ServiceContext;
   mailCatcher: MailCatcher | null;
   seeded: boolean;
-  /** Stops the mail catcher and closes the mailer and database. */
+  /** Stops the job runner, the scan pool, the spectrum-data thread and the mail catcher, and closes the mailer and database. */
   close(): Promise<void>;
 }
 
@@ -36,7 +37,8 @@ export async function createRedward(config: Config, now: () => Date = () => new 
   const mailer = createSmtpMailer(smtpUrl, config.mailFrom);
   const store = new BlobStore(config.uploadsDir);
   const pool = createScanPool(config.jobs.scanThreads, { timeLimitMs: config.jobs.scanTimeLimitMs });
-  const ctx: ServiceContext = { config, db, mailer, logger, now, store, scanPool: pool, wakeJobRunner: () => {} };
+  const spectrumData = createSpectrumDataThread();
+  const ctx: ServiceContext = { config, db, mailer, logger, now, store, scanPool: pool, spectrumData, wakeJobRunner: () => {} };
   const seeded = config.demo ? await seedDemoIfEmpty(ctx) : false;
   let stopJobs = async () => {
     await pool.destroy();
@@ -58,6 +60,7 @@ export async function createRedward(config: Config, now: () => Date = () => new 
     seeded,
     async close() {
       await stopJobs();
+      await spectrumData.destroy();
       await mailCatcher?.close();
       mailer.close();
       db.$client.close();
@@ -73,6 +76,8 @@ export interface RunningServer extends Redward {
 /** Boots Redward and listens on PORT. Used by `npm start`, `npm run dev` and the browser tests. */
 export async function startServer(config: Config, now: () => Date = () => new Date()): Promise<RunningServer> {
   const redward = await createRedward(config, now);
+  // The first reader's /data answer should not wait for the thread to load the readers under tsx.
+  await redward.ctx.spectrumData.warm();
   const server: Server = await new Promise((resolve, reject) => {
     const s = redward.app.listen(config.port, config.host, () => resolve(s));
     s.once('error', (err: NodeJS.ErrnoException) =>

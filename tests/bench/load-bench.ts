@@ -7,6 +7,7 @@ import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
 import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
+import type { ProbeReport } from './server-probe';
 
 /**
  * `npm run bench:load -- [--readers 50] [--rate 2] [--seconds 20] [--ingest 2000] [--arrivals spread|aligned] [--upload during|before] [--steady-after 5] [--profile DIR] [--json]`
@@ -20,7 +21,13 @@ import { syntheticSpectrumFiles, zip } from '../helpers/spectrum-archives';
  *
  * Each reader is one connection sending `--rate` requests a second (default 2: a reader opening a
  * spectrum every few seconds fetches its detail, arrays, curves and model, and the queue), so 50
- * readers offer ≈ 100 requests a second. `--rate 0` removes the limit: every connection sends its
+ * readers offer ≈ 100 requests a second.
+ *
+ * The server process also loads `server-probe.ts` (over an IPC channel; no route): it reports the
+ * web thread's event-loop delay and each request's in-server time, so that time spent queued on
+ * the client side is told from work in the server. A table of the first `--first-seconds` (8)
+ * seconds shows per second and route the client's p95 and the in-server p95, with the event
+ * loop's largest delay in that second: the cold start, where the whole-window tail comes from. `--rate 0` removes the limit: every connection sends its
  * next request as soon as the last is answered, a stress test whose latency is then simply
  * connections ÷ throughput. Targets (issue 13): p95 ≤ 50 ms
  * for detail and queue, ≤ 150 ms for data and curves, 0 errors.
@@ -35,6 +42,8 @@ const { values } = parseArgs({
     upload: { type: 'string', default: 'during' },
     /** Also print the figures without the first N seconds (the server's caches start cold). */
     'steady-after': { type: 'string', default: '5' },
+    /** Seconds shown one by one at the start (per-second p95 per route, event-loop delay). */
+    'first-seconds': { type: 'string', default: '8' },
     /** Write CPU profiles of the server's threads (node --cpu-prof) into this folder. */
     profile: { type: 'string' },
     json: { type: 'boolean', default: false },
@@ -47,6 +56,7 @@ const ingestCount = Number(values.ingest);
 const arrivals = values.arrivals;
 const uploadWhen = values.upload;
 const steadyAfterMs = Number(values['steady-after']) * 1000;
+const firstSeconds = Number(values['first-seconds']);
 if (arrivals !== 'spread' && arrivals !== 'aligned') throw new Error('--arrivals is spread or aligned');
 if (uploadWhen !== 'during' && uploadWhen !== 'before') throw new Error('--upload is during or before');
 
@@ -60,11 +70,17 @@ const root = fileURLToPath(new URL('../..', import.meta.url));
 const profileArgs = values.profile
   ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(values.profile)}`, '--import', "data:text/javascript,process.once('SIGTERM',()=>process.exit(0))"]
   : [];
-const server = spawn(process.execPath, [...profileArgs, '--import', 'tsx', path.join(root, 'backend/src/cli/api-server.ts')], {
+const probe = path.join(root, 'tests/bench/server-probe.ts');
+const server = spawn(process.execPath, [...profileArgs, '--import', 'tsx', '--import', probe, path.join(root, 'backend/src/cli/api-server.ts')], {
   cwd: root,
   env: { ...process.env, DATA_DIR: dataDir, API_PORT: String(port), LOG_LEVEL: 'silent', MAIL_CATCHER_PORT: '0', UPLOAD_MAX_TOTAL_MB: '4096', UPLOAD_MAX_FILE_MB: '4096' },
-  stdio: ['ignore', 'ignore', 'inherit'],
+  stdio: ['ignore', 'ignore', 'inherit', 'ipc'],
 });
+const probeReport = () =>
+  new Promise<ProbeReport>((resolve) => {
+    server.once('message', (m) => resolve(m as ProbeReport));
+    server.send({ probe: 'report' });
+  });
 await waitForHealth();
 
 async function signIn(email: string): Promise<string> {
@@ -81,6 +97,9 @@ async function getJson<T>(url: string, cookie: string): Promise<T> {
 
 interface RouteFigures {
   route: string;
+  /** In-server time (server-probe.ts: from the request reaching the app to its last byte), ms. */
+  inServerP50: number;
+  inServerP95: number;
   /** p95 of the requests answered after the first --steady-after seconds. */
   steadyP95: number;
   requests: number;
@@ -157,6 +176,9 @@ try {
   // instance started at its own phase, i / readers of a second: the same offered rate, spread out.
   const perRoute = Math.max(1, Math.floor(readers / routes.length));
   const loadStarted = performance.now();
+  server.send({ probe: 'start' });
+  /** Client latencies by route and by the whole second (since the start) in which each request was sent. */
+  const firstSecondsByRoute = routes.map(() => Array.from({ length: firstSeconds }, () => [] as number[]));
   const runs = routes.map((route, r) => {
     const latencies: number[] = [];
     const steady: number[] = [];
@@ -177,6 +199,8 @@ try {
           );
           instance.on('response', (_client, _status, _bytes, responseTime) => {
             latencies.push(responseTime);
+            const sentInSecond = Math.floor((performance.now() - responseTime - loadStarted) / 1000);
+            if (sentInSecond >= 0 && sentInSecond < firstSeconds) firstSecondsByRoute[r]![sentInSecond]!.push(responseTime);
             if (performance.now() - loadStarted >= steadyAfterMs) steady.push(responseTime);
           });
         }, delayMs);
@@ -190,6 +214,8 @@ try {
       steady.sort((a, b) => a - b);
       return {
         route: route.name,
+        inServerP50: Number.NaN,
+        inServerP95: Number.NaN,
         steadyP95: round(percentile(steady, 0.95)),
         requests: latencies.length,
         errors: results.reduce((sum, x) => sum + x.errors, 0),
@@ -207,22 +233,53 @@ try {
   const serverCpu = serverCpuMs() - cpuBefore;
   const mainCpu = serverCpuMs('main') - mainBefore;
   const requestsServed = figures.reduce((sum, f) => sum + f.requests, 0);
+  const report = await probeReport();
+  const inServer = routes.map(() => [] as number[]);
+  const inServerFirst = routes.map(() => Array.from({ length: firstSeconds }, () => [] as number[]));
+  for (const req of report.requests) {
+    const r = routeOfPath(req.path);
+    if (r < 0) continue;
+    inServer[r]!.push(req.ms);
+    const second = Math.floor(req.atMs / 1000);
+    if (second < firstSeconds) inServerFirst[r]![second]!.push(req.ms);
+  }
+  figures.forEach((f, r) => {
+    const sorted = inServer[r]!.sort((a, b) => a - b);
+    f.inServerP50 = round(percentile(sorted, 0.5));
+    f.inServerP95 = round(percentile(sorted, 0.95));
+  });
+  const p95Of = (xs: number[]) => round(percentile([...xs].sort((a, b) => a - b), 0.95));
+  const firstSecondsTable = Array.from({ length: firstSeconds }, (_, second) => ({
+    second,
+    routes: Object.fromEntries(routes.map((route, r) => [route.name, { p95: p95Of(firstSecondsByRoute[r]![second]!), inServerP95: p95Of(inServerFirst[r]![second]!), requests: firstSecondsByRoute[r]![second]!.length }])),
+    loopDelayMaxMs: report.loopPerSecond[second]?.max ?? Number.NaN,
+  }));
   const ingestResult = ingest ? await ingest : null;
 
   if (!values.json) {
     console.log(
       `${readers} readers at ${rate > 0 ? `${rate} requests/s each, arrivals ${arrivals}` : 'no rate limit'} for ${seconds} s on ${availableParallelism()} cores, ${ingestCount}-spectrum upload ${uploadWhen === 'during' ? 'sent as they start' : 'sent before they start'} and scanned meanwhile`,
     );
-    console.log(`route          requests  errors  non-2xx   p50 ms   p95 ms   p99 ms   max ms   p95 after ${steadyAfterMs / 1000} s`);
+    console.log(`route          requests  errors  non-2xx   p50 ms   p95 ms   p99 ms   max ms   p95 after ${steadyAfterMs / 1000} s   in-server p50 / p95 ms`);
     for (const f of figures) {
       console.log(
-        `${f.route.padEnd(14)} ${String(f.requests).padStart(8)} ${String(f.errors).padStart(7)} ${String(f.non2xx).padStart(8)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${f.max.toFixed(1).padStart(8)} ${f.steadyP95.toFixed(1).padStart(8)}`,
+        `${f.route.padEnd(14)} ${String(f.requests).padStart(8)} ${String(f.errors).padStart(7)} ${String(f.non2xx).padStart(8)} ${f.p50.toFixed(1).padStart(8)} ${f.p95.toFixed(1).padStart(8)} ${f.p99.toFixed(1).padStart(8)} ${f.max.toFixed(1).padStart(8)} ${f.steadyP95.toFixed(1).padStart(8)}        ${f.inServerP50.toFixed(1).padStart(6)} / ${f.inServerP95.toFixed(1)}`,
       );
+    }
+    console.log(`web thread event-loop delay over the run: p50 ${report.loop.p50} ms, p99 ${report.loop.p99} ms, max ${report.loop.max} ms (mean ${report.loop.mean} ms)`);
+    console.log(`first ${firstSeconds} s, by the second a request was sent: p95 ms client / in-server, and the event loop's largest delay in that second`);
+    console.log(`  s  ${routes.map((route) => route.name.padStart(15)).join('')}   loop max ms`);
+    for (const row of firstSecondsTable) {
+      const cells = routes.map((route) => {
+        const c = row.routes[route.name]!;
+        return `${c.p95.toFixed(0)} / ${c.inServerP95.toFixed(0)}`.padStart(15);
+      });
+      console.log(`${String(row.second).padStart(3)}  ${cells.join('')}   ${row.loopDelayMaxMs.toFixed(1).padStart(11)}`);
     }
     console.log(`server process CPU during the load: ${(serverCpu / 1000).toFixed(1)} s (all its threads, scans included) for ${requestsServed} requests; its web (main) thread ${(mainCpu / 1000).toFixed(1)} s = ${(mainCpu / requestsServed).toFixed(2)} ms a request, ingest work on that thread included`);
     if (ingestResult) console.log(`ingest: upload answered after ${ingestResult.uploadSeconds.toFixed(1)} s; ${ingestResult.stored} stored, ${ingestResult.state} after ${ingestResult.seconds.toFixed(1)} s`);
   }
-  console.log(JSON.stringify({ readers, rate, arrivals, upload: uploadWhen, seconds, cores: availableParallelism(), ingest: ingestResult, serverCpuSeconds: Number((serverCpu / 1000).toFixed(1)), mainThreadCpuMsPerRequest: Number((mainCpu / requestsServed).toFixed(2)), routes: figures }));
+  console.log(JSON.stringify({ readers, rate, arrivals, upload: uploadWhen, seconds, cores: availableParallelism(), ingest: ingestResult, serverCpuSeconds: Number((serverCpu / 1000).toFixed(1)), mainThreadCpuMsPerRequest: Number((mainCpu / requestsServed).toFixed(2)), eventLoopDelay: report.loop, firstSeconds: firstSecondsTable, routes: figures }));
 } finally {
   server.kill('SIGTERM');
   await new Promise((r) => server.once('exit', r));
@@ -255,6 +312,17 @@ async function waitForHealth(): Promise<void> {
     await new Promise((r) => setTimeout(r, 200));
   }
   throw new Error('the server did not answer /api/health within 120 s');
+}
+
+/** The route (index in `routes`, in the same order) a request path belongs to; -1 for the bench's own requests. */
+function routeOfPath(url: string): number {
+  const p = url.split('?')[0]!;
+  if (p === '/api/me/queue') return 0;
+  if (/^\/api\/spectra\/\d+$/.test(p)) return 1;
+  if (/^\/api\/spectra\/\d+\/data$/.test(p)) return 2;
+  if (/^\/api\/spectra\/\d+\/scan-curves$/.test(p)) return 3;
+  if (/^\/api\/campaigns\/\d+\/spectra$/.test(p)) return 4;
+  return -1;
 }
 
 function pick<T>(items: T[]): T {

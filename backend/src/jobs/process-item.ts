@@ -1,11 +1,10 @@
-import { and, eq, sql } from 'drizzle-orm';
 import { gridStepOf, type GridStep } from '../contracts/campaigns';
-import { assignments, jobItems, jobs, scanResults, spectra } from '../db/schema';
 import type { ServiceContext } from '../services/context';
 import { linkTarget, type LinkableTarget } from '../ingest/link-target';
 import type { BlobStore } from '../storage/blob-store';
 import { isSpectrumFileName, SPECTRUM_FILE_ENDINGS } from './accepted-files';
 import type { JobItemRow, JobRow } from './job-store';
+import { countItemDone, finishPendingItem, insertAssignment, insertScanResult, insertSpectrum, itemState, retireCurrentScan, spectrumByContent } from './result-statements';
 import type { ScanPool } from './scan-pool';
 import type { ScanOutcome, ScanTaskResult } from './scan-worker';
 
@@ -80,47 +79,43 @@ export function recordItemResult(ic: ResultContext, item: JobItemRow, result: Sc
   const { ctx, job } = ic;
   if (!result.ok) return finishItem(ic, item, { state: 'failed', errorCode: result.code, errorMessage: result.message });
 
-  return ctx.db.transaction((tx) => {
-    if (!isPending(tx, item.id)) return false;
+  const { db } = ctx;
+  return db.transaction(() => {
+    if (itemState(db).get({ itemId: item.id })?.state !== 'pending') return false;
     let spectrumId: number;
     let outcome: 'stored' | 'duplicate' | 'rescanned';
     if (job.kind === 'ingest') {
       const meta = result.spectrum.meta;
       const link = linkTarget(ic.targets(), { fileName: item.fileName, objectName: meta.objectName, ra: meta.ra, dec: meta.dec }, ctx.config.linkToleranceArcsec);
-      const inserted = tx
-        .insert(spectra)
-        .values({
-          campaignId: job.campaignId,
-          sha256: item.sha256!,
-          fileName: item.fileName,
-          targetId: link?.targetId ?? null,
-          linkMethod: link?.method ?? null,
-          objectName: meta.objectName ?? null,
-          ra: meta.ra ?? null,
-          dec: meta.dec ?? null,
-          instrument: meta.instrument ?? null,
-          exposureS: meta.exposureS ?? null,
-          dateObs: meta.dateObs ?? null,
-          fluxUnit: result.spectrum.fluxUnit,
-          medium: meta.medium,
-          pixels: result.spectrum.pixels,
-          wavelengthMin: result.spectrum.wavelengthMin,
-          wavelengthMax: result.spectrum.wavelengthMax,
-          snrMedian: result.scanned.ok && Number.isFinite(result.scanned.scan.meta.snrMedian) ? result.scanned.scan.meta.snrMedian : null,
-          errorsEstimated: meta.errorsEstimated,
-          warnings: meta.warnings,
-          uploadJobId: job.id,
-        })
-        .onConflictDoNothing()
-        .returning({ id: spectra.id })
-        .get();
+      const inserted = insertSpectrum(db).get({
+        campaignId: job.campaignId,
+        sha256: item.sha256!,
+        fileName: item.fileName,
+        targetId: link?.targetId ?? null,
+        linkMethod: link?.method ?? null,
+        objectName: meta.objectName ?? null,
+        ra: meta.ra ?? null,
+        dec: meta.dec ?? null,
+        instrument: meta.instrument ?? null,
+        exposureS: meta.exposureS ?? null,
+        dateObs: meta.dateObs ?? null,
+        fluxUnit: result.spectrum.fluxUnit,
+        medium: meta.medium,
+        pixels: result.spectrum.pixels,
+        wavelengthMin: result.spectrum.wavelengthMin,
+        wavelengthMax: result.spectrum.wavelengthMax,
+        snrMedian: result.scanned.ok && Number.isFinite(result.scanned.scan.meta.snrMedian) ? result.scanned.scan.meta.snrMedian : null,
+        errorsEstimated: meta.errorsEstimated,
+        warnings: meta.warnings,
+        uploadJobId: job.id,
+      });
       // The same content twice in one upload: the first copy to arrive is the spectrum.
-      if (!inserted) return finishItemTx(tx, item, { state: 'done', outcome: 'duplicate', spectrumId: findSpectrumTx(tx, job.campaignId, item.sha256!) });
+      if (!inserted) return finishItemTx(ic, item, { state: 'done', outcome: 'duplicate', spectrumId: findSpectrum(ic, item.sha256!) });
       spectrumId = inserted.id;
       outcome = 'stored';
       for (const readingOrder of ['first', 'second'] as const) {
         const readerId = ic.settings.assign?.[readingOrder];
-        if (readerId !== undefined) tx.insert(assignments).values({ spectrumId, readerId, readingOrder, assignedBy: job.createdBy }).run();
+        if (readerId !== undefined) insertAssignment(db).run({ spectrumId, readerId, readingOrder, assignedBy: job.createdBy });
       }
     } else {
       spectrumId = item.spectrumId!;
@@ -128,47 +123,34 @@ export function recordItemResult(ic: ResultContext, item: JobItemRow, result: Sc
     }
     if (result.scanned.ok) {
       // A re-scan keeps the earlier result for the record; the new one becomes current.
-      tx.update(scanResults).set({ isCurrent: false }).where(and(eq(scanResults.spectrumId, spectrumId), eq(scanResults.isCurrent, true))).run();
-      insertScanResult(tx, spectrumId, job.id, ic.settings, result.scanned);
-      return finishItemTx(tx, item, { state: 'done', outcome, spectrumId });
+      retireCurrentScan(db).run({ spectrumId });
+      recordScan(ic, spectrumId, result.scanned);
+      return finishItemTx(ic, item, { state: 'done', outcome, spectrumId });
     }
     // The spectrum is kept (it was read); the failed scan is listed so it can be redone.
-    return finishItemTx(tx, item, { state: 'failed', outcome, spectrumId, errorCode: result.scanned.code, errorMessage: result.scanned.message });
+    return finishItemTx(ic, item, { state: 'failed', outcome, spectrumId, errorCode: result.scanned.code, errorMessage: result.scanned.message });
   });
 }
 
-type Tx = Parameters<Parameters<ServiceContext['db']['transaction']>[0]>[0];
-
-function insertScanResult(tx: Tx, spectrumId: number, jobId: number, settings: JobSettings, result: Extract<ScanOutcome, { ok: true }>) {
+function recordScan(ic: ResultContext, spectrumId: number, result: Extract<ScanOutcome, { ok: true }>) {
   const top = result.scan.solutions[0];
-  tx.insert(scanResults)
-    .values({
-      spectrumId,
-      jobId,
-      engineVersion: result.scan.engineVersion,
-      settings: { zMin: settings.zMin, zMax: settings.zMax, gridStep: gridStepOf(settings) },
-      spectrumClass: result.scan.class,
-      zBest: top?.z ?? null,
-      zBestErr: top?.zErr ?? null,
-      solutions: result.scan.solutions,
-      lineMatches: result.scan.lineMatches,
-      meta: { ...result.scan.meta, chi2Null: result.scan.chi2Null, ...(result.scan.unknownReason ? { unknownReason: result.scan.unknownReason } : {}) },
-      curves: Buffer.from(result.curves),
-      isCurrent: true,
-    })
-    .run();
-}
-
-function isPending(tx: Pick<Tx, 'select'>, itemId: number): boolean {
-  return tx.select({ state: jobItems.state }).from(jobItems).where(eq(jobItems.id, itemId)).get()?.state === 'pending';
+  insertScanResult(ic.ctx.db).run({
+    spectrumId,
+    jobId: ic.job.id,
+    engineVersion: result.scan.engineVersion,
+    settings: { zMin: ic.settings.zMin, zMax: ic.settings.zMax, gridStep: gridStepOf(ic.settings) },
+    spectrumClass: result.scan.class,
+    zBest: top?.z ?? null,
+    zBestErr: top?.zErr ?? null,
+    solutions: result.scan.solutions,
+    lineMatches: result.scan.lineMatches,
+    meta: { ...result.scan.meta, chi2Null: result.scan.chi2Null, ...(result.scan.unknownReason ? { unknownReason: result.scan.unknownReason } : {}) },
+    curves: Buffer.from(result.curves),
+  });
 }
 
 function findSpectrum(ic: ResultContext, sha256: string): number | null {
-  return findSpectrumTx(ic.ctx.db, ic.job.campaignId, sha256);
-}
-
-function findSpectrumTx(db: Pick<Tx, 'select'>, campaignId: number, sha256: string): number | null {
-  return db.select({ id: spectra.id }).from(spectra).where(and(eq(spectra.campaignId, campaignId), eq(spectra.sha256, sha256))).get()?.id ?? null;
+  return spectrumByContent(ic.ctx.db).get({ campaignId: ic.job.campaignId, sha256 })?.id ?? null;
 }
 
 interface ItemEnd {
@@ -180,24 +162,22 @@ interface ItemEnd {
 }
 
 function finishItem(ic: ResultContext, item: JobItemRow, end: ItemEnd): boolean {
-  return ic.ctx.db.transaction((tx) => finishItemTx(tx, item, end));
+  return ic.ctx.db.transaction(() => finishItemTx(ic, item, end));
 }
 
-/** Finishes a still-pending item (true), or leaves an already finished one alone (false). */
-function finishItemTx(tx: Tx, item: JobItemRow, end: ItemEnd): boolean {
-  const changed = tx
-    .update(jobItems)
-    .set({
-      state: end.state,
-      outcome: end.outcome ?? null,
-      spectrumId: end.spectrumId ?? item.spectrumId,
-      errorCode: end.errorCode ?? null,
-      errorMessage: end.errorMessage ?? null,
-    })
-    .where(and(eq(jobItems.id, item.id), eq(jobItems.state, 'pending')))
-    .run().changes;
+/** Finishes a still-pending item (true), or leaves an already finished one alone (false); call inside a transaction. */
+function finishItemTx(ic: ResultContext, item: JobItemRow, end: ItemEnd): boolean {
+  const { db } = ic.ctx;
+  const changed = finishPendingItem(db).run({
+    itemId: item.id,
+    state: end.state,
+    outcome: end.outcome ?? null,
+    spectrumId: end.spectrumId ?? item.spectrumId,
+    errorCode: end.errorCode ?? null,
+    errorMessage: end.errorMessage ?? null,
+  }).changes;
   // Counted up by one rather than recounted: a recount reads every item of the job, which for a
   // survey-sized job (10^6 items) would make each finish cost as much as the whole job's index.
-  if (changed > 0) tx.update(jobs).set({ done: sql`${jobs.done} + 1` }).where(eq(jobs.id, item.jobId)).run();
+  if (changed > 0) countItemDone(db).run({ jobId: item.jobId });
   return changed > 0;
 }

@@ -52,9 +52,9 @@ export function readingRoutes(ctx: ServiceContext): Router {
     method: 'get',
     path: '/spectra/:spectrumId/data',
     access: viewer,
-    handle: ({ req, res }) => {
+    handle: async ({ req, res }) => {
       // Packed before any header is set: an error must leave as JSON, not as an octet stream.
-      const { packed, etag } = packSpectrumData(ctx, spectrumId(req));
+      const { packed, etag } = await packSpectrumData(ctx, spectrumId(req));
       res.set('ETag', etag).set('Cache-Control', 'private, max-age=3600');
       if (req.get('if-none-match') === etag) return void res.status(304).end();
       res.type('application/octet-stream').send(packed);

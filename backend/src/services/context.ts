@@ -4,6 +4,7 @@ import type { Db } from '../db/client';
 import type { Mailer } from '../mail/mailer';
 import type { BlobStore } from '../storage/blob-store';
 import type { ScanPool } from '../jobs/scan-pool';
+import type { SpectrumDataThread } from '../storage/data-thread';
 
 /** What every use-case may depend on; built once at boot (or once per test app). */
 export interface ServiceContext {
@@ -17,6 +18,8 @@ export interface ServiceContext {
   store: BlobStore;
   /** Worker threads for scans and for rebuilding solution models (threads start on first use). */
   scanPool: ScanPool;
+  /** Parses and packs stored files for the `/data` route off the web thread. */
+  spectrumData: SpectrumDataThread;
   /** Tells the job runner (when this process has one) that work was queued. */
   wakeJobRunner: () => void;
 }

@@ -1,7 +1,8 @@
-import { and, asc, count, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, count, desc, eq, isNotNull, isNull, or, sql, type SQL, type SQLWrapper } from 'drizzle-orm';
 import type { CampaignRole } from '../contracts/campaigns';
 import type { SpectraPage, spectraQuerySchema } from '../contracts/ingest';
 import type { z } from 'zod';
+import { preparedByShape } from '../db/prepared-by-shape';
 import { qualified } from '../db/qualified';
 import { assignments, readings, scanResults, spectra, targets } from '../db/schema';
 import type { ServiceContext } from './context';
@@ -25,25 +26,53 @@ export interface SpectraViewer {
   role: CampaignRole | null;
 }
 
-/**
- * One page of a campaign's spectra, sorted and filtered in SQL so thousands stay quick.
- * `readingsDone` counts every saved reading for leads, observers and admins; for a reader it
- * counts only their own (0 or 1), since "2 of 2" would tell them the other reader has finished.
- */
-export function listSpectra(ctx: ServiceContext, campaignId: number, query: Query, viewer: SpectraViewer): SpectraPage {
-  const ownReadingsOnly = viewer.role === 'reader' ? sql` and ${qualified(readings.readerId)} = ${viewer.userId}` : sql``;
-  const filters: SQL[] = [eq(spectra.campaignId, campaignId)];
-  if (query.q) {
-    const pattern = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    filters.push(or(like(spectra.fileName, pattern), like(targets.catalogueId, pattern), like(spectra.objectName, pattern))!);
-  }
-  if (query.class) filters.push(eq(scanResults.spectrumClass, query.class));
-  if (query.linked === 'yes') filters.push(isNotNull(spectra.targetId));
-  if (query.linked === 'no') filters.push(isNull(spectra.targetId));
-  const where = and(...filters);
+/** What decides the SQL of a list request; everything else is a bound value. */
+interface ListShape {
+  search: boolean;
+  byClass: boolean;
+  linked: Query['linked'];
+  sort: Query['sort'];
+  dir: Query['dir'];
+  ownReadingsOnly: boolean;
+}
 
-  const base = () =>
-    ctx.db
+/**
+ * User text for a LIKE pattern: `%`, `_` and the escape character itself stand for themselves
+ * (`escape '\'` in the statement), so a search for "50%" does not match every name with a 50.
+ */
+export function likeContaining(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+const containsSearch = (column: SQLWrapper) => sql`${column} like ${sql.placeholder('pattern')} escape '\\'`;
+
+function filtersOf(shape: ListShape): SQL {
+  const filters: SQL[] = [eq(spectra.campaignId, sql.placeholder('campaignId'))];
+  if (shape.search) filters.push(or(containsSearch(spectra.fileName), containsSearch(targets.catalogueId), containsSearch(spectra.objectName))!);
+  if (shape.byClass) filters.push(eq(scanResults.spectrumClass, sql.placeholder('class')));
+  if (shape.linked === 'yes') filters.push(isNotNull(spectra.targetId));
+  if (shape.linked === 'no') filters.push(isNull(spectra.targetId));
+  return and(...filters)!;
+}
+
+// The list is asked on every visit of the spectra screen, and its statements took ≈ 8 ms of
+// building and compiling a request (issue 13's load benchmark); the shapes are few (2 × 2 × 3 × 7
+// sorts × 2 × 2), so each is prepared on first use and kept.
+const statementsFor = preparedByShape(
+  64,
+  (s: ListShape) => `${+s.search}${+s.byClass}${s.linked ?? '-'}:${s.sort}:${s.dir}:${+s.ownReadingsOnly}`,
+  (db, shape) => {
+    const where = filtersOf(shape);
+    const ownReadingsOnly = shape.ownReadingsOnly ? sql` and ${qualified(readings.readerId)} = ${sql.placeholder('viewerId')}` : sql``;
+    const order = shape.dir === 'asc' ? asc : desc;
+    const total = db
+      .select({ n: count() })
+      .from(spectra)
+      .leftJoin(targets, eq(targets.id, spectra.targetId))
+      .leftJoin(scanResults, and(eq(scanResults.spectrumId, spectra.id), eq(scanResults.isCurrent, true)))
+      .where(where)
+      .prepare();
+    const page = db
       .select({
         id: spectra.id,
         fileName: spectra.fileName,
@@ -66,22 +95,35 @@ export function listSpectra(ctx: ServiceContext, campaignId: number, query: Quer
       })
       .from(spectra)
       .leftJoin(targets, eq(targets.id, spectra.targetId))
-      .leftJoin(scanResults, and(eq(scanResults.spectrumId, spectra.id), eq(scanResults.isCurrent, true)));
+      .leftJoin(scanResults, and(eq(scanResults.spectrumId, spectra.id), eq(scanResults.isCurrent, true)))
+      .where(where)
+      .orderBy(order(sortColumns[shape.sort]), asc(spectra.id))
+      .limit(sql.placeholder('limit'))
+      .offset(sql.placeholder('offset'))
+      .prepare();
+    return { total, page };
+  },
+);
 
-  const total = ctx.db
-    .select({ n: count() })
-    .from(spectra)
-    .leftJoin(targets, eq(targets.id, spectra.targetId))
-    .leftJoin(scanResults, and(eq(scanResults.spectrumId, spectra.id), eq(scanResults.isCurrent, true)))
-    .where(where)
-    .get()!.n;
-  const order = query.dir === 'asc' ? asc : desc;
-  const rows = base()
-    .where(where)
-    .orderBy(order(sortColumns[query.sort]), asc(spectra.id))
-    .limit(query.pageSize)
-    .offset((query.page - 1) * query.pageSize)
-    .all();
+/**
+ * One page of a campaign's spectra, sorted and filtered in SQL so thousands stay quick.
+ * `readingsDone` counts every saved reading for leads, observers and admins; for a reader it
+ * counts only their own (0 or 1), since "2 of 2" would tell them the other reader has finished.
+ */
+export function listSpectra(ctx: ServiceContext, campaignId: number, query: Query, viewer: SpectraViewer): SpectraPage {
+  const shape: ListShape = { search: !!query.q, byClass: !!query.class, linked: query.linked, sort: query.sort, dir: query.dir, ownReadingsOnly: viewer.role === 'reader' };
+  const statements = statementsFor(ctx.db, shape);
+  // Drizzle binds by name the placeholders a shape's statements use; the others are ignored.
+  const values = {
+    campaignId,
+    pattern: query.q ? likeContaining(query.q) : null,
+    class: query.class ?? null,
+    viewerId: viewer.userId,
+    limit: query.pageSize,
+    offset: (query.page - 1) * query.pageSize,
+  };
+  const total = statements.total.get(values)!.n;
+  const rows = statements.page.all(values);
   return {
     total,
     page: query.page,
